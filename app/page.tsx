@@ -1,0 +1,9 @@
+import { redirect } from "next/navigation";
+import { getSessionUser } from "@/lib/auth";
+import { homeFor } from "@/lib/auth/roles";
+
+// The root sends each role to its home.
+export default async function Home() {
+  const user = await getSessionUser();
+  redirect(user ? homeFor(user.role) : "/sign-in");
+}

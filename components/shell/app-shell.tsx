@@ -1,0 +1,76 @@
+import Link from "next/link";
+import type { ReactNode } from "react";
+import { ROLE_LABELS, homeFor } from "@/lib/auth/roles";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { Wordmark } from "./brand-mark";
+import { navItemsFor } from "./nav-items";
+import { NavLinks } from "./nav-links";
+import { SignOutButton } from "./sign-out-button";
+
+function Sidebar({ user, context }: { user: SessionUser; context?: string }) {
+  return (
+    <div className="flex h-full flex-col gap-6 p-4">
+      <Link href={homeFor(user.role)} className="rounded-md px-1 py-1" aria-label="Loopshift home">
+        <Wordmark />
+      </Link>
+      <nav aria-label="Main">
+        <NavLinks items={navItemsFor(user.role)} />
+      </nav>
+      <div className="mt-auto space-y-3 rounded-md bg-flux-950/40 p-3 text-small">
+        <div>
+          <p className="font-bold text-white">{user.name}</p>
+          <p className="break-all text-flux-200">{user.email}</p>
+          <p className="mt-1 text-flux-100">{ROLE_LABELS[user.role]}</p>
+          {context ? <p className="text-flux-100">{context}</p> : null}
+        </div>
+        <SignOutButton />
+      </div>
+    </div>
+  );
+}
+
+// The signed-in page shell: a dark sidebar on wide screens, a collapsible bar on narrow ones.
+export function AppShell({
+  user,
+  context,
+  children,
+}: {
+  user: SessionUser;
+  context?: string;
+  children: ReactNode;
+}) {
+  return (
+    <div className="min-h-screen md:grid md:grid-cols-[15.5rem_1fr]">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2"
+      >
+        Skip to content
+      </a>
+      <aside className="hidden bg-flux-900 md:block">
+        <div className="sticky top-0 h-screen">
+          <Sidebar user={user} context={context} />
+        </div>
+      </aside>
+      <details className="bg-flux-900 md:hidden">
+        <summary className="flex cursor-pointer list-none items-center justify-between px-4 py-3 text-white">
+          <Wordmark />
+          <span className="rounded border border-flux-600 px-2 py-1 text-small font-bold">
+            Menu
+          </span>
+        </summary>
+        <Sidebar user={user} context={context} />
+      </details>
+      <div className="flex min-h-screen flex-col">
+        <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6 md:px-8 md:py-8">
+          {children}
+        </main>
+        <footer className="border-t border-steel-200 px-4 py-3 text-caption text-steel-600 md:px-8">
+          Figures are estimates from datasheet values and the stated assumptions. Retrofit work is
+          electrical work on machinery: isolate and lock out, qualified persons only, and follow the
+          machine&apos;s risk assessment and local codes.
+        </footer>
+      </div>
+    </div>
+  );
+}

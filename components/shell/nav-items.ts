@@ -1,0 +1,14 @@
+import type { Role } from "@/lib/auth/roles";
+import type { NavItem } from "./nav-links";
+
+// Each role sees only the sections it may use; later sections join these lists as they ship.
+export function navItemsFor(role: Role): NavItem[] {
+  switch (role) {
+    case "admin":
+      return [{ href: "/admin", label: "Users and audit" }];
+    case "reviewer":
+      return [{ href: "/review", label: "Proposals for review" }];
+    default:
+      return [{ href: "/accounts", label: "Accounts" }];
+  }
+}

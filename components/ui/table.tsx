@@ -1,0 +1,58 @@
+import Link from "next/link";
+import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
+
+export function Table({ caption, children }: { caption: string; children: ReactNode }) {
+  return (
+    <div className="overflow-x-auto rounded-panel border border-steel-200 bg-white">
+      <table className="min-w-full divide-y divide-steel-200 text-left text-small">
+        <caption className="sr-only">{caption}</caption>
+        {children}
+      </table>
+    </div>
+  );
+}
+
+export function Th({ className = "", ...props }: ThHTMLAttributes<HTMLTableCellElement>) {
+  return (
+    <th
+      scope="col"
+      className={`bg-steel-100 px-3 py-2 font-bold text-steel-800 ${className}`}
+      {...props}
+    />
+  );
+}
+
+export function Td({ className = "", ...props }: TdHTMLAttributes<HTMLTableCellElement>) {
+  return <td className={`px-3 py-2 align-middle text-steel-900 ${className}`} {...props} />;
+}
+
+// A column header that sorts the table through the URL, so a sorted view can be bookmarked.
+export function SortHeader({
+  label,
+  column,
+  sort,
+  dir,
+  href,
+}: {
+  label: string;
+  column: string;
+  sort: string;
+  dir: "asc" | "desc";
+  href: (column: string, dir: "asc" | "desc") => string;
+}) {
+  const active = sort === column;
+  const next = active && dir === "asc" ? "desc" : "asc";
+  return (
+    <Th aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : "none"}>
+      <Link
+        href={href(column, next)}
+        className="inline-flex items-center gap-1 hover:text-flux-700"
+      >
+        {label}
+        <span aria-hidden="true" className="text-steel-500">
+          {active ? (dir === "asc" ? "▲" : "▼") : "↕"}
+        </span>
+      </Link>
+    </Th>
+  );
+}

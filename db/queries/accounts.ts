@@ -1,0 +1,78 @@
+import { asc, eq, exists, or, sql, and, type SQL } from "drizzle-orm";
+import { db } from "@/db";
+import { accounts, accountShares, users } from "@/db/schema";
+import { assertRole, type SessionUser } from "@/lib/auth/session-user";
+import { NotFoundError } from "@/lib/errors";
+
+// The WHERE clause that limits accounts to what the caller may see: managers see all, engineers
+// the accounts they own or are shared on, reviewers their own account, admins none (they manage
+// users and the catalogue, not customers' data).
+export function accountScope(caller: SessionUser): SQL | undefined {
+  switch (caller.role) {
+    case "manager":
+      return undefined;
+    case "engineer":
+      return or(
+        eq(accounts.ownerId, caller.id),
+        exists(
+          db
+            .select({ one: sql`1` })
+            .from(accountShares)
+            .where(
+              and(eq(accountShares.accountId, accounts.id), eq(accountShares.userId, caller.id)),
+            ),
+        ),
+      );
+    case "reviewer":
+      return eq(accounts.id, caller.accountId ?? -1);
+    default:
+      return sql`0`;
+  }
+}
+
+export type AccountRow = {
+  id: number;
+  name: string;
+  ownerId: number;
+  ownerName: string;
+  shareCount: number;
+  createdAt: string;
+};
+
+export function listAccounts(caller: SessionUser): AccountRow[] {
+  assertRole(caller, "engineer", "manager");
+  return db
+    .select({
+      id: accounts.id,
+      name: accounts.name,
+      ownerId: accounts.ownerId,
+      ownerName: users.name,
+      shareCount: sql<number>`(select count(*) from ${accountShares} where ${accountShares.accountId} = ${accounts.id})`,
+      createdAt: accounts.createdAt,
+    })
+    .from(accounts)
+    .innerJoin(users, eq(users.id, accounts.ownerId))
+    .where(accountScope(caller))
+    .orderBy(asc(accounts.name))
+    .all();
+}
+
+export function getAccountOrThrow(caller: SessionUser, id: number) {
+  const row = db
+    .select()
+    .from(accounts)
+    .where(and(eq(accounts.id, id), accountScope(caller)))
+    .get();
+  if (!row) throw new NotFoundError("No such account");
+  return row;
+}
+
+// Names and ids only, for the administrator's "reviewer of which account" choice.
+export function listAccountOptions(caller: SessionUser) {
+  assertRole(caller, "admin");
+  return db
+    .select({ id: accounts.id, name: accounts.name })
+    .from(accounts)
+    .orderBy(asc(accounts.name))
+    .all();
+}

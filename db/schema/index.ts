@@ -1,0 +1,3 @@
+export * from "./users";
+export * from "./accounts";
+export * from "./audit";

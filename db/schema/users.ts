@@ -1,0 +1,27 @@
+import { sql } from "drizzle-orm";
+import { index, integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { accounts } from "./accounts";
+
+export const ROLES = ["engineer", "manager", "reviewer", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const users = sqliteTable(
+  "users",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    email: text("email").notNull().unique(),
+    name: text("name").notNull(),
+    passwordHash: text("password_hash").notNull(),
+    role: text("role", { enum: ROLES }).notNull(),
+    // Only reviewers belong to a customer account; vendor staff have none.
+    accountId: integer("account_id").references(() => accounts.id, { onDelete: "set null" }),
+    active: integer("active", { mode: "boolean" }).notNull().default(true),
+    createdAt: text("created_at")
+      .notNull()
+      .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`),
+  },
+  (t) => [index("users_account_idx").on(t.accountId)],
+);
+
+export type User = typeof users.$inferSelect;
+export type NewUser = typeof users.$inferInsert;

@@ -1,0 +1,20 @@
+import type { Role } from "@/db/schema/users";
+
+declare module "next-auth" {
+  interface Session {
+    user: { id: number; email: string; name: string; role: Role; accountId: number | null };
+  }
+  interface User {
+    id: string;
+    role: Role;
+    accountId: number | null;
+  }
+}
+
+declare module "next-auth/jwt" {
+  interface JWT {
+    uid?: number;
+    role?: Role;
+    accountId?: number | null;
+  }
+}

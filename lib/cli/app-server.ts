@@ -1,0 +1,44 @@
+import { spawn, spawnSync } from "node:child_process";
+import path from "node:path";
+import { openDatabase } from "../../db/client";
+import { migrateDatabase } from "../../db/migrate";
+import { seedDatabase } from "../../db/seed";
+import { needsBuild } from "./build-check";
+
+export const ROOT = path.resolve(__dirname, "../..");
+const NEXT_BIN = path.join(ROOT, "node_modules", "next", "dist", "bin", "next");
+
+// Applies the migrations and seeds the demo scenario into an empty database.
+export function prepareDatabase(file: string): boolean {
+  const db = openDatabase(file);
+  try {
+    migrateDatabase(db);
+    return seedDatabase(db);
+  } finally {
+    db.$client.close();
+  }
+}
+
+// Makes a production build when there is none or a source is newer than it.
+export function ensureBuild(env: NodeJS.ProcessEnv) {
+  if (!needsBuild(ROOT)) return;
+  console.log("Building the app (first start or changed sources)…");
+  const build = spawnSync(process.execPath, [NEXT_BIN, "build"], {
+    cwd: ROOT,
+    stdio: "inherit",
+    env: { ...env, NODE_ENV: "production" },
+  });
+  if (build.status !== 0) throw new Error(`next build failed with exit code ${build.status}`);
+}
+
+export function spawnNext(
+  env: NodeJS.ProcessEnv,
+  mode: "start" | "dev",
+  stdio: "inherit" | "pipe" = "inherit",
+) {
+  return spawn(process.execPath, [NEXT_BIN, mode, "-p", env.PORT!], {
+    cwd: ROOT,
+    stdio,
+    env: { ...env, NODE_ENV: mode === "dev" ? "development" : "production" },
+  });
+}

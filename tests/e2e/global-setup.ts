@@ -1,0 +1,69 @@
+import fs from "node:fs";
+import net from "node:net";
+import os from "node:os";
+import path from "node:path";
+import type { TestProject } from "vitest/node";
+import { ensureBuild, prepareDatabase, spawnNext } from "../../lib/cli/app-server";
+import { prepareRuntimeEnv } from "../../lib/cli/runtime-env";
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    baseUrl: string;
+  }
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.listen(0, "127.0.0.1", () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+    srv.on("error", reject);
+  });
+}
+
+async function waitForServer(url: string, timeoutMs: number) {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    try {
+      const res = await fetch(url, { redirect: "manual" });
+      if (res.status < 500) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`the app did not answer at ${url} within ${timeoutMs} ms`);
+}
+
+// Builds the app when needed and serves it on a free port over a fresh, seeded database file.
+export default async function setup(project: TestProject) {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "loopshift-e2e-"));
+  const port = await freePort();
+  const env = prepareRuntimeEnv({
+    ...process.env,
+    PORT: String(port),
+    DATABASE_PATH: path.join(dir, "e2e.db"),
+    NEXTAUTH_URL: `http://localhost:${port}`,
+    LOOPSHIFT_DEMO: "on",
+  });
+  ensureBuild(env);
+  prepareDatabase(env.DATABASE_PATH!);
+  const server = spawnNext(env, "start", "pipe");
+  let log = "";
+  server.stdout?.on("data", (d) => (log += d));
+  server.stderr?.on("data", (d) => (log += d));
+  try {
+    await waitForServer(`${env.NEXTAUTH_URL}/sign-in`, 60_000);
+  } catch (error) {
+    server.kill();
+    console.error(log);
+    throw error;
+  }
+  project.provide("baseUrl", env.NEXTAUTH_URL!);
+  return () => {
+    server.kill();
+    if (process.env.E2E_SERVER_LOG) fs.writeFileSync(process.env.E2E_SERVER_LOG, log);
+  };
+}

@@ -1,0 +1,2 @@
+// Stand-in for the "server-only" guard when vitest imports server modules directly.
+export {};
