@@ -7,12 +7,26 @@ import { navItemsFor } from "./nav-items";
 import { NavLinks } from "./nav-links";
 import { SignOutButton } from "./sign-out-button";
 
-function Sidebar({ user, context }: { user: SessionUser; context?: string }) {
+function Sidebar({
+  user,
+  context,
+  brand = true,
+}: {
+  user: SessionUser;
+  context?: string;
+  brand?: boolean;
+}) {
   return (
     <div className="flex h-full flex-col gap-6 p-4">
-      <Link href={homeFor(user.role)} className="rounded-md px-1 py-1" aria-label="Loopshift home">
-        <Wordmark />
-      </Link>
+      {brand ? (
+        <Link
+          href={homeFor(user.role)}
+          className="rounded-md px-1 py-1"
+          aria-label="Loopshift home"
+        >
+          <Wordmark />
+        </Link>
+      ) : null}
       <nav aria-label="Main">
         <NavLinks items={navItemsFor(user.role)} />
       </nav>
@@ -59,7 +73,7 @@ export function AppShell({
             Menu
           </span>
         </summary>
-        <Sidebar user={user} context={context} />
+        <Sidebar user={user} context={context} brand={false} />
       </details>
       <div className="flex min-h-screen flex-col">
         <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6 md:px-8 md:py-8">

@@ -26,7 +26,7 @@ export function ensureBuild(env: NodeJS.ProcessEnv) {
   const build = spawnSync(process.execPath, [NEXT_BIN, "build"], {
     cwd: ROOT,
     stdio: "inherit",
-    env: { ...env, NODE_ENV: "production" },
+    env: { ...env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1" },
   });
   if (build.status !== 0) throw new Error(`next build failed with exit code ${build.status}`);
 }
@@ -39,6 +39,6 @@ export function spawnNext(
   return spawn(process.execPath, [NEXT_BIN, mode, "-p", env.PORT!], {
     cwd: ROOT,
     stdio,
-    env: { ...env, NODE_ENV: mode === "dev" ? "development" : "production" },
+    env: { ...env, NODE_ENV: mode === "dev" ? "development" : "production", NEXT_TELEMETRY_DISABLED: "1" },
   });
 }

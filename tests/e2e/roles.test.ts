@@ -101,3 +101,29 @@ describe("the administrator manages users", () => {
     await page.context().close();
   });
 });
+
+describe("signing out and narrow screens", () => {
+  it("signing out ends the session and returns to the sign-in page", async () => {
+    const page = await freshPage();
+    await signInWithForm(page, "engineer@example.com");
+    await page.waitForURL("**/accounts");
+    await page.getByRole("button", { name: "Sign out" }).first().click();
+    await page.waitForURL("**/sign-in**");
+    const res = await page.goto(`${baseUrl()}/accounts`);
+    expect(new URL(res!.url()).pathname).toBe("/sign-in");
+    await page.context().close();
+  });
+
+  it("on a phone-sized screen the navigation folds into a menu", async () => {
+    const context = await browser.newContext({ viewport: { width: 390, height: 800 } });
+    const page = await context.newPage();
+    await signInWithForm(page, "manager@example.com");
+    await page.waitForURL("**/accounts");
+    const menu = page.getByText("Menu");
+    await expect(menu.isVisible()).resolves.toBe(true);
+    await menu.click();
+    await expect(page.getByRole("link", { name: "Accounts" }).last().isVisible()).resolves.toBe(true);
+    await screenshot(page, "phone-manager-menu");
+    await context.close();
+  });
+});
