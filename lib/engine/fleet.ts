@@ -1,0 +1,177 @@
+import type Decimal from "decimal.js";
+import { HUNDRED, Money, ZERO, moneyString, parseMoney } from "./money";
+import type { ParsedAxis, ParsedCase } from "./schema";
+import type { MachineResult } from "./types";
+
+/** Money of one axis that does not depend on the physics. */
+export interface AxisMoney {
+  /** One unit: price after discount + install labor + commissioning. */
+  capexUnit: Decimal;
+  capexTotal: Decimal;
+  /** quantity·price·(1 − discount): the part the kit-price driver scales. */
+  kitTotal: Decimal;
+  /** quantity·installHours: the part the labor-rate driver scales. */
+  laborHoursTotal: Decimal;
+  /** quantity·events·avoided·cost, counted only while the kit is not undersized. */
+  reliabilityIfServed: Decimal;
+  maintenanceTotal: Decimal;
+}
+
+const isZeroMoney = (amount: string): boolean => /^\+?0*\.?0*$/.test(amount);
+
+/**
+ * The money of every axis. Fleets repeat the same few kits, labor and costs on thousands of
+ * axes, so each distinct combination is computed once and shared (Decimals are immutable).
+ */
+export function axesMoney(axes: readonly ParsedAxis[], laborRatePerHour: Decimal): AxisMoney[] {
+  const memo = new Map<string, AxisMoney>();
+  return axes.map((axis) => {
+    const { retrofit, reliability } = axis;
+    const key =
+      `${axis.quantity}|${retrofit.kit.price}|${retrofit.discountPct}|${retrofit.installHours}|${retrofit.commissioningCost}|` +
+      `${retrofit.maintenanceSavingPerYear}|${reliability.stepLossEventsPerYear}|${reliability.avoidedPct}|${reliability.costPerEvent}`;
+    let money = memo.get(key);
+    if (money === undefined) {
+      money = axisMoney(axis, laborRatePerHour);
+      memo.set(key, money);
+    }
+    return money;
+  });
+}
+
+export function axisMoney(axis: ParsedAxis, laborRatePerHour: Decimal): AxisMoney {
+  const { retrofit, reliability } = axis;
+  const quantity = new Money(axis.quantity);
+  const price = parseMoney(retrofit.kit.price);
+  const kitUnit =
+    retrofit.discountPct === 0
+      ? price
+      : price.times(HUNDRED.minus(retrofit.discountPct)).div(HUNDRED);
+  const laborHoursUnit = new Money(retrofit.installHours);
+  const capexUnit = kitUnit
+    .plus(laborHoursUnit.times(laborRatePerHour))
+    .plus(parseMoney(retrofit.commissioningCost));
+  const served =
+    reliability.stepLossEventsPerYear === 0 ||
+    reliability.avoidedPct === 0 ||
+    isZeroMoney(reliability.costPerEvent)
+      ? ZERO
+      : quantity
+          .times(reliability.stepLossEventsPerYear)
+          .times(reliability.avoidedPct)
+          .div(HUNDRED)
+          .times(parseMoney(reliability.costPerEvent));
+  return {
+    capexUnit,
+    capexTotal: capexUnit.times(quantity),
+    kitTotal: kitUnit.times(quantity),
+    laborHoursTotal: laborHoursUnit.times(quantity),
+    reliabilityIfServed: served,
+    maintenanceTotal: quantity.times(parseMoney(retrofit.maintenanceSavingPerYear)),
+  };
+}
+
+/** Σ of a money field over axes, each distinct Decimal multiplied once by how often it occurs. */
+export function sumShared(values: Iterable<Decimal>): Decimal {
+  const counts = new Map<Decimal, number>();
+  for (const v of values) if (!v.isZero()) counts.set(v, (counts.get(v) ?? 0) + 1);
+  let total = ZERO;
+  for (const [value, count] of counts) total = total.plus(count === 1 ? value : value.times(count));
+  return total;
+}
+
+/** Per unit of one axis: what the business case of §8 needs from the physics. */
+export interface AxisEconomics {
+  energyOpenLoopKWh: number;
+  energyClosedLoopKWh: number;
+  coolingOpenLoopKWh: number;
+  coolingClosedLoopKWh: number;
+  undersized: boolean;
+  speedHeadroomPct: number | null;
+}
+
+/** What one physics run of the whole fleet adds up to. */
+export interface FleetTotals {
+  energyOpenLoopKWh: number;
+  energyClosedLoopKWh: number;
+  energySavedKWh: number;
+  coolingOpenLoopKWh: number;
+  coolingSavedKWh: number;
+  reliabilityPerYear: Decimal;
+  throughputPerYear: Decimal;
+  machines: MachineResult[];
+}
+
+/**
+ * Adds up one physics run, axis by axis, without keeping per-axis objects: the sensitivity runs
+ * pass through here too.
+ */
+export function fleetTotals(
+  input: ParsedCase,
+  money: readonly AxisMoney[],
+  economicsOf: (axisIndex: number) => AxisEconomics,
+): FleetTotals {
+  let energyOpen = 0;
+  let energyClosed = 0;
+  let coolingOpen = 0;
+  let coolingClosed = 0;
+  const served: Decimal[] = [];
+  const machineIndex = new Map(input.machines.map((m, i) => [m.id, i]));
+  const perMachine = input.machines.map(() => ({
+    axes: 0,
+    blocked: false,
+    leastHeadroom: Infinity,
+    mostHours: 0,
+  }));
+
+  input.axes.forEach((axis, i) => {
+    const e = economicsOf(i);
+    const q = axis.quantity;
+    energyOpen += q * e.energyOpenLoopKWh;
+    energyClosed += q * e.energyClosedLoopKWh;
+    coolingOpen += q * e.coolingOpenLoopKWh;
+    coolingClosed += q * e.coolingClosedLoopKWh;
+    if (!e.undersized) served.push(money[i].reliabilityIfServed);
+
+    const m = perMachine[machineIndex.get(axis.machineId) as number];
+    m.axes++;
+    if (e.undersized || e.speedHeadroomPct === null) m.blocked = true;
+    else m.leastHeadroom = Math.min(m.leastHeadroom, e.speedHeadroomPct);
+    m.mostHours = Math.max(m.mostHours, axis.duty.hoursPerYear);
+  });
+
+  let throughput = ZERO;
+  const machines: MachineResult[] = input.machines.map((machine, i) => {
+    const m = perMachine[i];
+    // A machine without axes has nothing to speed up: it adds 0 and is not reported as capped.
+    if (m.axes === 0)
+      return { id: machine.id, throughputGainPct: 0, throughputPerYear: "0", warnings: [] };
+    const cap = m.blocked ? 0 : Math.max(0, m.leastHeadroom);
+    const gain = Math.min(machine.throughputGainPct, cap);
+    const value =
+      gain === 0
+        ? ZERO
+        : new Money(gain)
+            .div(HUNDRED)
+            .times(parseMoney(machine.marginPerOutputHour))
+            .times(m.mostHours);
+    throughput = throughput.plus(value);
+    return {
+      id: machine.id,
+      throughputGainPct: gain,
+      throughputPerYear: moneyString(value),
+      warnings: gain < machine.throughputGainPct ? ["THROUGHPUT_CAPPED"] : [],
+    };
+  });
+
+  return {
+    energyOpenLoopKWh: energyOpen,
+    energyClosedLoopKWh: energyClosed,
+    energySavedKWh: energyOpen - energyClosed,
+    coolingOpenLoopKWh: coolingOpen,
+    coolingSavedKWh: coolingOpen - coolingClosed,
+    reliabilityPerYear: sumShared(served),
+    throughputPerYear: throughput,
+    machines,
+  };
+}

@@ -1,0 +1,39 @@
+export {
+  caseInputSchema,
+  axisInputSchema,
+  kitInputSchema,
+  motorInputSchema,
+  marginsSchema,
+} from "./schema";
+export type {
+  AxisInput,
+  CaseInput,
+  KitInput,
+  MarginsInput,
+  MotorInput,
+  ParsedAxis,
+  ParsedCase,
+  ParsedKit,
+  ParsedMargins,
+  ParsedMotor,
+} from "./schema";
+export { formatIssues, formatPath } from "./issues";
+export { evaluateCase, evaluateParsedCase } from "./evaluate";
+export { torqueSpeedCurve } from "./torque-speed-curve";
+export { suggestKit, type KitSuggestion } from "./kits";
+export { ENGINE_VERSION } from "./version";
+export { TORQUE_FACTORS_TO_NM, TORQUE_UNIT_NAMES, type TorqueUnit } from "./units";
+export { roundMoney, currencyMinorUnits } from "./money";
+export { AXIS_WARNINGS, MACHINE_WARNINGS, type AxisWarning, type MachineWarning } from "./warnings";
+export type {
+  AxisResult,
+  Band,
+  CaseResult,
+  ClosedLoopResult,
+  LoopResult,
+  MachineResult,
+  OpenLoopResult,
+  Scenario,
+  SensitivityDriver,
+  SensitivityRow,
+} from "./types";

@@ -1,0 +1,73 @@
+import type { ParsedMotor } from "./schema";
+
+/** Temperature coefficient of annealed copper at 20 °C (IACS, IEC 60028). */
+export const COPPER_ALPHA_PER_K = 0.00393;
+
+/** Insulation class limits, °C (IEC 60085, Table 1). */
+export const INSULATION_CLASS_LIMIT_C = { B: 130, F: 155, H: 180 } as const;
+
+export type StepMode = "full" | "half" | "half-compensated" | "micro";
+
+/** ENGINE.md §3 table: current-vector magnitude per unit of per-phase setting. */
+export function vectorFactor(mode: StepMode): number {
+  return mode === "full" ? Math.SQRT2 : 1;
+}
+
+/** ENGINE.md §3 table: copper loss per I²·R of the per-phase setting. */
+export function copperFactor(mode: StepMode): number {
+  switch (mode) {
+    case "full":
+      return 2;
+    case "half":
+      return 1.5;
+    case "half-compensated":
+    case "micro":
+      return 1;
+  }
+}
+
+/** Full step θ_s = 90°/Nr and the angles that follow from it (ENGINE.md §3). */
+export function stepGeometry(rotorTeeth: number, mode: StepMode, microsteps: number) {
+  const stepAngleDeg = 90 / rotorTeeth;
+  const resolutionDeg =
+    mode === "full"
+      ? stepAngleDeg
+      : mode === "micro"
+        ? stepAngleDeg / microsteps
+        : stepAngleDeg / 2;
+  return {
+    stepAngleDeg,
+    stepsPerRev: 4 * rotorTeeth,
+    resolutionDeg,
+    electricalCycleDeg: 360 / rotorTeeth,
+  };
+}
+
+/** Microstep currents of phase A and B at microstep index i of k per full step (sin/cos). */
+export function microstepCurrents(index: number, microsteps: number): { a: number; b: number } {
+  const angle = (index * Math.PI) / (2 * microsteps);
+  return { a: Math.sin(angle), b: Math.cos(angle) };
+}
+
+/** k1 = T_H / (√2·I_R): the datasheet holding torque has two phases on at rated current. */
+export function torqueConstant(motor: ParsedMotor): number {
+  return motor.holdingTorqueNm / (Math.SQRT2 * motor.ratedCurrentA);
+}
+
+export function resistanceAt(r20: number, tempC: number): number {
+  return r20 * (1 + COPPER_ALPHA_PER_K * (tempC - 20));
+}
+
+export const electricalHz = (rotorTeeth: number, rpm: number): number => (rotorTeeth * rpm) / 60;
+
+/** P_fe = kh·f_e + ke·f_e². */
+export function ironLossW(motor: ParsedMotor, rpm: number): number {
+  const fe = electricalHz(motor.rotorTeeth, rpm);
+  return motor.hysteresisWPerHz * fe + motor.eddyWPerHz2 * fe * fe;
+}
+
+/** T_drag = P_fe/ω_m for n > 0, 0 at standstill. */
+export function dragTorqueNm(motor: ParsedMotor, rpm: number): number {
+  if (rpm <= 0) return 0;
+  return ironLossW(motor, rpm) / ((2 * Math.PI * rpm) / 60);
+}

@@ -1,0 +1,251 @@
+import { z } from "zod";
+import {
+  atLeast,
+  choice,
+  id,
+  int,
+  list,
+  money,
+  num,
+  obj,
+  pct,
+  positive,
+  text,
+  torque,
+} from "./schema-fields";
+
+/**
+ * The input of ENGINE.md §2 with its defaults. Objects whose every field has a default use
+ * `prefault({})` so that a missing object is parsed — and filled — like an empty one.
+ */
+
+const curvePoint = obj({ rpm: atLeast(0), torqueNm: torque() });
+
+export const motorInputSchema = obj({
+  rotorTeeth: int(1).default(50),
+  holdingTorqueNm: torque({ positive: true }),
+  ratedCurrentA: positive(),
+  phaseResistanceOhm: positive(),
+  phaseInductanceMh: atLeast(0),
+  thermalResistanceKPerW: positive().optional(),
+  ratedTempRiseK: positive().default(80), // common practice: R_th = rise / (2·I_R²·R20)
+  insulationClass: choice(["B", "F", "H"]).default("B"),
+  hysteresisWPerHz: atLeast(0).default(0),
+  eddyWPerHz2: atLeast(0).default(0),
+  pullOutCurve: list(curvePoint)
+    .min(1, "must hold at least one point")
+    .superRefine((points, ctx) => {
+      for (let i = 1; i < points.length; i++) {
+        if (!(points[i].rpm > points[i - 1].rpm)) {
+          ctx.addIssue({
+            code: "custom",
+            path: [i, "rpm"],
+            message: `must be greater than the previous point's rpm (${points[i - 1].rpm})`,
+          });
+        }
+      }
+    })
+    .optional(),
+});
+
+export const kitInputSchema = obj({
+  id: id(),
+  name: text(),
+  price: money(),
+  sensing: choice(["encoder", "sensorless"]).default("encoder"),
+  motor: motorInputSchema.optional(),
+  maxCurrentPeakA: positive().optional(),
+  busVoltageV: positive().optional(),
+  efficiencyPct: positive().max(100, "must be at most 100").default(92),
+  standbyW: atLeast(0).default(3),
+  // ENGINE.md §2: 0.5 W, 0 when sensorless; resolved by kitEncoderW() since the default depends on sensing.
+  encoderW: atLeast(0).optional(),
+  minCurrentPct: pct().default(10),
+  sensorlessMinRpm: atLeast(0).default(60),
+});
+
+const driveSchema = obj({
+  busVoltageV: positive(),
+  currentSettingA: atLeast(0),
+  currentConvention: choice(["peak", "rms"]).default("peak"),
+  stepMode: choice(["full", "half", "half-compensated", "micro"]).default("micro"),
+  microsteps: int(1).default(16),
+  idleCurrentPct: pct().default(50),
+  efficiencyPct: positive().max(100, "must be at most 100").default(90),
+  standbyW: atLeast(0).default(2),
+});
+
+const dutySchema = obj({
+  hoursPerYear: atLeast(0).max(8784, "must be at most 8784 (the hours of a leap year)"),
+  movePct: pct(),
+  holdPct: pct(),
+  speedRpm: atLeast(0),
+  loadTorqueNm: torque(),
+  peakTorqueNm: torque(),
+  holdTorqueNm: torque().default(0),
+  ambientC: num().min(-273.15, "must be at least -273.15").default(40),
+});
+
+const reliabilitySchema = obj({
+  stepLossEventsPerYear: atLeast(0).default(0),
+  costPerEvent: money().default("0"),
+  avoidedPct: pct().default(90),
+});
+
+const retrofitSchema = obj({
+  kit: kitInputSchema,
+  discountPct: pct().default(0),
+  installHours: atLeast(0).default(0),
+  commissioningCost: money().default("0"),
+  maintenanceSavingPerYear: money().default("0"),
+});
+
+export const axisInputSchema = obj({
+  id: id(),
+  label: text(),
+  machineId: id(),
+  quantity: int(1).default(1),
+  motor: motorInputSchema,
+  drive: driveSchema,
+  duty: dutySchema,
+  reliability: reliabilitySchema.prefault({}),
+  retrofit: retrofitSchema,
+}).superRefine(
+  (axis, ctx) => {
+    // Runs even when other fields failed (see `when`), so it checks the types it relies on.
+    const duty = (axis as { duty?: Record<string, unknown> }).duty;
+    if (typeof duty !== "object" || duty === null) return;
+    const { movePct, holdPct, loadTorqueNm, peakTorqueNm } = duty;
+    if (typeof movePct === "number" && typeof holdPct === "number" && movePct + holdPct > 100) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["duty", "holdPct"],
+        message: `movePct + holdPct must be at most 100 (here ${movePct} + ${holdPct})`,
+      });
+    }
+    if (
+      typeof loadTorqueNm === "number" &&
+      typeof peakTorqueNm === "number" &&
+      peakTorqueNm < loadTorqueNm
+    ) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["duty", "peakTorqueNm"],
+        message: `must be at least loadTorqueNm (${loadTorqueNm})`,
+      });
+    }
+  },
+  { when: () => true },
+);
+
+const financeSchema = obj({
+  tariffPerKWh: money(),
+  tariffEscalationPct: num().gt(-100, "must be greater than -100").default(0),
+  discountRatePct: num().gt(-100, "must be greater than -100").default(8),
+  horizonYears: int(1, 30).default(5),
+  laborRatePerHour: money().default("0"),
+  downtimeCostPerHour: money().default("0"),
+  projectOneTimeCost: money().default("0"),
+  annualServiceCost: money().default("0"),
+  coolingCop: positive().nullable().default(null),
+  gridKgCo2PerKWh: atLeast(0).default(0),
+});
+
+const requiredMargin = () => atLeast(0).lt(100, "must be less than 100");
+
+const machineSchema = obj({
+  id: id(),
+  name: text(),
+  downtimeHours: atLeast(0).default(0),
+  throughputGainPct: atLeast(0).default(0),
+  marginPerOutputHour: money().default("0"),
+});
+
+export const marginsSchema = obj({
+  openLoopRequiredPct: requiredMargin().default(40), // common practice: 30–50 % of pull-out
+  closedLoopRequiredPct: requiredMargin().default(15), // common practice: 10–20 %
+});
+
+const bandSchema = obj({
+  lowPct: num().default(25), // trade claim for closed-loop energy gains: 25–50 %
+  highPct: num().default(50),
+}).superRefine((band, ctx) => {
+  if (band.highPct < band.lowPct) {
+    ctx.addIssue({
+      code: "custom",
+      path: ["highPct"],
+      message: `must be at least lowPct (${band.lowPct})`,
+    });
+  }
+});
+
+/** Reports a repeated id once per repeat, at the later occurrence. */
+function checkUniqueIds(
+  items: unknown,
+  field: string,
+  ctx: z.RefinementCtx,
+  what: string,
+): Set<string> {
+  const seen = new Map<string, number>();
+  if (!Array.isArray(items)) return new Set();
+  items.forEach((item: unknown, index) => {
+    const value = (item as Record<string, unknown> | null)?.id;
+    if (typeof value !== "string") return;
+    const first = seen.get(value);
+    if (first === undefined) seen.set(value, index);
+    else
+      ctx.addIssue({
+        code: "custom",
+        path: [field, index, "id"],
+        message: `duplicate ${what} id "${value}" (first at ${field}[${first}])`,
+      });
+  });
+  return new Set(seen.keys());
+}
+
+export const caseInputSchema = obj({
+  currency: text().regex(
+    /^[A-Z]{3}$/,
+    'must be an ISO 4217 code of three capital letters, e.g. "EUR"',
+  ),
+  finance: financeSchema,
+  margins: marginsSchema.prefault({}),
+  band: bandSchema.prefault({}),
+  sensitivity: obj({ swingPct: atLeast(0).max(100, "must be at most 100").default(20) }).prefault(
+    {},
+  ),
+  thermal: obj({ lifeHalvingK: positive().default(10) }).prefault({}), // rule of thumb; IEC 60216
+  machines: list(machineSchema),
+  axes: list(axisInputSchema)
+    .min(1, "must hold at least 1 axis")
+    .max(100000, "must hold at most 100000 axes"),
+}).superRefine(
+  (input, ctx) => {
+    // Runs even when other fields failed, so that one pass reports every problem it can see.
+    const machineIds = checkUniqueIds(input.machines, "machines", ctx, "machine");
+    checkUniqueIds(input.axes, "axes", ctx, "axis");
+    if (!Array.isArray(input.axes) || !Array.isArray(input.machines)) return;
+    input.axes.forEach((axis: unknown, index) => {
+      const machineId = (axis as Record<string, unknown> | null)?.machineId;
+      if (typeof machineId === "string" && !machineIds.has(machineId)) {
+        ctx.addIssue({
+          code: "custom",
+          path: ["axes", index, "machineId"],
+          message: `must name a machine in machines (no machine "${machineId}")`,
+        });
+      }
+    });
+  },
+  { when: () => true },
+);
+
+export type CaseInput = z.input<typeof caseInputSchema>;
+export type ParsedCase = z.output<typeof caseInputSchema>;
+export type AxisInput = z.input<typeof axisInputSchema>;
+export type ParsedAxis = z.output<typeof axisInputSchema>;
+export type MotorInput = z.input<typeof motorInputSchema>;
+export type ParsedMotor = z.output<typeof motorInputSchema>;
+export type KitInput = z.input<typeof kitInputSchema>;
+export type ParsedKit = z.output<typeof kitInputSchema>;
+export type MarginsInput = z.input<typeof marginsSchema>;
+export type ParsedMargins = z.output<typeof marginsSchema>;

@@ -1,0 +1,69 @@
+import { COPPER_ALPHA_PER_K, INSULATION_CLASS_LIMIT_C, resistanceAt } from "./motor";
+import type { ParsedMotor } from "./schema";
+
+/** R_th from the datasheet's rated rise at two phases on, rated current, cold resistance (common practice). */
+export function thermalResistanceKPerW(motor: ParsedMotor): number {
+  return (
+    motor.thermalResistanceKPerW ??
+    motor.ratedTempRiseK /
+      (2 * motor.ratedCurrentA * motor.ratedCurrentA * motor.phaseResistanceOhm)
+  );
+}
+
+export interface ThermalLoad {
+  /** A: copper loss at 20 °C averaged over running hours, W (R20 · Σ duty·cf·I²). */
+  copperAt20W: number;
+  /** B: iron loss averaged over running hours, W. */
+  ironW: number;
+}
+
+export interface ThermalState {
+  /** null under thermal runaway. */
+  windingTempC: number | null;
+  /** R(T_w), or R at the insulation class limit under runaway (ENGINE.md §9). */
+  resistanceHotOhm: number;
+  runaway: boolean;
+  overClass: boolean;
+}
+
+/**
+ * Steady winding temperature over the duty mix (ENGINE.md §5): T = T_amb + R_th·(A·(1 + α(T − 20)) + B)
+ * solved for T; a denominator ≤ 0 means the copper loss grows faster with temperature than the
+ * motor can shed it.
+ */
+export function windingTemperature(
+  motor: ParsedMotor,
+  ambientC: number,
+  load: ThermalLoad,
+): ThermalState {
+  const rth = thermalResistanceKPerW(motor);
+  const a = load.copperAt20W;
+  const alpha = COPPER_ALPHA_PER_K;
+  const denominator = 1 - rth * a * alpha;
+  const limitC = INSULATION_CLASS_LIMIT_C[motor.insulationClass];
+  if (denominator <= 0) {
+    return {
+      windingTempC: null,
+      resistanceHotOhm: resistanceAt(motor.phaseResistanceOhm, limitC),
+      runaway: true,
+      overClass: false,
+    };
+  }
+  const tempC = (ambientC + rth * (a * (1 - 20 * alpha) + load.ironW)) / denominator;
+  return {
+    windingTempC: tempC,
+    resistanceHotOhm: resistanceAt(motor.phaseResistanceOhm, tempC),
+    runaway: false,
+    overClass: tempC > limitC,
+  };
+}
+
+/** Insulation life factor 2^(ΔT/halving), null when either temperature is unknown. */
+export function insulationLifeFactor(
+  openC: number | null,
+  closedC: number | null,
+  lifeHalvingK: number,
+): number | null {
+  if (openC === null || closedC === null) return null;
+  return Math.pow(2, (openC - closedC) / lifeHalvingK);
+}

@@ -1,0 +1,26 @@
+/** Axis warning codes of ENGINE.md §9, in the order they are reported. */
+export const AXIS_WARNINGS = [
+  "OL_THERMAL_RUNAWAY",
+  "CL_THERMAL_RUNAWAY",
+  "OL_WINDING_OVER_CLASS",
+  "CL_WINDING_OVER_CLASS",
+  "SPEED_BEYOND_CURVE",
+  "CL_KIT_UNDERSIZED",
+  "SAVING_OUTSIDE_BAND",
+  "CURRENT_ABOVE_RATING",
+  "HOLDING_LOAD",
+] as const;
+
+export type AxisWarning = (typeof AXIS_WARNINGS)[number];
+
+export const MACHINE_WARNINGS = ["THROUGHPUT_CAPPED"] as const;
+export type MachineWarning = (typeof MACHINE_WARNINGS)[number];
+
+/** A warning set from one flag per code, in the order of AXIS_WARNINGS: each code at most once. */
+type FlagPerCode<T extends readonly unknown[]> = { readonly [K in keyof T]: boolean };
+
+export function warningSet(flags: FlagPerCode<typeof AXIS_WARNINGS>): AxisWarning[] {
+  const set: AxisWarning[] = [];
+  for (let i = 0; i < AXIS_WARNINGS.length; i++) if (flags[i]) set.push(AXIS_WARNINGS[i]);
+  return set;
+}
