@@ -28,7 +28,9 @@ export type ScenarioAtDriver = (
 
 /**
  * NPV and simple payback with each driver at (1 ∓ swing), sorted by |NPV_high − NPV_low|,
- * largest first; Array.prototype.sort is stable, so ties keep the listed order.
+ * largest first; Array.prototype.sort is stable, so ties keep the listed order. Swings within a
+ * relative 1e-9 count as ties: tariff and hours, for one, move NPV by the same amount in exact
+ * arithmetic, and float noise in the physics must not decide their order.
  */
 export function sensitivity(swingPct: number, at: ScenarioAtDriver): SensitivityRow[] {
   const rows = SENSITIVITY_DRIVERS.map((driver) => {
@@ -47,5 +49,12 @@ export function sensitivity(swingPct: number, at: ScenarioAtDriver): Sensitivity
       },
     };
   });
-  return rows.sort((a, b) => b.swing.comparedTo(a.swing)).map((r) => r.row);
+  return rows.sort((a, b) => compareSwings(b.swing, a.swing)).map((r) => r.row);
+}
+
+const TIE_TOLERANCE = new Money("1e-9");
+
+function compareSwings(a: Decimal, b: Decimal): number {
+  const scale = Money.max(a.abs(), b.abs(), 1);
+  return a.minus(b).abs().lte(scale.times(TIE_TOLERANCE)) ? 0 : a.comparedTo(b);
 }

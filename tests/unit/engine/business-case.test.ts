@@ -184,3 +184,16 @@ describe("rounding for display and export (ENGINE.md §1)", () => {
     expect(roundMoney("-0.001", "EUR")).toBe("0.00");
   });
 });
+
+describe("sensitivity order when two drivers swing NPV equally", () => {
+  it("keeps ENGINE.md §8's listed order (tariff before hours) whatever the float noise", () => {
+    const input = structuredClone(fixtureCase);
+    // Without throughput value, tariff and hours per year scale the same cash flows exactly.
+    for (const m of input.machines) m.throughputGainPct = 0;
+    for (const hours of [1234.5, 3333.3, 4000, 5678.9, 7777.7]) {
+      for (const a of input.axes) a.duty.hoursPerYear = hours;
+      const drivers = evaluateCase(input).sensitivity.map((r) => r.driver);
+      expect(drivers.indexOf("tariff")).toBeLessThan(drivers.indexOf("hoursPerYear"));
+    }
+  });
+});
