@@ -20,6 +20,9 @@ const contentSecurityPolicy = [
 const nextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
+  // The proxy buffers request bodies up to this size; the evaluate API accepts cases up to 20 MB
+  // (imports stop at 10 MB), so the buffer must hold a little more than that.
+  experimental: { proxyClientMaxBodySize: "21mb" },
   // Native and server-only packages stay out of the bundle and load from node_modules.
   serverExternalPackages: ["better-sqlite3", "exceljs", "nodemailer", "smtp-server", "stripe"],
   async headers() {

@@ -4,7 +4,7 @@ import { defineConfig } from "vitest/config";
 const alias = {
   "@": fileURLToPath(new URL(".", import.meta.url)),
   // "server-only" throws outside a React Server Component bundle; tests import server modules directly.
-  "server-only": fileURLToPath(new URL("./tests/support/server-only.ts", import.meta.url)),
+  "server-only": fileURLToPath(new URL("./lib/cli/server-only-stub.ts", import.meta.url)),
 };
 
 // Unit tests (pure modules) and integration tests (queries on a fresh migrated SQLite file).

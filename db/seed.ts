@@ -2,8 +2,10 @@ import { count, eq } from "drizzle-orm";
 import { openDatabase, type Db } from "./client";
 import { migrateDatabase } from "./migrate";
 import { hashPassword } from "../lib/auth/password";
-import { DEMO_PASSWORD, DEMO_USERS } from "./demo-users";
-import { accounts, accountShares, users } from "./schema";
+import { DEMO_PASSWORD, DEMO_USERS } from "./demo/users";
+import { DEMO_KITS, DEMO_MOTORS } from "./demo/catalogue";
+import { DEMO_SITES, demoAxesFor, seededRandom } from "./demo/installed-base";
+import { accounts, accountShares, axes, kits, machines, motors, sites, users } from "./schema";
 
 export const DEMO_ACCOUNTS = [
   { name: "Cartonia Packaging Plant", owner: "engineer@example.com" },
@@ -47,8 +49,56 @@ export function seedDatabase(db: Db): boolean {
     tx.insert(accountShares)
       .values({ accountId: accountIds[2], userId: ids.get("engineer2@example.com")! })
       .run();
+    seedCatalogueAndInstalledBase(tx, new Map(DEMO_ACCOUNTS.map((a, i) => [a.name, accountIds[i]])));
   });
   return true;
+}
+
+type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+
+function seedCatalogueAndInstalledBase(tx: Tx, accountIds: Map<string, number>) {
+  const motorIds = new Map<string, number>();
+  for (const m of DEMO_MOTORS) {
+    const [row] = tx.insert(motors).values(m).returning({ id: motors.id }).all();
+    motorIds.set(m.code, row.id);
+  }
+  for (const { motorCode, ...k } of DEMO_KITS) {
+    tx.insert(kits)
+      .values({ ...k, motorId: motorCode ? motorIds.get(motorCode)! : null })
+      .run();
+  }
+  const random = seededRandom(20261201);
+  for (const s of DEMO_SITES) {
+    const { machines: groups, account, ...site } = s;
+    const [siteRow] = tx
+      .insert(sites)
+      .values({ ...site, accountId: accountIds.get(account)! })
+      .returning({ id: sites.id })
+      .all();
+    for (const group of groups) {
+      for (let n = 1; n <= group.count; n++) {
+        const [machineRow] = tx
+          .insert(machines)
+          .values({
+            siteId: siteRow.id,
+            name: `${group.kind.kind} ${String(n).padStart(2, "0")}`,
+            line: `${group.kind.line} ${1 + ((n - 1) % 3)}`,
+            downtimeHours: group.kind.downtimeHours,
+            throughputGainPct: group.throughputGainPct ?? 0,
+            marginPerOutputHour: group.marginPerOutputHour ?? "0",
+          })
+          .returning({ id: machines.id })
+          .all();
+        const rows = demoAxesFor(group.kind, site.hoursPerYear, site.ambientC, random).map(({ motorCode, ...a }) => ({
+          ...a,
+          siteId: siteRow.id,
+          machineId: machineRow.id,
+          referenceMotorId: motorIds.get(motorCode) ?? null,
+        }));
+        tx.insert(axes).values(rows).run();
+      }
+    }
+  }
 }
 
 if (require.main === module) {

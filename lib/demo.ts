@@ -1,4 +1,4 @@
-import { DEMO_PASSWORD, DEMO_USERS } from "@/db/demo-users";
+import { DEMO_PASSWORD, DEMO_USERS } from "@/db/demo/users";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 
 // Demo mode shows the seeded users on the sign-in page. It is on unless LOOPSHIFT_DEMO=off, so

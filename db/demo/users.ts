@@ -1,4 +1,4 @@
-import type { Role } from "./schema/users";
+import type { Role } from "../schema/users";
 
 export const DEMO_PASSWORD = "loopshift-demo";
 

@@ -4,12 +4,12 @@ import { accounts, accountShares, users } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { NotFoundError } from "@/lib/errors";
 
-// The WHERE clause that limits accounts to what the caller may see: managers see all, engineers
-// the accounts they own or are shared on, reviewers their own account, admins none (they manage
-// users and the catalogue, not customers' data).
+// The WHERE clause that limits accounts to what the caller may see: managers and admins see all,
+// engineers the accounts they own or are shared on, reviewers their own account.
 export function accountScope(caller: SessionUser): SQL | undefined {
   switch (caller.role) {
     case "manager":
+    case "admin":
       return undefined;
     case "engineer":
       return or(
@@ -25,8 +25,6 @@ export function accountScope(caller: SessionUser): SQL | undefined {
       );
     case "reviewer":
       return eq(accounts.id, caller.accountId ?? -1);
-    default:
-      return sql`0`;
   }
 }
 
@@ -39,8 +37,11 @@ export type AccountRow = {
   createdAt: string;
 };
 
+// The vendor's roles may browse the installed base; a reviewer sees proposals only.
+export const INSTALLED_BASE_ROLES = ["engineer", "manager", "admin"] as const;
+
 export function listAccounts(caller: SessionUser): AccountRow[] {
-  assertRole(caller, "engineer", "manager");
+  assertRole(caller, ...INSTALLED_BASE_ROLES);
   return db
     .select({
       id: accounts.id,

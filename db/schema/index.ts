@@ -1,3 +1,6 @@
 export * from "./users";
 export * from "./accounts";
 export * from "./audit";
+export * from "./catalogue";
+export * from "./installed-base";
+export * from "./imports";

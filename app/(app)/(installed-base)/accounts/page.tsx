@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { EmptyState, PageHeader } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listAccounts } from "@/db/queries/accounts";
@@ -7,14 +8,14 @@ import { requirePageUser } from "@/lib/auth";
 export const metadata: Metadata = { title: "Accounts" };
 
 export default async function AccountsPage() {
-  const user = await requirePageUser("engineer", "manager");
+  const user = await requirePageUser("engineer", "manager", "admin");
   const accounts = listAccounts(user);
   return (
     <>
       <PageHeader
         title="Accounts"
         lead={
-          user.role === "manager"
+          user.role !== "engineer"
             ? "Every customer account, with its owning engineer."
             : "The customer accounts you own or that are shared with you."
         }
@@ -36,7 +37,14 @@ export default async function AccountsPage() {
           <tbody className="divide-y divide-steel-100">
             {accounts.map((a) => (
               <tr key={a.id}>
-                <Td className="font-bold">{a.name}</Td>
+                <Td className="font-bold">
+                  <Link
+                    href={`/accounts/${a.id}`}
+                    className="text-flux-700 underline-offset-2 hover:underline"
+                  >
+                    {a.name}
+                  </Link>
+                </Td>
                 <Td>{a.ownerId === user.id ? "You" : a.ownerName}</Td>
                 <Td className="text-right tabular-nums">
                   {a.shareCount === 0

@@ -1,0 +1,63 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { createAxis, updateAxis } from "@/db/queries/axes";
+import { createMachine, updateMachine } from "@/db/queries/machines";
+import { createSite, updateSite } from "@/db/queries/sites";
+import { runAction } from "@/lib/actions/run";
+import type { Role } from "@/lib/auth/roles";
+import {
+  axisInputSchema,
+  machineInputSchema,
+  siteInputSchema,
+} from "@/lib/validations/installed-base";
+
+const EDITORS: Role[] = ["engineer", "manager", "admin"];
+
+export async function createSiteAction(accountId: number, values: unknown) {
+  const result = await runAction(
+    EDITORS,
+    siteInputSchema,
+    values,
+    (caller, data) => createSite(caller, accountId, data).id,
+  );
+  if (result.ok) revalidatePath(`/accounts/${accountId}`);
+  return result;
+}
+
+export async function updateSiteAction(siteId: number, values: unknown) {
+  const result = await runAction(EDITORS, siteInputSchema, values, (caller, data) =>
+    updateSite(caller, siteId, data),
+  );
+  if (result.ok) revalidatePath(`/sites/${siteId}`);
+  return result;
+}
+
+export async function createMachineAction(siteId: number, values: unknown) {
+  const result = await runAction(
+    EDITORS,
+    machineInputSchema,
+    values,
+    (caller, data) => createMachine(caller, siteId, data).id,
+  );
+  if (result.ok) revalidatePath(`/sites/${siteId}`);
+  return result;
+}
+
+export async function updateMachineAction(machineId: number, values: unknown) {
+  const result = await runAction(EDITORS, machineInputSchema, values, (caller, data) =>
+    updateMachine(caller, machineId, data),
+  );
+  if (result.ok) revalidatePath("/sites", "layout");
+  return result;
+}
+
+export async function saveAxisAction(axisId: number | null, values: unknown) {
+  const result = await runAction(EDITORS, axisInputSchema, values, (caller, data) => {
+    if (axisId === null) return createAxis(caller, data).id;
+    updateAxis(caller, axisId, data);
+    return axisId;
+  });
+  if (result.ok) revalidatePath("/sites", "layout");
+  return result;
+}

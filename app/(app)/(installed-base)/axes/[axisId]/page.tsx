@@ -1,0 +1,44 @@
+import type { Metadata } from "next";
+import { AxisForm } from "@/components/installed-base/axis-form";
+import { axisToFormValues } from "@/components/installed-base/axis-form-values";
+import { Breadcrumbs } from "@/components/ui/breadcrumbs";
+import { PageHeader, Panel } from "@/components/ui/panel";
+import { getAxisOrThrow } from "@/db/queries/axes";
+import { listMachines } from "@/db/queries/machines";
+import { getSiteOrThrow } from "@/db/queries/sites";
+import { requirePageUser } from "@/lib/auth";
+import { idParam, orNotFound } from "@/lib/pages";
+
+export const metadata: Metadata = { title: "Edit axis" };
+
+export default async function EditAxisPage({ params }: { params: Promise<{ axisId: string }> }) {
+  const user = await requirePageUser("engineer", "manager", "admin");
+  const id = idParam((await params).axisId);
+  const axis = orNotFound(() => getAxisOrThrow(user, id));
+  const site = getSiteOrThrow(user, axis.siteId);
+  const machines = listMachines(user, site.id);
+  return (
+    <div className="space-y-6">
+      <Breadcrumbs
+        items={[
+          { href: "/accounts", label: "Accounts" },
+          { href: `/accounts/${site.accountId}`, label: site.accountName },
+          { href: `/sites/${site.id}`, label: site.name },
+          { label: axis.label },
+        ]}
+      />
+      <PageHeader
+        title={`Edit ${axis.label}`}
+        lead="Values in SI units as stored; pick another unit beside a torque to enter it in that unit."
+      />
+      <Panel>
+        <AxisForm
+          siteId={site.id}
+          machines={machines}
+          axis={{ id: axis.id, values: axisToFormValues(axis) }}
+          defaults={site}
+        />
+      </Panel>
+    </div>
+  );
+}

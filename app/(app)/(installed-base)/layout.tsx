@@ -1,0 +1,9 @@
+import type { ReactNode } from "react";
+import { requirePageUser } from "@/lib/auth";
+
+// The installed base is the vendor's: reviewers get a real 404 here (checked in the layout,
+// outside the pages' loading boundaries). Each query checks the account scope again.
+export default async function InstalledBaseLayout({ children }: { children: ReactNode }) {
+  await requirePageUser("engineer", "manager", "admin");
+  return children;
+}

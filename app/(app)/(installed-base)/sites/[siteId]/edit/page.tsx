@@ -1,0 +1,31 @@
+import type { Metadata } from "next";
+import { SiteForm } from "@/components/installed-base/site-form";
+import { Breadcrumbs } from "@/components/ui/breadcrumbs";
+import { PageHeader, Panel } from "@/components/ui/panel";
+import { getSiteOrThrow } from "@/db/queries/sites";
+import { requirePageUser } from "@/lib/auth";
+import { idParam, orNotFound } from "@/lib/pages";
+
+export const metadata: Metadata = { title: "Edit site" };
+
+export default async function EditSitePage({ params }: { params: Promise<{ siteId: string }> }) {
+  const user = await requirePageUser("engineer", "manager", "admin");
+  const id = idParam((await params).siteId);
+  const site = orNotFound(() => getSiteOrThrow(user, id));
+  return (
+    <div className="space-y-6">
+      <Breadcrumbs
+        items={[
+          { href: "/accounts", label: "Accounts" },
+          { href: `/accounts/${site.accountId}`, label: site.accountName },
+          { href: `/sites/${site.id}`, label: site.name },
+          { label: "Edit" },
+        ]}
+      />
+      <PageHeader title={`Edit ${site.name}`} />
+      <Panel>
+        <SiteForm accountId={site.accountId} site={site} />
+      </Panel>
+    </div>
+  );
+}

@@ -1,0 +1,63 @@
+import { and, asc, eq, getTableColumns, sql } from "drizzle-orm";
+import { db } from "@/db";
+import { accounts, axes, machines, sites } from "@/db/schema";
+import { assertRole, type SessionUser } from "@/lib/auth/session-user";
+import { ConflictError, NotFoundError } from "@/lib/errors";
+import type { SiteInput } from "@/lib/validations/installed-base";
+import { accountScope, getAccountOrThrow, INSTALLED_BASE_ROLES } from "./accounts";
+
+// Sites are reached through their account, so the caller's account scope is in every WHERE.
+function scoped(caller: SessionUser) {
+  assertRole(caller, ...INSTALLED_BASE_ROLES);
+  return accountScope(caller);
+}
+
+export function listSites(caller: SessionUser, accountId?: number) {
+  // An account outside the caller's reach is not found, exactly like a missing one.
+  if (accountId !== undefined) getAccountOrThrow(caller, accountId);
+  return db
+    .select({
+      ...getTableColumns(sites),
+      accountName: accounts.name,
+      machineCount: sql<number>`(select count(*) from ${machines} where ${machines.siteId} = ${sites.id})`,
+      axisCount: sql<number>`(select coalesce(sum(${axes.quantity}), 0) from ${axes} where ${axes.siteId} = ${sites.id})`,
+    })
+    .from(sites)
+    .innerJoin(accounts, eq(sites.accountId, accounts.id))
+    .where(and(scoped(caller), accountId === undefined ? undefined : eq(sites.accountId, accountId)))
+    .orderBy(asc(accounts.name), asc(sites.name))
+    .all();
+}
+
+export function getSiteOrThrow(caller: SessionUser, id: number) {
+  const row = db
+    .select({ ...getTableColumns(sites), accountName: accounts.name })
+    .from(sites)
+    .innerJoin(accounts, eq(sites.accountId, accounts.id))
+    .where(and(eq(sites.id, id), scoped(caller)))
+    .get();
+  if (!row) throw new NotFoundError("No such site");
+  return row;
+}
+
+function assertNameFree(accountId: number, name: string, exceptId?: number) {
+  const clash = db
+    .select({ id: sites.id })
+    .from(sites)
+    .where(and(eq(sites.accountId, accountId), sql`lower(${sites.name}) = lower(${name})`))
+    .get();
+  if (clash && clash.id !== exceptId) throw new ConflictError(`This account already has a site named "${name}"`);
+}
+
+export function createSite(caller: SessionUser, accountId: number, input: SiteInput) {
+  getAccountOrThrow(caller, accountId);
+  assertNameFree(accountId, input.name);
+  const [row] = db.insert(sites).values({ ...input, accountId }).returning().all();
+  return row;
+}
+
+export function updateSite(caller: SessionUser, id: number, input: SiteInput) {
+  const site = getSiteOrThrow(caller, id);
+  assertNameFree(site.accountId, input.name, id);
+  db.update(sites).set(input).where(eq(sites.id, id)).run();
+}

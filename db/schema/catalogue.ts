@@ -1,0 +1,47 @@
+import { sql } from "drizzle-orm";
+import { integer, real, sqliteTable, text } from "drizzle-orm/sqlite-core";
+
+const createdAt = () => text("created_at").notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
+
+// Reference open-loop motors (and the new motors some kits bring): MotorInput of ENGINE.md, SI units.
+export const motors = sqliteTable("motors", {
+  id: integer("id").primaryKey({ autoIncrement: true }),
+  code: text("code").notNull().unique(),
+  name: text("name").notNull(),
+  frameSize: integer("frame_size").notNull(), // NEMA 17, 23, 34: flange ≈ size/10 in (NEMA ICS 16)
+  rotorTeeth: integer("rotor_teeth").notNull().default(50),
+  holdingTorqueNm: real("holding_torque_nm").notNull(),
+  ratedCurrentA: real("rated_current_a").notNull(),
+  phaseResistanceOhm: real("phase_resistance_ohm").notNull(),
+  phaseInductanceMh: real("phase_inductance_mh").notNull(),
+  thermalResistanceKPerW: real("thermal_resistance_k_per_w"),
+  ratedTempRiseK: real("rated_temp_rise_k").notNull().default(80),
+  insulationClass: text("insulation_class", { enum: ["B", "F", "H"] }).notNull().default("B"),
+  hysteresisWPerHz: real("hysteresis_w_per_hz").notNull().default(0),
+  eddyWPerHz2: real("eddy_w_per_hz2").notNull().default(0),
+  active: integer("active", { mode: "boolean" }).notNull().default(true),
+  createdAt: createdAt(),
+});
+
+// Closed-loop retrofit kits: KitInput of ENGINE.md, with the price in a currency.
+export const kits = sqliteTable("kits", {
+  id: integer("id").primaryKey({ autoIncrement: true }),
+  code: text("code").notNull().unique(),
+  name: text("name").notNull(),
+  price: text("price").notNull(),
+  currency: text("currency").notNull(),
+  sensing: text("sensing", { enum: ["encoder", "sensorless"] }).notNull().default("encoder"),
+  motorId: integer("motor_id").references(() => motors.id, { onDelete: "restrict" }),
+  maxCurrentPeakA: real("max_current_peak_a"),
+  busVoltageV: real("bus_voltage_v"),
+  efficiencyPct: real("efficiency_pct").notNull().default(92),
+  standbyW: real("standby_w").notNull().default(3),
+  encoderW: real("encoder_w"),
+  minCurrentPct: real("min_current_pct").notNull().default(10),
+  sensorlessMinRpm: real("sensorless_min_rpm").notNull().default(60),
+  active: integer("active", { mode: "boolean" }).notNull().default(true),
+  createdAt: createdAt(),
+});
+
+export type Motor = typeof motors.$inferSelect;
+export type Kit = typeof kits.$inferSelect;

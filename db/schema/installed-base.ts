@@ -1,0 +1,106 @@
+import { sql } from "drizzle-orm";
+import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import { accounts } from "./accounts";
+import { motors } from "./catalogue";
+
+const createdAt = () => text("created_at").notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
+
+// A plant of a customer account: its tariff, grid factor, climate and working hours are the
+// defaults of every case built on its machines. Money is kept as decimal text (ENGINE.md §1).
+export const sites = sqliteTable(
+  "sites",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    accountId: integer("account_id")
+      .notNull()
+      .references(() => accounts.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    currency: text("currency").notNull(),
+    tariffPerKWh: text("tariff_per_kwh").notNull(),
+    gridKgCo2PerKWh: real("grid_kg_co2_per_kwh").notNull().default(0),
+    ambientC: real("ambient_c").notNull().default(40),
+    hoursPerYear: real("hours_per_year").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("sites_account_name_idx").on(t.accountId, t.name)],
+);
+
+export const machines = sqliteTable(
+  "machines",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    siteId: integer("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    line: text("line"),
+    downtimeHours: real("downtime_hours").notNull().default(0),
+    throughputGainPct: real("throughput_gain_pct").notNull().default(0),
+    marginPerOutputHour: text("margin_per_output_hour").notNull().default("0"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("machines_site_name_idx").on(t.siteId, t.name)],
+);
+
+// One open-loop axis as installed: every AxisInput field of ENGINE.md but the retrofit, in SI
+// units (torque N·m, inductance mH, speed rpm). site_id is repeated from the machine so that a
+// site's axes page straight off one index.
+export const axes = sqliteTable(
+  "axes",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    siteId: integer("site_id")
+      .notNull()
+      .references(() => sites.id, { onDelete: "cascade" }),
+    machineId: integer("machine_id")
+      .notNull()
+      .references(() => machines.id, { onDelete: "cascade" }),
+    label: text("label").notNull(),
+    quantity: integer("quantity").notNull().default(1),
+    referenceMotorId: integer("reference_motor_id").references(() => motors.id, { onDelete: "set null" }),
+    // motor
+    rotorTeeth: integer("rotor_teeth").notNull().default(50),
+    holdingTorqueNm: real("holding_torque_nm").notNull(),
+    ratedCurrentA: real("rated_current_a").notNull(),
+    phaseResistanceOhm: real("phase_resistance_ohm").notNull(),
+    phaseInductanceMh: real("phase_inductance_mh").notNull(),
+    thermalResistanceKPerW: real("thermal_resistance_k_per_w"),
+    ratedTempRiseK: real("rated_temp_rise_k").notNull().default(80),
+    insulationClass: text("insulation_class", { enum: ["B", "F", "H"] }).notNull().default("B"),
+    hysteresisWPerHz: real("hysteresis_w_per_hz").notNull().default(0),
+    eddyWPerHz2: real("eddy_w_per_hz2").notNull().default(0),
+    pullOutCurve: text("pull_out_curve", { mode: "json" }).$type<{ rpm: number; torqueNm: number }[]>(),
+    // drive
+    busVoltageV: real("bus_voltage_v").notNull(),
+    currentSettingA: real("current_setting_a").notNull(),
+    currentConvention: text("current_convention", { enum: ["peak", "rms"] }).notNull().default("peak"),
+    stepMode: text("step_mode", { enum: ["full", "half", "half-compensated", "micro"] }).notNull().default("micro"),
+    microsteps: integer("microsteps").notNull().default(16),
+    idleCurrentPct: real("idle_current_pct").notNull().default(50),
+    driveEfficiencyPct: real("drive_efficiency_pct").notNull().default(90),
+    driveStandbyW: real("drive_standby_w").notNull().default(2),
+    // duty
+    hoursPerYear: real("hours_per_year").notNull(),
+    movePct: real("move_pct").notNull(),
+    holdPct: real("hold_pct").notNull(),
+    speedRpm: real("speed_rpm").notNull(),
+    loadTorqueNm: real("load_torque_nm").notNull(),
+    peakTorqueNm: real("peak_torque_nm").notNull(),
+    holdTorqueNm: real("hold_torque_nm").notNull().default(0),
+    ambientC: real("ambient_c").notNull().default(40),
+    // reliability
+    stepLossEventsPerYear: real("step_loss_events_per_year").notNull().default(0),
+    costPerEvent: text("cost_per_event").notNull().default("0"),
+    avoidedPct: real("avoided_pct").notNull().default(90),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index("axes_site_label_idx").on(t.siteId, t.label),
+    index("axes_machine_idx").on(t.machineId),
+  ],
+);
+
+export type Site = typeof sites.$inferSelect;
+export type Machine = typeof machines.$inferSelect;
+export type Axis = typeof axes.$inferSelect;
+export type NewAxis = typeof axes.$inferInsert;

@@ -1,0 +1,168 @@
+import type { ImportField } from "./fields";
+import { toSi } from "./units";
+
+/** A cell's value in the field's SI unit, or what is wrong with it and how to fix it. */
+export type CellResult = { ok: true; value: number | string } | { ok: false; message: string };
+
+const PLAIN_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+const DECIMAL_COMMA = /^([+-]?)(\d+),(\d+)$/;
+const GROUPED = /^[+-]?\d{1,3}(?:[,.'\u00a0\u202f ]\d{3})+(?:[.,]\d+)?$/;
+const NUMBER_THEN_TEXT = /^[+-]?(?:\d+[.,]?\d*|[.,]\d+)\s*[^\d\s.,]\S*$/;
+const FORMULA_START = /^[=+\-@]/;
+const MONEY = /^\+?(\d+)(?:[.,](\d*))?$|^\+?[.,](\d+)$/;
+const NEGATIVE_MONEY = /^-(?:\d+(?:[.,]\d*)?|[.,]\d+)$/;
+
+/** Longest name a machine or an axis label may have, as in the forms (lib/validations). */
+export const MAX_NAME_LENGTH = 120;
+
+/**
+ * "1,5" is read as 1.5 when the comma cannot be a thousands separator: one comma, digits on
+ * both sides, and not the shape 1–3 digits (no leading zero) + 3 digits — "1,500" could be either
+ * 1.5 or 1500 and is refused with a message, while "0,450", "1,5" and "12,75" are decimals.
+ */
+export function isAmbiguousDecimalComma(text: string): boolean {
+  const match = DECIMAL_COMMA.exec(text.trim());
+  return match !== null && match[3].length === 3 && /^[1-9]\d{0,2}$/.test(match[2]);
+}
+
+type NumberText =
+  { ok: true; value: number } | { ok: false; reason: "blank" | "not-a-number"; message?: string };
+
+/** A number as typed, before units and bounds; the reason says how to explain a refusal. */
+export function parseNumberText(raw: string): NumberText {
+  const text = raw.trim();
+  if (text === "") return { ok: false, reason: "blank" };
+  if (PLAIN_NUMBER.test(text)) {
+    const value = Number(text);
+    return Number.isFinite(value)
+      ? { ok: true, value }
+      : { ok: false, reason: "not-a-number", message: `"${text}" is too large` };
+  }
+  const comma = DECIMAL_COMMA.exec(text);
+  if (comma !== null) {
+    if (isAmbiguousDecimalComma(text)) {
+      return {
+        ok: false,
+        reason: "not-a-number",
+        message: `"${text}" could be ${Number(`${comma[1]}${comma[2]}.${comma[3]}`)} or ${comma[1]}${comma[2]}${comma[3]}; write it with a decimal point and no thousands separator`,
+      };
+    }
+    return { ok: true, value: Number(`${comma[1]}${comma[2]}.${comma[3]}`) };
+  }
+  return { ok: false, reason: "not-a-number" };
+}
+
+const lower = (field: ImportField) => field.label.charAt(0).toLowerCase() + field.label.slice(1);
+
+/** "the holding torque in oz·in", "the quantity": what to enter, in the column's unit. */
+function entering(field: ImportField, unit: string): string {
+  const what = field.key === "machine" ? "machine name" : lower(field);
+  return unit === "" ? `the ${what}` : `the ${what} in ${unit}`;
+}
+
+function notANumberMessage(field: ImportField, text: string, unit: string, header: string): string {
+  if (FORMULA_START.test(text)) {
+    return `"${text}" looks like a formula, and formulas are not evaluated; enter ${entering(field, unit)} as a plain number`;
+  }
+  if (GROUPED.test(text)) {
+    return `"${text}" has a thousands separator; enter ${entering(field, unit)} without one, with a decimal point`;
+  }
+  if (NUMBER_THEN_TEXT.test(text)) {
+    return `"${text}" has text after the number; enter the number only — the unit belongs in the column header ("${header}")`;
+  }
+  return `"${text}" is not a number; enter ${entering(field, unit)}`;
+}
+
+const show = (value: number) => String(Number(value.toPrecision(12)));
+
+function boundsMessage(field: ImportField, si: number, typed: number): string | undefined {
+  if (field.min !== undefined) {
+    if (field.minExclusive ? !(si > field.min) : si < field.min) {
+      return `must be ${field.minExclusive ? "greater than" : "at least"} ${field.min} (received ${show(typed)})`;
+    }
+  }
+  if (field.max !== undefined && si > field.max)
+    return `must be at most ${field.max} (received ${show(typed)})`;
+  return undefined;
+}
+
+/**
+ * One cell of `field`, read in the column's unit (`factor` to SI). Blank cells are the caller's
+ * to default; here they are "required" refusals.
+ */
+export function parseCell(
+  field: ImportField,
+  raw: string,
+  unit: string,
+  factor: number,
+  header: string,
+): CellResult {
+  const text = raw.trim();
+  if (text === "") return { ok: false, message: `required: enter ${entering(field, unit)}` };
+  switch (field.type) {
+    case "text": {
+      const value = text.replace(/\s+/g, " ");
+      if (value.length > MAX_NAME_LENGTH) {
+        return {
+          ok: false,
+          message: `is ${value.length} characters long; shorten ${entering(field, "")} to at most ${MAX_NAME_LENGTH} characters`,
+        };
+      }
+      return { ok: true, value };
+    }
+    case "enum": {
+      const choices = field.choices ?? [];
+      const wanted = text.toLowerCase().replace(/[\s_]+/g, "-");
+      const value = choices.find((c) => c.toLowerCase() === wanted);
+      if (value === undefined) {
+        return {
+          ok: false,
+          message: `"${text}" is not a valid ${lower(field)}; must be one of ${choices.join(", ")}`,
+        };
+      }
+      return { ok: true, value };
+    }
+    case "money-string":
+      return parseMoney(field, text);
+    case "number":
+    case "int": {
+      const parsed = parseNumberText(text);
+      if (!parsed.ok)
+        return {
+          ok: false,
+          message: parsed.message ?? notANumberMessage(field, text, unit, header),
+        };
+      if (field.type === "int" && !Number.isInteger(parsed.value)) {
+        return {
+          ok: false,
+          message: `${show(parsed.value)} is not a whole number; enter ${entering(field, unit)} as a whole number`,
+        };
+      }
+      const value = toSi(parsed.value, factor);
+      const bounds = boundsMessage(field, value, parsed.value);
+      return bounds === undefined ? { ok: true, value } : { ok: false, message: bounds };
+    }
+  }
+}
+
+/**
+ * Money as a decimal string, by pattern only (ENGINE.md §1: money never passes through a JS
+ * number). Normalised to digits and one decimal point: "+012,50" → "12.50", "7." → "7".
+ */
+function parseMoney(field: ImportField, text: string): CellResult {
+  if (NEGATIVE_MONEY.test(text))
+    return { ok: false, message: `must be at least 0 (received ${text})` };
+  const match = MONEY.exec(text);
+  if (match === null || (text.includes(",") && isAmbiguousDecimalComma(text.replace(/^\+/, "")))) {
+    const why = FORMULA_START.test(text)
+      ? "looks like a formula, and formulas are not evaluated"
+      : "is not an amount";
+    return {
+      ok: false,
+      message: `"${text}" ${why}; enter ${entering(field, "")} as a number such as 12.50, in the site's currency, without a currency sign or thousands separator`,
+    };
+  }
+  const whole = (match[1] ?? "0").replace(/^0+(?=\d)/, "");
+  const fraction = match[2] ?? match[3] ?? "";
+  return { ok: true, value: fraction === "" ? whole : `${whole}.${fraction}` };
+}
