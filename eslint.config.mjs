@@ -5,6 +5,15 @@ const config = [
   ...nextVitals,
   ...nextTs,
   {
+    rules: {
+      // Leaving fields out by destructuring (`const { id: _id, ...rest } = row`) is intended.
+      "@typescript-eslint/no-unused-vars": [
+        "warn",
+        { argsIgnorePattern: "^_", varsIgnorePattern: "^_", ignoreRestSiblings: true },
+      ],
+    },
+  },
+  {
     ignores: [
       ".next/**",
       "node_modules/**",

@@ -49,7 +49,10 @@ export function seedDatabase(db: Db): boolean {
     tx.insert(accountShares)
       .values({ accountId: accountIds[2], userId: ids.get("engineer2@example.com")! })
       .run();
-    seedCatalogueAndInstalledBase(tx, new Map(DEMO_ACCOUNTS.map((a, i) => [a.name, accountIds[i]])));
+    seedCatalogueAndInstalledBase(
+      tx,
+      new Map(DEMO_ACCOUNTS.map((a, i) => [a.name, accountIds[i]])),
+    );
   });
   return true;
 }
@@ -89,12 +92,14 @@ function seedCatalogueAndInstalledBase(tx: Tx, accountIds: Map<string, number>) 
           })
           .returning({ id: machines.id })
           .all();
-        const rows = demoAxesFor(group.kind, site.hoursPerYear, site.ambientC, random).map(({ motorCode, ...a }) => ({
-          ...a,
-          siteId: siteRow.id,
-          machineId: machineRow.id,
-          referenceMotorId: motorIds.get(motorCode) ?? null,
-        }));
+        const rows = demoAxesFor(group.kind, site.hoursPerYear, site.ambientC, random).map(
+          ({ motorCode, ...a }) => ({
+            ...a,
+            siteId: siteRow.id,
+            machineId: machineRow.id,
+            referenceMotorId: motorIds.get(motorCode) ?? null,
+          }),
+        );
         tx.insert(axes).values(rows).run();
       }
     }

@@ -75,7 +75,7 @@ export function AppShell({
         </summary>
         <Sidebar user={user} context={context} brand={false} />
       </details>
-      <div className="flex min-h-screen flex-col">
+      <div className="flex min-h-screen min-w-0 flex-col">
         <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6 md:px-8 md:py-8">
           {children}
         </main>

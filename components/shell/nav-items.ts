@@ -5,10 +5,17 @@ import type { NavItem } from "./nav-links";
 export function navItemsFor(role: Role): NavItem[] {
   switch (role) {
     case "admin":
-      return [{ href: "/admin", label: "Users and audit" }];
+      return [
+        { href: "/admin", label: "Users and audit" },
+        { href: "/accounts", label: "Accounts" },
+        { href: "/catalogue", label: "Catalogue" },
+      ];
     case "reviewer":
       return [{ href: "/review", label: "Proposals for review" }];
     default:
-      return [{ href: "/accounts", label: "Accounts" }];
+      return [
+        { href: "/accounts", label: "Accounts" },
+        { href: "/catalogue", label: "Catalogue" },
+      ];
   }
 }

@@ -6,7 +6,8 @@ import { Field, Input, Select } from "./field";
 
 // An empty box means "not given" (undefined) so that zod applies the default or says the field
 // is required, instead of reading NaN.
-export const asNumber = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : Number(v));
+export const asNumber = (v: unknown) =>
+  v === "" || v === null || v === undefined ? undefined : Number(v);
 
 type Props<T extends FieldValues> = {
   register: UseFormRegister<T>;
@@ -18,17 +19,38 @@ type Props<T extends FieldValues> = {
   step?: string;
 };
 
-export function NumberField<T extends FieldValues>({ register, name, label, unit, hint, error, step = "any" }: Props<T>) {
+export function NumberField<T extends FieldValues>({
+  register,
+  name,
+  label,
+  unit,
+  hint,
+  error,
+  step = "any",
+}: Props<T>) {
   const id = `f-${name.replace(/\./g, "-")}`;
   return (
     <Field id={id} label={unit ? `${label} [${unit}]` : label} hint={hint} error={error}>
-      <Input id={id} type="number" inputMode="decimal" step={step} invalid={!!error} {...register(name, { setValueAs: asNumber })} />
+      <Input
+        id={id}
+        type="number"
+        inputMode="decimal"
+        step={step}
+        invalid={!!error}
+        {...register(name, { setValueAs: asNumber })}
+      />
     </Field>
   );
 }
 
 // A torque typed in any supported unit; the server converts it to N·m by the NIST SP 811 factors.
-export function TorqueField<T extends FieldValues>({ register, name, label, hint, error }: Omit<Props<T>, "unit" | "step">) {
+export function TorqueField<T extends FieldValues>({
+  register,
+  name,
+  label,
+  hint,
+  error,
+}: Omit<Props<T>, "unit" | "step">) {
   const id = `f-${name.replace(/\./g, "-")}`;
   return (
     <Field id={`${id}-value`} label={label} hint={hint} error={error}>

@@ -24,11 +24,53 @@ const CARTONER: MachineKind = {
   line: "Carton line",
   downtimeHours: 6,
   axes: [
-    { label: "Carton feed", motor: "RM23-76", speedRpm: 420, loadShare: 0.22, peakShare: 0.42, movePct: 55, holdPct: 35, stepLossEventsPerYear: 4 },
-    { label: "Flap folder", motor: "RM23-56", speedRpm: 300, loadShare: 0.25, peakShare: 0.45, movePct: 45, holdPct: 45 },
-    { label: "Product pusher", motor: "RM23-100", speedRpm: 600, loadShare: 0.18, peakShare: 0.38, movePct: 60, holdPct: 30, stepLossEventsPerYear: 6 },
-    { label: "Glue gun traverse", motor: "RM17-48", speedRpm: 360, loadShare: 0.2, peakShare: 0.4, movePct: 40, holdPct: 50 },
-    { label: "Outfeed belt", motor: "RM34-80", speedRpm: 240, loadShare: 0.2, peakShare: 0.35, movePct: 80, holdPct: 10 },
+    {
+      label: "Carton feed",
+      motor: "RM23-76",
+      speedRpm: 420,
+      loadShare: 0.22,
+      peakShare: 0.42,
+      movePct: 55,
+      holdPct: 35,
+      stepLossEventsPerYear: 4,
+    },
+    {
+      label: "Flap folder",
+      motor: "RM23-56",
+      speedRpm: 300,
+      loadShare: 0.25,
+      peakShare: 0.45,
+      movePct: 45,
+      holdPct: 45,
+    },
+    {
+      label: "Product pusher",
+      motor: "RM23-100",
+      speedRpm: 600,
+      loadShare: 0.18,
+      peakShare: 0.38,
+      movePct: 60,
+      holdPct: 30,
+      stepLossEventsPerYear: 6,
+    },
+    {
+      label: "Glue gun traverse",
+      motor: "RM17-48",
+      speedRpm: 360,
+      loadShare: 0.2,
+      peakShare: 0.4,
+      movePct: 40,
+      holdPct: 50,
+    },
+    {
+      label: "Outfeed belt",
+      motor: "RM34-80",
+      speedRpm: 240,
+      loadShare: 0.2,
+      peakShare: 0.35,
+      movePct: 80,
+      holdPct: 10,
+    },
   ],
 };
 
@@ -37,9 +79,36 @@ const LABELER: MachineKind = {
   line: "Labelling",
   downtimeHours: 3,
   axes: [
-    { label: "Label web drive", motor: "RM23-76", speedRpm: 480, loadShare: 0.15, peakShare: 0.4, movePct: 50, holdPct: 40, holdShare: 0.06, stepLossEventsPerYear: 8 },
-    { label: "Backing rewind", motor: "RM17-60", speedRpm: 200, loadShare: 0.25, peakShare: 0.4, movePct: 50, holdPct: 40, holdShare: 0.1 },
-    { label: "Applicator stroke", motor: "RM17-48", speedRpm: 500, loadShare: 0.18, peakShare: 0.45, movePct: 35, holdPct: 55 },
+    {
+      label: "Label web drive",
+      motor: "RM23-76",
+      speedRpm: 480,
+      loadShare: 0.15,
+      peakShare: 0.4,
+      movePct: 50,
+      holdPct: 40,
+      holdShare: 0.06,
+      stepLossEventsPerYear: 8,
+    },
+    {
+      label: "Backing rewind",
+      motor: "RM17-60",
+      speedRpm: 200,
+      loadShare: 0.25,
+      peakShare: 0.4,
+      movePct: 50,
+      holdPct: 40,
+      holdShare: 0.1,
+    },
+    {
+      label: "Applicator stroke",
+      motor: "RM17-48",
+      speedRpm: 500,
+      loadShare: 0.18,
+      peakShare: 0.45,
+      movePct: 35,
+      holdPct: 55,
+    },
   ],
 };
 
@@ -48,10 +117,45 @@ const PIPETTING_GANTRY: MachineKind = {
   line: "Liquid handling",
   downtimeHours: 2,
   axes: [
-    { label: "Gantry X", motor: "RM23-56", speedRpm: 750, loadShare: 0.15, peakShare: 0.45, movePct: 30, holdPct: 60 },
-    { label: "Gantry Y", motor: "RM17-60", speedRpm: 700, loadShare: 0.16, peakShare: 0.45, movePct: 30, holdPct: 60 },
-    { label: "Head Z (vertical)", motor: "RM17-48", speedRpm: 400, loadShare: 0.3, peakShare: 0.5, movePct: 20, holdPct: 75, holdShare: 0.2, stepLossEventsPerYear: 3 },
-    { label: "Plunger", motor: "RM17-34", speedRpm: 150, loadShare: 0.3, peakShare: 0.5, movePct: 15, holdPct: 80, stepMode: "half-compensated" },
+    {
+      label: "Gantry X",
+      motor: "RM23-56",
+      speedRpm: 750,
+      loadShare: 0.15,
+      peakShare: 0.45,
+      movePct: 30,
+      holdPct: 60,
+    },
+    {
+      label: "Gantry Y",
+      motor: "RM17-60",
+      speedRpm: 700,
+      loadShare: 0.16,
+      peakShare: 0.45,
+      movePct: 30,
+      holdPct: 60,
+    },
+    {
+      label: "Head Z (vertical)",
+      motor: "RM17-48",
+      speedRpm: 400,
+      loadShare: 0.3,
+      peakShare: 0.5,
+      movePct: 20,
+      holdPct: 75,
+      holdShare: 0.2,
+      stepLossEventsPerYear: 3,
+    },
+    {
+      label: "Plunger",
+      motor: "RM17-34",
+      speedRpm: 150,
+      loadShare: 0.3,
+      peakShare: 0.5,
+      movePct: 15,
+      holdPct: 80,
+      stepMode: "half-compensated",
+    },
   ],
 };
 
@@ -60,9 +164,36 @@ const WEB_PRESS: MachineKind = {
   line: "Printing",
   downtimeHours: 10,
   axes: [
-    { label: "Infeed nip", motor: "RM34-118", speedRpm: 300, loadShare: 0.2, peakShare: 0.38, movePct: 75, holdPct: 15, holdShare: 0.05 },
-    { label: "Register correction", motor: "RM23-100", speedRpm: 150, loadShare: 0.12, peakShare: 0.35, movePct: 40, holdPct: 55, stepLossEventsPerYear: 10 },
-    { label: "Ink fountain key", motor: "RM17-34", speedRpm: 60, loadShare: 0.2, peakShare: 0.3, movePct: 5, holdPct: 90, stepMode: "full" },
+    {
+      label: "Infeed nip",
+      motor: "RM34-118",
+      speedRpm: 300,
+      loadShare: 0.2,
+      peakShare: 0.38,
+      movePct: 75,
+      holdPct: 15,
+      holdShare: 0.05,
+    },
+    {
+      label: "Register correction",
+      motor: "RM23-100",
+      speedRpm: 150,
+      loadShare: 0.12,
+      peakShare: 0.35,
+      movePct: 40,
+      holdPct: 55,
+      stepLossEventsPerYear: 10,
+    },
+    {
+      label: "Ink fountain key",
+      motor: "RM17-34",
+      speedRpm: 60,
+      loadShare: 0.2,
+      peakShare: 0.3,
+      movePct: 5,
+      holdPct: 90,
+      stepMode: "full",
+    },
   ],
 };
 
@@ -71,9 +202,36 @@ const SLITTER: MachineKind = {
   line: "Converting",
   downtimeHours: 8,
   axes: [
-    { label: "Knife positioner", motor: "RM23-76", speedRpm: 500, loadShare: 0.15, peakShare: 0.4, movePct: 10, holdPct: 85, stepLossEventsPerYear: 5 },
-    { label: "Unwind tension", motor: "RM34-80", speedRpm: 180, loadShare: 0.22, peakShare: 0.36, movePct: 70, holdPct: 20, holdShare: 0.08, stepMode: "half" },
-    { label: "Lay-on roller", motor: "RM23-56", speedRpm: 120, loadShare: 0.25, peakShare: 0.4, movePct: 60, holdPct: 30 },
+    {
+      label: "Knife positioner",
+      motor: "RM23-76",
+      speedRpm: 500,
+      loadShare: 0.15,
+      peakShare: 0.4,
+      movePct: 10,
+      holdPct: 85,
+      stepLossEventsPerYear: 5,
+    },
+    {
+      label: "Unwind tension",
+      motor: "RM34-80",
+      speedRpm: 180,
+      loadShare: 0.22,
+      peakShare: 0.36,
+      movePct: 70,
+      holdPct: 20,
+      holdShare: 0.08,
+      stepMode: "half",
+    },
+    {
+      label: "Lay-on roller",
+      motor: "RM23-56",
+      speedRpm: 120,
+      loadShare: 0.25,
+      peakShare: 0.4,
+      movePct: 60,
+      holdPct: 30,
+    },
   ],
 };
 
@@ -85,14 +243,64 @@ export type DemoSite = {
   gridKgCo2PerKWh: number;
   ambientC: number;
   hoursPerYear: number;
-  machines: { kind: MachineKind; count: number; throughputGainPct?: number; marginPerOutputHour?: string }[];
+  machines: {
+    kind: MachineKind;
+    count: number;
+    throughputGainPct?: number;
+    marginPerOutputHour?: string;
+  }[];
 };
 
 export const DEMO_SITES: DemoSite[] = [
-  { account: "Cartonia Packaging Plant", name: "North hall", currency: "EUR", tariffPerKWh: "0.21", gridKgCo2PerKWh: 0.38, ambientC: 35, hoursPerYear: 6000, machines: [{ kind: CARTONER, count: 14, throughputGainPct: 6, marginPerOutputHour: "42" }, { kind: LABELER, count: 10 }] },
-  { account: "Cartonia Packaging Plant", name: "South hall", currency: "EUR", tariffPerKWh: "0.21", gridKgCo2PerKWh: 0.38, ambientC: 38, hoursPerYear: 4200, machines: [{ kind: CARTONER, count: 6 }, { kind: LABELER, count: 8, throughputGainPct: 4, marginPerOutputHour: "18" }] },
-  { account: "Pipetteworks Lab Automation", name: "Assembly and test", currency: "EUR", tariffPerKWh: "0.26", gridKgCo2PerKWh: 0.3, ambientC: 28, hoursPerYear: 3000, machines: [{ kind: PIPETTING_GANTRY, count: 24 }] },
-  { account: "Webline Print Finishing", name: "Finishing works", currency: "EUR", tariffPerKWh: "0.19", gridKgCo2PerKWh: 0.42, ambientC: 40, hoursPerYear: 6500, machines: [{ kind: WEB_PRESS, count: 4, throughputGainPct: 5, marginPerOutputHour: "120" }, { kind: SLITTER, count: 10 }] },
+  {
+    account: "Cartonia Packaging Plant",
+    name: "North hall",
+    currency: "EUR",
+    tariffPerKWh: "0.21",
+    gridKgCo2PerKWh: 0.38,
+    ambientC: 35,
+    hoursPerYear: 6000,
+    machines: [
+      { kind: CARTONER, count: 14, throughputGainPct: 6, marginPerOutputHour: "42" },
+      { kind: LABELER, count: 10 },
+    ],
+  },
+  {
+    account: "Cartonia Packaging Plant",
+    name: "South hall",
+    currency: "EUR",
+    tariffPerKWh: "0.21",
+    gridKgCo2PerKWh: 0.38,
+    ambientC: 38,
+    hoursPerYear: 4200,
+    machines: [
+      { kind: CARTONER, count: 6 },
+      { kind: LABELER, count: 8, throughputGainPct: 4, marginPerOutputHour: "18" },
+    ],
+  },
+  {
+    account: "Pipetteworks Lab Automation",
+    name: "Assembly and test",
+    currency: "EUR",
+    tariffPerKWh: "0.26",
+    gridKgCo2PerKWh: 0.3,
+    ambientC: 28,
+    hoursPerYear: 3000,
+    machines: [{ kind: PIPETTING_GANTRY, count: 24 }],
+  },
+  {
+    account: "Webline Print Finishing",
+    name: "Finishing works",
+    currency: "EUR",
+    tariffPerKWh: "0.19",
+    gridKgCo2PerKWh: 0.42,
+    ambientC: 40,
+    hoursPerYear: 6500,
+    machines: [
+      { kind: WEB_PRESS, count: 4, throughputGainPct: 5, marginPerOutputHour: "120" },
+      { kind: SLITTER, count: 10 },
+    ],
+  },
 ];
 
 // A small deterministic generator (mulberry32), so the demo is the same everywhere.
@@ -110,7 +318,12 @@ export function seededRandom(seed: number) {
 const round = (v: number, digits = 3) => Number(v.toFixed(digits));
 
 // The axis rows of one machine of a kind, varied a little from machine to machine.
-export function demoAxesFor(kind: MachineKind, hoursPerYear: number, ambientC: number, random: () => number) {
+export function demoAxesFor(
+  kind: MachineKind,
+  hoursPerYear: number,
+  ambientC: number,
+  random: () => number,
+) {
   return kind.axes.map((t) => {
     const motor = DEMO_MOTORS.find((m) => m.code === t.motor)!;
     const vary = 0.85 + random() * 0.3;

@@ -24,11 +24,18 @@ function escapeLike(text: string) {
 }
 
 // One page of a site's axes, filtered and sorted in SQL (the site's scope checked first).
-export function listAxes(caller: SessionUser, siteId: number, params: Partial<AxisListParams> = {}) {
+export function listAxes(
+  caller: SessionUser,
+  siteId: number,
+  params: Partial<AxisListParams> = {},
+) {
   getSiteOrThrow(caller, siteId);
   const filters: (SQL | undefined)[] = [eq(axes.siteId, siteId)];
   if (params.machineId) filters.push(eq(axes.machineId, params.machineId));
-  if (params.q) filters.push(or(like(axes.label, escapeLike(params.q)), like(machines.name, escapeLike(params.q))));
+  if (params.q)
+    filters.push(
+      or(like(axes.label, escapeLike(params.q)), like(machines.name, escapeLike(params.q))),
+    );
   const where = and(...filters);
   const [{ total }] = db
     .select({ total: count() })
@@ -64,7 +71,11 @@ export function getAxisOrThrow(caller: SessionUser, id: number) {
 
 export function createAxis(caller: SessionUser, input: AxisInput) {
   const machine = getMachineOrThrow(caller, input.machineId);
-  const [row] = db.insert(axes).values({ ...input, siteId: machine.siteId }).returning().all();
+  const [row] = db
+    .insert(axes)
+    .values({ ...input, siteId: machine.siteId })
+    .returning()
+    .all();
   return row;
 }
 
@@ -76,7 +87,12 @@ export function updateAxis(caller: SessionUser, id: number, input: AxisInput) {
 }
 
 // Every stored field of a site's axes, for API callers, ordered by id for stable paging.
-export function listAxesForExport(caller: SessionUser, siteId: number, offset: number, limit: number) {
+export function listAxesForExport(
+  caller: SessionUser,
+  siteId: number,
+  offset: number,
+  limit: number,
+) {
   getSiteOrThrow(caller, siteId);
   const [{ total }] = db.select({ total: count() }).from(axes).where(eq(axes.siteId, siteId)).all();
   const rows = db

@@ -6,7 +6,9 @@ import { recordAudit } from "./audit";
 import { getSiteOrThrow } from "./sites";
 
 // One validated spreadsheet row: an axis in SI units and the name of its machine.
-export type ImportedAxis = Omit<NewAxis, "id" | "siteId" | "machineId" | "createdAt"> & { machineName: string };
+export type ImportedAxis = Omit<NewAxis, "id" | "siteId" | "machineId" | "createdAt"> & {
+  machineName: string;
+};
 
 // SQLite caps the variables of one statement; ~40 columns × 200 rows stays well below it.
 const INSERT_CHUNK = 200;
@@ -57,18 +59,31 @@ export function machinesToCreate(caller: SessionUser, siteId: number, names: str
 type FileFacts = { fileName: string; sizeBytes: number; rowsRead: number; errorCount: number };
 
 // All or nothing: the machines it names, every axis and the history row land in one transaction.
-export function commitImport(caller: SessionUser, siteId: number, file: FileFacts, rows: ImportedAxis[]) {
+export function commitImport(
+  caller: SessionUser,
+  siteId: number,
+  file: FileFacts,
+  rows: ImportedAxis[],
+) {
   getSiteOrThrow(caller, siteId);
   const result = db.transaction((tx) => {
     const ids = new Map<string, number>();
-    for (const m of tx.select({ id: machines.id, name: machines.name }).from(machines).where(eq(machines.siteId, siteId)).all()) {
+    for (const m of tx
+      .select({ id: machines.id, name: machines.name })
+      .from(machines)
+      .where(eq(machines.siteId, siteId))
+      .all()) {
       ids.set(m.name.toLowerCase(), m.id);
     }
     let created = 0;
     for (const row of rows) {
       const key = row.machineName.toLowerCase();
       if (ids.has(key)) continue;
-      const [m] = tx.insert(machines).values({ siteId, name: row.machineName }).returning({ id: machines.id }).all();
+      const [m] = tx
+        .insert(machines)
+        .values({ siteId, name: row.machineName })
+        .returning({ id: machines.id })
+        .all();
       ids.set(key, m.id);
       created++;
     }
@@ -82,17 +97,31 @@ export function commitImport(caller: SessionUser, siteId: number, file: FileFact
     }
     const [record] = tx
       .insert(imports)
-      .values({ siteId, userId: caller.id, ...file, rowsImported: rows.length, machinesCreated: created })
+      .values({
+        siteId,
+        userId: caller.id,
+        ...file,
+        rowsImported: rows.length,
+        machinesCreated: created,
+      })
       .returning({ id: imports.id })
       .all();
     return { importId: record.id, imported: rows.length, machinesCreated: created };
   });
-  recordAudit({ actor: caller, action: "import.commit", targetType: "site", targetId: siteId, detail: `${file.fileName}: ${rows.length} axes` });
+  recordAudit({
+    actor: caller,
+    action: "import.commit",
+    targetType: "site",
+    targetId: siteId,
+    detail: `${file.fileName}: ${rows.length} axes`,
+  });
   return result;
 }
 
 // A refused file is kept in the history too, with its error count and nothing imported.
 export function recordRefusedImport(caller: SessionUser, siteId: number, file: FileFacts) {
   getSiteOrThrow(caller, siteId);
-  db.insert(imports).values({ siteId, userId: caller.id, ...file, rowsImported: 0 }).run();
+  db.insert(imports)
+    .values({ siteId, userId: caller.id, ...file, rowsImported: 0 })
+    .run();
 }

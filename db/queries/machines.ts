@@ -36,13 +36,18 @@ function assertNameFree(siteId: number, name: string, exceptId?: number) {
     .from(machines)
     .where(and(eq(machines.siteId, siteId), sql`lower(${machines.name}) = lower(${name})`))
     .get();
-  if (clash && clash.id !== exceptId) throw new ConflictError(`This site already has a machine named "${name}"`);
+  if (clash && clash.id !== exceptId)
+    throw new ConflictError(`This site already has a machine named "${name}"`);
 }
 
 export function createMachine(caller: SessionUser, siteId: number, input: MachineInput) {
   getSiteOrThrow(caller, siteId);
   assertNameFree(siteId, input.name);
-  const [row] = db.insert(machines).values({ ...input, siteId }).returning().all();
+  const [row] = db
+    .insert(machines)
+    .values({ ...input, siteId })
+    .returning()
+    .all();
   return row;
 }
 

@@ -24,7 +24,9 @@ export function listSites(caller: SessionUser, accountId?: number) {
     })
     .from(sites)
     .innerJoin(accounts, eq(sites.accountId, accounts.id))
-    .where(and(scoped(caller), accountId === undefined ? undefined : eq(sites.accountId, accountId)))
+    .where(
+      and(scoped(caller), accountId === undefined ? undefined : eq(sites.accountId, accountId)),
+    )
     .orderBy(asc(accounts.name), asc(sites.name))
     .all();
 }
@@ -46,13 +48,18 @@ function assertNameFree(accountId: number, name: string, exceptId?: number) {
     .from(sites)
     .where(and(eq(sites.accountId, accountId), sql`lower(${sites.name}) = lower(${name})`))
     .get();
-  if (clash && clash.id !== exceptId) throw new ConflictError(`This account already has a site named "${name}"`);
+  if (clash && clash.id !== exceptId)
+    throw new ConflictError(`This account already has a site named "${name}"`);
 }
 
 export function createSite(caller: SessionUser, accountId: number, input: SiteInput) {
   getAccountOrThrow(caller, accountId);
   assertNameFree(accountId, input.name);
-  const [row] = db.insert(sites).values({ ...input, accountId }).returning().all();
+  const [row] = db
+    .insert(sites)
+    .values({ ...input, accountId })
+    .returning()
+    .all();
   return row;
 }
 

@@ -1,7 +1,10 @@
 import { sql } from "drizzle-orm";
 import { integer, real, sqliteTable, text } from "drizzle-orm/sqlite-core";
 
-const createdAt = () => text("created_at").notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
+const createdAt = () =>
+  text("created_at")
+    .notNull()
+    .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 
 // Reference open-loop motors (and the new motors some kits bring): MotorInput of ENGINE.md, SI units.
 export const motors = sqliteTable("motors", {
@@ -16,7 +19,9 @@ export const motors = sqliteTable("motors", {
   phaseInductanceMh: real("phase_inductance_mh").notNull(),
   thermalResistanceKPerW: real("thermal_resistance_k_per_w"),
   ratedTempRiseK: real("rated_temp_rise_k").notNull().default(80),
-  insulationClass: text("insulation_class", { enum: ["B", "F", "H"] }).notNull().default("B"),
+  insulationClass: text("insulation_class", { enum: ["B", "F", "H"] })
+    .notNull()
+    .default("B"),
   hysteresisWPerHz: real("hysteresis_w_per_hz").notNull().default(0),
   eddyWPerHz2: real("eddy_w_per_hz2").notNull().default(0),
   active: integer("active", { mode: "boolean" }).notNull().default(true),
@@ -30,7 +35,9 @@ export const kits = sqliteTable("kits", {
   name: text("name").notNull(),
   price: text("price").notNull(),
   currency: text("currency").notNull(),
-  sensing: text("sensing", { enum: ["encoder", "sensorless"] }).notNull().default("encoder"),
+  sensing: text("sensing", { enum: ["encoder", "sensorless"] })
+    .notNull()
+    .default("encoder"),
   motorId: integer("motor_id").references(() => motors.id, { onDelete: "restrict" }),
   maxCurrentPeakA: real("max_current_peak_a"),
   busVoltageV: real("bus_voltage_v"),

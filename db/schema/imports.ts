@@ -18,7 +18,9 @@ export const imports = sqliteTable(
     rowsImported: integer("rows_imported").notNull(),
     errorCount: integer("error_count").notNull(),
     machinesCreated: integer("machines_created").notNull().default(0),
-    at: text("at").notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`),
+    at: text("at")
+      .notNull()
+      .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`),
   },
   (t) => [index("imports_site_idx").on(t.siteId, t.at)],
 );

@@ -3,7 +3,10 @@ import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-or
 import { accounts } from "./accounts";
 import { motors } from "./catalogue";
 
-const createdAt = () => text("created_at").notNull().default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
+const createdAt = () =>
+  text("created_at")
+    .notNull()
+    .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 
 // A plant of a customer account: its tariff, grid factor, climate and working hours are the
 // defaults of every case built on its machines. Money is kept as decimal text (ENGINE.md §1).
@@ -57,7 +60,9 @@ export const axes = sqliteTable(
       .references(() => machines.id, { onDelete: "cascade" }),
     label: text("label").notNull(),
     quantity: integer("quantity").notNull().default(1),
-    referenceMotorId: integer("reference_motor_id").references(() => motors.id, { onDelete: "set null" }),
+    referenceMotorId: integer("reference_motor_id").references(() => motors.id, {
+      onDelete: "set null",
+    }),
     // motor
     rotorTeeth: integer("rotor_teeth").notNull().default(50),
     holdingTorqueNm: real("holding_torque_nm").notNull(),
@@ -66,15 +71,23 @@ export const axes = sqliteTable(
     phaseInductanceMh: real("phase_inductance_mh").notNull(),
     thermalResistanceKPerW: real("thermal_resistance_k_per_w"),
     ratedTempRiseK: real("rated_temp_rise_k").notNull().default(80),
-    insulationClass: text("insulation_class", { enum: ["B", "F", "H"] }).notNull().default("B"),
+    insulationClass: text("insulation_class", { enum: ["B", "F", "H"] })
+      .notNull()
+      .default("B"),
     hysteresisWPerHz: real("hysteresis_w_per_hz").notNull().default(0),
     eddyWPerHz2: real("eddy_w_per_hz2").notNull().default(0),
-    pullOutCurve: text("pull_out_curve", { mode: "json" }).$type<{ rpm: number; torqueNm: number }[]>(),
+    pullOutCurve: text("pull_out_curve", { mode: "json" }).$type<
+      { rpm: number; torqueNm: number }[]
+    >(),
     // drive
     busVoltageV: real("bus_voltage_v").notNull(),
     currentSettingA: real("current_setting_a").notNull(),
-    currentConvention: text("current_convention", { enum: ["peak", "rms"] }).notNull().default("peak"),
-    stepMode: text("step_mode", { enum: ["full", "half", "half-compensated", "micro"] }).notNull().default("micro"),
+    currentConvention: text("current_convention", { enum: ["peak", "rms"] })
+      .notNull()
+      .default("peak"),
+    stepMode: text("step_mode", { enum: ["full", "half", "half-compensated", "micro"] })
+      .notNull()
+      .default("micro"),
     microsteps: integer("microsteps").notNull().default(16),
     idleCurrentPct: real("idle_current_pct").notNull().default(50),
     driveEfficiencyPct: real("drive_efficiency_pct").notNull().default(90),

@@ -39,6 +39,10 @@ export function spawnNext(
   return spawn(process.execPath, [NEXT_BIN, mode, "-p", env.PORT!], {
     cwd: ROOT,
     stdio,
-    env: { ...env, NODE_ENV: mode === "dev" ? "development" : "production", NEXT_TELEMETRY_DISABLED: "1" },
+    env: {
+      ...env,
+      NODE_ENV: mode === "dev" ? "development" : "production",
+      NEXT_TELEMETRY_DISABLED: "1",
+    },
   });
 }

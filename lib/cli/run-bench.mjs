@@ -26,7 +26,10 @@ for (const [name, title] of [
     logLevel: "warning",
   });
   console.log(`\n${title}`);
-  const run = spawnSync(process.execPath, ["--expose-gc", outfile], { stdio: "inherit", cwd: root });
+  const run = spawnSync(process.execPath, ["--expose-gc", outfile], {
+    stdio: "inherit",
+    cwd: root,
+  });
   if (run.status !== 0) failed++;
 }
 process.exit(failed ? 1 : 0);

@@ -3,8 +3,17 @@ import { atLeast, choice, int, money, pct, positive, torque } from "@/lib/engine
 
 const optional = <T extends z.ZodType>(schema: T) =>
   z.preprocess((v) => (v === "" || v === undefined ? null : v), schema.nullable());
-const code = z.string().trim().min(1, "Enter a code").max(40, "Keep the code under 40 characters").regex(/^[A-Za-z0-9._-]+$/, "Use letters, digits, dot, dash or underscore");
-const name = z.string().trim().min(1, "Enter a name").max(120, "Keep the name under 120 characters");
+const code = z
+  .string()
+  .trim()
+  .min(1, "Enter a code")
+  .max(40, "Keep the code under 40 characters")
+  .regex(/^[A-Za-z0-9._-]+$/, "Use letters, digits, dot, dash or underscore");
+const name = z
+  .string()
+  .trim()
+  .min(1, "Enter a name")
+  .max(120, "Keep the name under 120 characters");
 
 export const motorInputSchema = z.object({
   code,
@@ -26,7 +35,11 @@ export const kitInputSchema = z.object({
   code,
   name,
   price: money(),
-  currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
+  currency: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
   sensing: choice(["encoder", "sensorless"]).default("encoder"),
   motorId: optional(z.coerce.number().int().positive()),
   maxCurrentPeakA: optional(positive()),

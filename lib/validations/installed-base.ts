@@ -1,15 +1,29 @@
 import { z } from "zod";
-import { atLeast, choice, int, money, num, pct, positive, torque } from "@/lib/engine/schema-fields";
+import {
+  atLeast,
+  choice,
+  int,
+  money,
+  num,
+  pct,
+  positive,
+  torque,
+} from "@/lib/engine/schema-fields";
 
 // Shared by the forms, the server actions, the API and the importer. Values are stored in SI
 // units; torque fields also take { value, unit } and are converted by the NIST SP 811 factors.
-const name = (what: string) => z.string().trim().min(1, `Enter the ${what}`).max(120, "Keep it under 120 characters");
+const name = (what: string) =>
+  z.string().trim().min(1, `Enter the ${what}`).max(120, "Keep it under 120 characters");
 const optionalNumber = <T extends z.ZodType>(schema: T) =>
   z.preprocess((v) => (v === "" || v === undefined ? null : v), schema.nullable());
 
 export const siteInputSchema = z.object({
   name: name("site name"),
-  currency: z.string().trim().toUpperCase().regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
+  currency: z
+    .string()
+    .trim()
+    .toUpperCase()
+    .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
   tariffPerKWh: money(),
   gridKgCo2PerKWh: atLeast(0).default(0),
   ambientC: num().min(-40, "must be at least -40 °C").max(80, "must be at most 80 °C").default(40),
@@ -18,7 +32,12 @@ export const siteInputSchema = z.object({
 
 export const machineInputSchema = z.object({
   name: name("machine name"),
-  line: z.string().trim().max(120).optional().transform((v) => v || null),
+  line: z
+    .string()
+    .trim()
+    .max(120)
+    .optional()
+    .transform((v) => v || null),
   downtimeHours: atLeast(0).default(0),
   throughputGainPct: pct().default(0),
   marginPerOutputHour: money().default("0"),
@@ -67,20 +86,40 @@ export function checkAxisConsistency(
   ctx: z.RefinementCtx,
 ) {
   if (a.movePct + a.holdPct > 100) {
-    ctx.addIssue({ code: "custom", path: ["holdPct"], message: `move % + hold % is ${a.movePct + a.holdPct}; together they must be at most 100` });
+    ctx.addIssue({
+      code: "custom",
+      path: ["holdPct"],
+      message: `move % + hold % is ${a.movePct + a.holdPct}; together they must be at most 100`,
+    });
   }
   if (a.peakTorqueNm < a.loadTorqueNm) {
-    ctx.addIssue({ code: "custom", path: ["peakTorqueNm"], message: `must be at least the load torque (${a.loadTorqueNm} N·m)` });
+    ctx.addIssue({
+      code: "custom",
+      path: ["peakTorqueNm"],
+      message: `must be at least the load torque (${a.loadTorqueNm} N·m)`,
+    });
   }
 }
 
-export const axisInputSchema = axisFieldsSchema.extend({ machineId: z.coerce.number().int().positive("Choose a machine") }).superRefine(checkAxisConsistency);
+export const axisInputSchema = axisFieldsSchema
+  .extend({ machineId: z.coerce.number().int().positive("Choose a machine") })
+  .superRefine(checkAxisConsistency);
 
 export const axisListParamsSchema = z.object({
   page: z.coerce.number().int().min(1).catch(1),
   q: z.string().trim().max(100).optional().catch(undefined),
   machineId: z.coerce.number().int().positive().optional().catch(undefined),
-  sort: z.enum(["label", "machine", "holdingTorqueNm", "speedRpm", "loadTorqueNm", "currentSettingA", "quantity"]).catch("label"),
+  sort: z
+    .enum([
+      "label",
+      "machine",
+      "holdingTorqueNm",
+      "speedRpm",
+      "loadTorqueNm",
+      "currentSettingA",
+      "quantity",
+    ])
+    .catch("label"),
   dir: z.enum(["asc", "desc"]).catch("asc"),
 });
 

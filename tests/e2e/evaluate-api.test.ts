@@ -13,7 +13,11 @@ beforeAll(async () => {
 });
 
 function post(body: string) {
-  return request(jar, "/api/v1/evaluate", { method: "POST", headers: { "content-type": "application/json" }, body });
+  return request(jar, "/api/v1/evaluate", {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body,
+  });
 }
 
 describe("POST /api/v1/evaluate (PRODUCT.md contract)", () => {
@@ -32,8 +36,12 @@ describe("POST /api/v1/evaluate (PRODUCT.md contract)", () => {
     delete input.finance.tariffPerKWh;
     const res = await post(JSON.stringify(input));
     expect(res.status).toBe(422);
-    const body = z.object({ error: z.string(), problems: z.array(z.string()) }).parse(await res.json());
-    expect(body.problems).toContain("axes[0].duty.peakTorqueNm: must be at least loadTorqueNm (0.25)");
+    const body = z
+      .object({ error: z.string(), problems: z.array(z.string()) })
+      .parse(await res.json());
+    expect(body.problems).toContain(
+      "axes[0].duty.peakTorqueNm: must be at least loadTorqueNm (0.25)",
+    );
     expect(body.problems.some((p) => p.startsWith("finance.tariffPerKWh:"))).toBe(true);
   });
 

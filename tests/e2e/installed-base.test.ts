@@ -33,7 +33,11 @@ describe("an engineer works through the installed base", () => {
     await page.getByLabel("Label or machine contains").fill("knife");
     await page.getByRole("button", { name: "Apply" }).click();
     await page.waitForURL(/q=knife/);
-    const labels = await page.locator("table[aria-label], table").first().locator("tbody tr td:first-child").allTextContents();
+    const labels = await page
+      .locator("table[aria-label], table")
+      .first()
+      .locator("tbody tr td:first-child")
+      .allTextContents();
     expect(labels.length).toBeGreaterThan(0);
     expect(labels.every((l) => l === "Knife positioner")).toBe(true);
     await screenshot(page, "site-axes-filtered");
@@ -66,7 +70,9 @@ describe("an engineer works through the installed base", () => {
     await page.getByRole("button", { name: "Apply" }).click();
     await page.getByRole("cell", { name: "Invented reel lift", exact: true }).waitFor();
     // 180 ozf·in × 7.061552E-03 N·m (NIST SP 811) = 1.27 N·m
-    await expect(page.getByRole("cell", { name: "1.27", exact: true }).count()).resolves.toBeGreaterThan(0);
+    await expect(
+      page.getByRole("cell", { name: "1.27", exact: true }).count(),
+    ).resolves.toBeGreaterThan(0);
   });
 
   it("imports a spreadsheet: faults are marked in the preview, a clean file commits and shows in the history", async () => {
@@ -75,7 +81,9 @@ describe("an engineer works through the installed base", () => {
     await page.getByText("Fix the marked cells in your file").waitFor();
     const marked = page.locator("[data-cell-error]");
     expect(await marked.count()).toBeGreaterThanOrEqual(3);
-    await expect(page.getByRole("button", { name: /^Import \d+ rows$/ }).isDisabled()).resolves.toBe(true);
+    await expect(
+      page.getByRole("button", { name: /^Import \d+ rows$/ }).isDisabled(),
+    ).resolves.toBe(true);
     await page.locator("[data-cell-error]").first().scrollIntoViewIfNeeded();
     await screenshot(page, "import-preview-faults");
 

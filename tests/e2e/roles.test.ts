@@ -122,7 +122,9 @@ describe("signing out and narrow screens", () => {
     const menu = page.getByText("Menu");
     await expect(menu.isVisible()).resolves.toBe(true);
     await menu.click();
-    await expect(page.getByRole("link", { name: "Accounts" }).last().isVisible()).resolves.toBe(true);
+    await expect(page.getByRole("link", { name: "Accounts" }).last().isVisible()).resolves.toBe(
+      true,
+    );
     await screenshot(page, "phone-manager-menu");
     await context.close();
   });

@@ -43,13 +43,19 @@ describe("the seeded installed base (PRODUCT.md demo scenario)", () => {
     expect(axes).toBeGreaterThanOrEqual(200);
     expect(axes).toBeLessThan(1000);
     expect(listKits(manager()).length).toBeGreaterThanOrEqual(10);
-    expect(listMotors(manager()).map((m) => m.frameSize).sort()).toEqual(expect.arrayContaining([17, 23, 34]));
+    expect(
+      listMotors(manager())
+        .map((m) => m.frameSize)
+        .sort(),
+    ).toEqual(expect.arrayContaining([17, 23, 34]));
   });
 });
 
 describe("who reaches which site, machine and axis (cross-account)", () => {
   it("an engineer lists only the sites of accounts they own or are shared on", () => {
-    expect(new Set(listSites(engineer()).map((s) => s.accountName))).toEqual(new Set(["Cartonia Packaging Plant", "Webline Print Finishing"]));
+    expect(new Set(listSites(engineer()).map((s) => s.accountName))).toEqual(
+      new Set(["Cartonia Packaging Plant", "Webline Print Finishing"]),
+    );
   });
 
   it("another engineer's site, machine and axis are not found, exactly like missing ids", () => {
@@ -62,13 +68,23 @@ describe("who reaches which site, machine and axis (cross-account)", () => {
     expect(() => getAxisOrThrow(engineer(), axis.id)).toThrow(NotFoundError);
     expect(() => getAxisOrThrow(engineer(), 99_999_999)).toThrow(NotFoundError);
     expect(() => createAxis(engineer(), axisValues(machine.id))).toThrow(NotFoundError);
-    expect(() => createMachine(engineer(), lab.id, { name: "Sneaky", line: null, downtimeHours: 0, throughputGainPct: 0, marginPerOutputHour: "0" })).toThrow(NotFoundError);
+    expect(() =>
+      createMachine(engineer(), lab.id, {
+        name: "Sneaky",
+        line: null,
+        downtimeHours: 0,
+        throughputGainPct: 0,
+        marginPerOutputHour: "0",
+      }),
+    ).toThrow(NotFoundError);
   });
 
   it("a reviewer reaches none of the installed base", () => {
     const reviewer = caller("reviewer@example.com");
     expect(() => listSites(reviewer)).toThrow(ForbiddenError);
-    expect(() => getSiteOrThrow(reviewer, siteOf("Cartonia Packaging Plant").id)).toThrow(ForbiddenError);
+    expect(() => getSiteOrThrow(reviewer, siteOf("Cartonia Packaging Plant").id)).toThrow(
+      ForbiddenError,
+    );
     expect(() => listKits(reviewer)).toThrow(ForbiddenError);
   });
 });
@@ -81,7 +97,9 @@ describe("the axes table pages, sorts and filters on the server", () => {
     expect(first.total).toBe(north.axisCount);
     const last = listAxes(engineer(), north.id, { page: first.pageCount });
     expect(last.rows.length).toBe(first.total - (first.pageCount - 1) * AXES_PAGE_SIZE);
-    const bySpeed = listAxes(engineer(), north.id, { sort: "speedRpm", dir: "desc" }).rows.map((r) => r.speedRpm);
+    const bySpeed = listAxes(engineer(), north.id, { sort: "speedRpm", dir: "desc" }).rows.map(
+      (r) => r.speedRpm,
+    );
     expect(bySpeed).toEqual([...bySpeed].sort((a, b) => b - a));
     const feeds = listAxes(engineer(), north.id, { q: "carton feed" });
     expect(feeds.total).toBeGreaterThan(0);
@@ -100,15 +118,27 @@ describe("editing the installed base", () => {
 
   it("refuses a second site of the same name in one account", () => {
     const site = siteOf("Webline Print Finishing");
-    const input = siteInputSchema.parse({ name: site.name.toUpperCase(), currency: "eur", tariffPerKWh: "0.2", hoursPerYear: 5000 });
+    const input = siteInputSchema.parse({
+      name: site.name.toUpperCase(),
+      currency: "eur",
+      tariffPerKWh: "0.2",
+      hoursPerYear: 5000,
+    });
     expect(input.currency).toBe("EUR");
     expect(() => createSite(engineer(), site.accountId, input)).toThrow(ConflictError);
   });
 
   it("says what is wrong with an axis, field by field", () => {
-    const result = axisInputSchema.safeParse({ ...axisValues(1), movePct: 70, holdPct: 50, peakTorqueNm: 0.1 });
+    const result = axisInputSchema.safeParse({
+      ...axisValues(1),
+      movePct: 70,
+      holdPct: 50,
+      peakTorqueNm: 0.1,
+    });
     expect(result.success).toBe(false);
-    const messages = Object.fromEntries(result.error!.issues.map((i) => [i.path.join("."), i.message]));
+    const messages = Object.fromEntries(
+      result.error!.issues.map((i) => [i.path.join("."), i.message]),
+    );
     expect(messages.holdPct).toBe("move % + hold % is 120; together they must be at most 100");
     expect(messages.peakTorqueNm).toBe("must be at least the load torque (0.25 N·m)");
   });
@@ -118,15 +148,30 @@ describe("committing an import", () => {
   it("creates the machines a file names and records the import", () => {
     const site = siteOf("Webline Print Finishing");
     const { machineId: _m, ...fields } = axisValues(1);
-    expect(machinesToCreate(engineer(), site.id, ["Web press 01", "Brand-new folder", "brand-new FOLDER"])).toEqual(["Brand-new folder"]);
+    expect(
+      machinesToCreate(engineer(), site.id, [
+        "Web press 01",
+        "Brand-new folder",
+        "brand-new FOLDER",
+      ]),
+    ).toEqual(["Brand-new folder"]);
     const before = listMachines(engineer(), site.id).length;
-    const out = commitImport(engineer(), site.id, { fileName: "x.csv", sizeBytes: 10, rowsRead: 2, errorCount: 0 }, [
-      { ...fields, machineName: "Brand-new folder" },
-      { ...fields, label: "Second", machineName: "Web press 01" },
-    ]);
+    const out = commitImport(
+      engineer(),
+      site.id,
+      { fileName: "x.csv", sizeBytes: 10, rowsRead: 2, errorCount: 0 },
+      [
+        { ...fields, machineName: "Brand-new folder" },
+        { ...fields, label: "Second", machineName: "Web press 01" },
+      ],
+    );
     expect(out).toMatchObject({ imported: 2, machinesCreated: 1 });
     expect(listMachines(engineer(), site.id)).toHaveLength(before + 1);
-    expect(listImports(engineer(), site.id)[0]).toMatchObject({ fileName: "x.csv", rowsImported: 2, userEmail: "engineer@example.com" });
+    expect(listImports(engineer(), site.id)[0]).toMatchObject({
+      fileName: "x.csv",
+      rowsImported: 2,
+      userEmail: "engineer@example.com",
+    });
   });
 
   it("is all-or-nothing: a row the database refuses leaves no machine and no axis behind", () => {
@@ -134,9 +179,18 @@ describe("committing an import", () => {
     const { machineId: _m, ...fields } = axisValues(1);
     const machinesBefore = listMachines(engineer(), site.id).length;
     const axesBefore = listAxes(engineer(), site.id).total;
-    const broken = { ...fields, machineName: "Another new machine", holdingTorqueNm: null as unknown as number };
+    const broken = {
+      ...fields,
+      machineName: "Another new machine",
+      holdingTorqueNm: null as unknown as number,
+    };
     expect(() =>
-      commitImport(engineer(), site.id, { fileName: "bad.csv", sizeBytes: 10, rowsRead: 2, errorCount: 0 }, [{ ...fields, machineName: "Another new machine" }, broken]),
+      commitImport(
+        engineer(),
+        site.id,
+        { fileName: "bad.csv", sizeBytes: 10, rowsRead: 2, errorCount: 0 },
+        [{ ...fields, machineName: "Another new machine" }, broken],
+      ),
     ).toThrow();
     expect(listMachines(engineer(), site.id)).toHaveLength(machinesBefore);
     expect(listAxes(engineer(), site.id).total).toBe(axesBefore);
@@ -146,7 +200,12 @@ describe("committing an import", () => {
 describe("the catalogue", () => {
   it("only administrators change it; retired kits leave the default list", () => {
     const admin = caller("admin@example.com");
-    const input = kitInputSchema.parse({ code: "CL-TEST", name: "Invented test kit", price: "99.50", currency: "EUR" });
+    const input = kitInputSchema.parse({
+      code: "CL-TEST",
+      name: "Invented test kit",
+      price: "99.50",
+      currency: "EUR",
+    });
     expect(() => saveKit(engineer(), input)).toThrow(ForbiddenError);
     const kit = saveKit(admin, input);
     expect(() => saveKit(admin, input)).toThrow(ConflictError);

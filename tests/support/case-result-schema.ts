@@ -42,7 +42,12 @@ export const caseResultSchema = z.strictObject({
       machineId: z.string(),
       quantity: z.number().int(),
       warnings: z.array(z.string()),
-      geometry: z.strictObject({ stepAngleDeg: num, stepsPerRev: num, resolutionDeg: num, electricalCycleDeg: num }),
+      geometry: z.strictObject({
+        stepAngleDeg: num,
+        stepsPerRev: num,
+        resolutionDeg: num,
+        electricalCycleDeg: num,
+      }),
       openLoop: z.strictObject({
         ...loop,
         status: z.enum(["ok", "at-risk", "step-loss"]),
@@ -63,11 +68,20 @@ export const caseResultSchema = z.strictObject({
         stepLossEventsAvoided: num,
       }),
       capex: money,
-      totals: z.strictObject({ capex: money, energySavedKWhPerYear: num, coolingSavedKWhPerYear: num }),
+      totals: z.strictObject({
+        capex: money,
+        energySavedKWhPerYear: num,
+        coolingSavedKWhPerYear: num,
+      }),
     }),
   ),
   machines: z.array(
-    z.strictObject({ id: z.string(), throughputGainPct: num, throughputPerYear: money, warnings: z.array(z.string()) }),
+    z.strictObject({
+      id: z.string(),
+      throughputGainPct: num,
+      throughputPerYear: money,
+      warnings: z.array(z.string()),
+    }),
   ),
   totals: z.strictObject({
     capex: money,
@@ -83,7 +97,15 @@ export const caseResultSchema = z.strictObject({
   scenarios: z.strictObject({ physics: scenario, bandLow: scenario, bandHigh: scenario }),
   sensitivity: z.array(
     z.strictObject({
-      driver: z.enum(["tariff", "hoursPerYear", "loadTorque", "kitPrice", "laborRate", "stepLossEvents", "discountRate"]),
+      driver: z.enum([
+        "tariff",
+        "hoursPerYear",
+        "loadTorque",
+        "kitPrice",
+        "laborRate",
+        "stepLossEvents",
+        "discountRate",
+      ]),
       low: z.strictObject({ npv: money, paybackYears: nullableNum }),
       high: z.strictObject({ npv: money, paybackYears: nullableNum }),
     }),

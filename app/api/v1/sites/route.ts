@@ -4,7 +4,13 @@ import { listSites } from "@/db/queries/sites";
 import { withApi } from "@/lib/api/handler";
 import { requireRole } from "@/lib/auth";
 
-const query = z.object({ accountId: z.coerce.number().int().positive("accountId must be a positive whole number").optional() });
+const query = z.object({
+  accountId: z.coerce
+    .number()
+    .int()
+    .positive("accountId must be a positive whole number")
+    .optional(),
+});
 
 export const GET = withApi(async (request: Request) => {
   const caller = await requireRole("engineer", "manager", "admin");

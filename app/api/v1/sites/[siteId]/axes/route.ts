@@ -11,9 +11,11 @@ const query = z.object({
 });
 
 // A site's axes with every field in SI units (N·m, A, Ω, mH, V, rpm), in pages of up to 5,000.
-export const GET = withApi(async (request: Request, context: { params: Promise<{ siteId: string }> }) => {
-  const caller = await requireRole("engineer", "manager", "admin");
-  const siteId = idFromRoute((await context.params).siteId);
-  const { offset, limit } = query.parse(Object.fromEntries(new URL(request.url).searchParams));
-  return NextResponse.json(listAxesForExport(caller, siteId, offset, limit));
-});
+export const GET = withApi(
+  async (request: Request, context: { params: Promise<{ siteId: string }> }) => {
+    const caller = await requireRole("engineer", "manager", "admin");
+    const siteId = idFromRoute((await context.params).siteId);
+    const { offset, limit } = query.parse(Object.fromEntries(new URL(request.url).searchParams));
+    return NextResponse.json(listAxesForExport(caller, siteId, offset, limit));
+  },
+);

@@ -1,0 +1,8 @@
+import type { ReactNode } from "react";
+import { requirePageUser } from "@/lib/auth";
+
+// Checked in the layout, outside the page's loading boundary, so that other roles get a real 404.
+export default async function CatalogueLayout({ children }: { children: ReactNode }) {
+  await requirePageUser("engineer", "manager", "admin");
+  return children;
+}
