@@ -15,7 +15,7 @@ import {
   SelectField,
   TextField,
   asNumber,
-} from "./form-parts";
+} from "@/components/ui/form-fields";
 
 type KitFormValues = z.input<typeof kitInputSchema>;
 

@@ -17,7 +17,7 @@ import {
   TextField,
   TorqueField,
   asNumber,
-} from "./form-parts";
+} from "@/components/ui/form-fields";
 
 // The form always sends the torque with its unit; the schema also takes a bare N·m number,
 // which the form never produces.

@@ -1,14 +1,10 @@
 "use client";
 
 import type { FieldValues, Path, UseFormRegister } from "react-hook-form";
-import { TORQUE_UNIT_NAMES } from "@/lib/engine/units";
-import { Field, Input, Select } from "./field";
+import { asNumber, NumberField as NumberInput, TorqueField as TorqueInput } from "./form-fields";
 
-// An empty box means "not given" (undefined) so that zod applies the default or says the field
-// is required, instead of reading NaN.
-export const asNumber = (v: unknown) =>
-  v === "" || v === null || v === undefined ? undefined : Number(v);
-
+// react-hook-form bindings for the shared number and torque inputs: the field's name gives its
+// id, and an empty box reads as "not given" so zod applies the default or says it is required.
 type Props<T extends FieldValues> = {
   register: UseFormRegister<T>;
   name: Path<T>;
@@ -19,6 +15,8 @@ type Props<T extends FieldValues> = {
   step?: string;
 };
 
+const idFor = (name: string) => `f-${name.replace(/\./g, "-")}`;
+
 export function NumberField<T extends FieldValues>({
   register,
   name,
@@ -26,20 +24,17 @@ export function NumberField<T extends FieldValues>({
   unit,
   hint,
   error,
-  step = "any",
+  step,
 }: Props<T>) {
-  const id = `f-${name.replace(/\./g, "-")}`;
   return (
-    <Field id={id} label={unit ? `${label} [${unit}]` : label} hint={hint} error={error}>
-      <Input
-        id={id}
-        type="number"
-        inputMode="decimal"
-        step={step}
-        invalid={!!error}
-        {...register(name, { setValueAs: asNumber })}
-      />
-    </Field>
+    <NumberInput
+      id={idFor(name)}
+      label={unit ? `${label} [${unit}]` : label}
+      hint={hint ?? ""}
+      error={error}
+      step={step}
+      registration={register(name, { setValueAs: asNumber })}
+    />
   );
 }
 
@@ -51,30 +46,14 @@ export function TorqueField<T extends FieldValues>({
   hint,
   error,
 }: Omit<Props<T>, "unit" | "step">) {
-  const id = `f-${name.replace(/\./g, "-")}`;
   return (
-    <Field id={`${id}-value`} label={label} hint={hint} error={error}>
-      <div className="flex gap-2">
-        <Input
-          id={`${id}-value`}
-          type="number"
-          inputMode="decimal"
-          step="any"
-          invalid={!!error}
-          className="min-w-0 flex-1"
-          {...register(`${name}.value` as Path<T>, { setValueAs: asNumber })}
-        />
-        <label htmlFor={`${id}-unit`} className="sr-only">
-          Unit of {label.toLowerCase()}
-        </label>
-        <Select id={`${id}-unit`} className="w-28" {...register(`${name}.unit` as Path<T>)}>
-          {TORQUE_UNIT_NAMES.map((u) => (
-            <option key={u} value={u}>
-              {u}
-            </option>
-          ))}
-        </Select>
-      </div>
-    </Field>
+    <TorqueInput
+      id={`${idFor(name)}-value`}
+      label={label}
+      hint={hint ?? ""}
+      error={error}
+      value={register(`${name}.value` as Path<T>, { setValueAs: asNumber })}
+      unit={register(`${name}.unit` as Path<T>)}
+    />
   );
 }
