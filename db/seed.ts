@@ -5,6 +5,7 @@ import { hashPassword } from "../lib/auth/password";
 import { DEMO_PASSWORD, DEMO_USERS } from "./demo/users";
 import { DEMO_KITS, DEMO_MOTORS } from "./demo/catalogue";
 import { DEMO_SITES, demoAxesFor, seededRandom } from "./demo/installed-base";
+import { seedDemoCases } from "./demo/cases";
 import { accounts, accountShares, axes, kits, machines, motors, sites, users } from "./schema";
 
 export const DEMO_ACCOUNTS = [
@@ -53,6 +54,7 @@ export function seedDatabase(db: Db): boolean {
       tx,
       new Map(DEMO_ACCOUNTS.map((a, i) => [a.name, accountIds[i]])),
     );
+    seedDemoCases(tx);
   });
   return true;
 }

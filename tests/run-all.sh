@@ -1,19 +1,23 @@
 #!/usr/bin/env bash
 # npm test: unit and integration tests, then end-to-end tests against the built app in Chromium.
+# The workbook test recalculates exported files in LibreOffice Calc; the e2e tests drive Chromium.
+# Both come from Debian: installed here when running as root, otherwise the command is printed.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 
-npx vitest run
-
-if [ ! -x "${CHROMIUM_PATH:-/usr/bin/chromium}" ]; then
+need=()
+command -v soffice >/dev/null 2>&1 || need+=(libreoffice-calc)
+[ -x "${CHROMIUM_PATH:-/usr/bin/chromium}" ] || need+=(chromium)
+if [ ${#need[@]} -gt 0 ]; then
   if [ "$(id -u)" = "0" ]; then
-    echo "Chromium is missing: installing Debian's chromium package for the end-to-end tests."
-    apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+    echo "Installing Debian packages the tests need: ${need[*]}"
+    apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${need[@]}" >/dev/null
   else
-    echo "The end-to-end tests need Debian's Chromium. Install it with:"
-    echo "  sudo apt-get install -y chromium"
+    echo "The tests need Debian packages that are missing. Install them with:"
+    echo "  sudo apt-get install -y ${need[*]}"
     exit 1
   fi
 fi
 
+npx vitest run
 npx vitest run --config vitest.e2e.config.mts

@@ -15,6 +15,7 @@ export function navItemsFor(role: Role): NavItem[] {
     default:
       return [
         { href: "/accounts", label: "Accounts" },
+        { href: "/cases", label: "Cases" },
         { href: "/catalogue", label: "Catalogue" },
       ];
   }

@@ -4,3 +4,4 @@ export * from "./audit";
 export * from "./catalogue";
 export * from "./installed-base";
 export * from "./imports";
+export * from "./cases";

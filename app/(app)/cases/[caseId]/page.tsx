@@ -1,0 +1,70 @@
+import type { Metadata } from "next";
+import { AssumptionsForm } from "@/components/cases/assumptions-form";
+import { CaseAxesEditor } from "@/components/cases/case-axes-editor";
+import { CaseToolbar } from "@/components/cases/case-toolbar";
+import { ProposalsList } from "@/components/cases/proposals-list";
+import { StageBadge } from "@/components/cases/stage-badge";
+import { CaseResults } from "@/components/results/case-results";
+import { Breadcrumbs } from "@/components/ui/breadcrumbs";
+import { PageHeader, Panel } from "@/components/ui/panel";
+import { listAxesForExport } from "@/db/queries/axes";
+import { listKits } from "@/db/queries/catalogue";
+import { getCaseOrThrow, listCaseAxes, listProposals } from "@/db/queries/cases";
+import { getSiteOrThrow } from "@/db/queries/sites";
+import { requirePageUser } from "@/lib/auth";
+import { idParam } from "@/lib/pages";
+
+export const metadata: Metadata = { title: "Case" };
+
+// The picker lists the site's axes in one go; sites of the demo and typical retrofits hold
+// hundreds, and the API pages beyond that.
+const PICKER_LIMIT = 5000;
+
+export default async function CasePage({ params }: { params: Promise<{ caseId: string }> }) {
+  const user = await requirePageUser("engineer", "manager", "admin");
+  const caseId = idParam((await params).caseId);
+  const item = getCaseOrThrow(user, caseId);
+  const site = getSiteOrThrow(user, item.siteId);
+  const caseAxes = listCaseAxes(user, caseId);
+  const siteAxes = listAxesForExport(user, item.siteId, 0, PICKER_LIMIT).axes;
+  const kits = listKits(user).filter((k) => k.currency === site.currency);
+  const proposals = listProposals(user, caseId);
+
+  return (
+    <div className="space-y-6">
+      <Breadcrumbs items={[{ href: "/cases", label: "Cases" }, { label: item.name }]} />
+      <PageHeader
+        title={item.name}
+        lead={`${item.accountName} · ${item.siteName} · owner ${item.ownerName} · ${caseAxes.length} axes`}
+        actions={<StageBadge stage={item.stage} />}
+      />
+      <CaseToolbar caseId={caseId} canFreeze={caseAxes.length > 0} />
+      {caseAxes.length ? <CaseResults caseId={caseId} /> : null}
+      <Panel title="Axes and kits">
+        <CaseAxesEditor
+          caseId={caseId}
+          caseAxes={caseAxes}
+          siteAxes={siteAxes.map((a) => ({
+            id: a.id,
+            label: a.label,
+            machineName: a.machineName,
+            quantity: a.quantity,
+          }))}
+          kits={kits.map((k) => ({
+            id: k.id,
+            code: k.code,
+            name: k.name,
+            price: k.price,
+            currency: k.currency,
+          }))}
+        />
+      </Panel>
+      <Panel title="Assumptions">
+        <AssumptionsForm caseId={caseId} values={item.assumptions} currency={site.currency} />
+      </Panel>
+      <Panel title={`Proposals (${proposals.length})`}>
+        <ProposalsList proposals={proposals} />
+      </Panel>
+    </div>
+  );
+}

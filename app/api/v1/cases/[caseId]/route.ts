@@ -1,0 +1,15 @@
+import { NextResponse } from "next/server";
+import { buildCaseInput, getCaseOrThrow } from "@/db/queries/cases";
+import { withApi } from "@/lib/api/handler";
+import { idFromRoute } from "@/lib/api/params";
+import { requireRole } from "@/lib/auth";
+
+// The case with `input`, the full CaseInput the engine receives for it (ENGINE.md §2).
+export const GET = withApi(
+  async (_request: Request, context: { params: Promise<{ caseId: string }> }) => {
+    const caller = await requireRole("engineer", "manager", "admin");
+    const caseId = idFromRoute((await context.params).caseId);
+    const found = getCaseOrThrow(caller, caseId);
+    return NextResponse.json({ ...found, input: buildCaseInput(caller, caseId) });
+  },
+);

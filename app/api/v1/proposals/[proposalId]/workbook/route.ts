@@ -1,0 +1,36 @@
+import { getProposalOrThrow } from "@/db/queries/cases";
+import { withApi } from "@/lib/api/handler";
+import { idFromRoute } from "@/lib/api/params";
+import { requireRole } from "@/lib/auth";
+import { caseInputSchema } from "@/lib/engine";
+import { buildProposalWorkbook } from "@/lib/workbook";
+
+// A frozen proposal as an .xlsx: built from the input and result stored when it was frozen, so
+// it reads the same whatever happened to the case since.
+export const GET = withApi(
+  async (_request: Request, context: { params: Promise<{ proposalId: string }> }) => {
+    const caller = await requireRole("engineer", "manager", "admin");
+    const proposal = getProposalOrThrow(caller, idFromRoute((await context.params).proposalId));
+    const workbook = await buildProposalWorkbook(
+      caseInputSchema.parse(proposal.input),
+      proposal.result,
+      {
+        title: `${proposal.caseName}: retrofit proposal, version ${proposal.version}`,
+        accountName: proposal.accountName,
+        siteName: proposal.siteName,
+        caseName: proposal.caseName,
+        version: proposal.version,
+        engineVersion: proposal.engineVersion,
+        generatedAt: new Date().toISOString(),
+      },
+    );
+    // An ASCII file name: the header cannot carry the case name's other characters as they are.
+    const base = proposal.caseName.replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "") || "case";
+    return new Response(new Uint8Array(workbook), {
+      headers: {
+        "content-type": "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet",
+        "content-disposition": `attachment; filename="${base}-v${proposal.version}.xlsx"`,
+      },
+    });
+  },
+);

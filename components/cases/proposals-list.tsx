@@ -1,0 +1,58 @@
+import type { ProposalSummary } from "@/db/queries/cases";
+import { Table, Td, Th } from "@/components/ui/table";
+import { formatMoney, formatPayback } from "@/lib/results/format";
+
+// Frozen versions, newest first, each with what changed since the one before.
+export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
+  if (!proposals.length)
+    return (
+      <p className="text-small text-steel-700">
+        No proposal yet. Freeze the case when its figures are ready to send.
+      </p>
+    );
+  return (
+    <Table caption="Proposal versions">
+      <thead>
+        <tr>
+          <Th>Version</Th>
+          <Th>Frozen (UTC)</Th>
+          <Th>By</Th>
+          <Th className="text-right">Capex</Th>
+          <Th className="text-right">NPV (physics)</Th>
+          <Th className="text-right">Payback</Th>
+          <Th>What changed</Th>
+          <Th>Workbook</Th>
+        </tr>
+      </thead>
+      <tbody className="divide-y divide-steel-100">
+        {[...proposals].reverse().map((p) => (
+          <tr key={p.id}>
+            <Td className="font-bold">v{p.version}</Td>
+            <Td className="whitespace-nowrap tabular-nums">
+              {p.createdAt.replace("T", " ").slice(0, 16)}
+            </Td>
+            <Td>{p.createdByName}</Td>
+            <Td className="text-right tabular-nums">{formatMoney(p.capex, p.currency)}</Td>
+            <Td className="text-right tabular-nums">{formatMoney(p.npv, p.currency)}</Td>
+            <Td className="text-right tabular-nums">{formatPayback(p.paybackYears)}</Td>
+            <Td>
+              <ul className="list-disc pl-4 text-small">
+                {p.changes.slice(0, 6).map((c, i) => (
+                  <li key={i}>{c}</li>
+                ))}
+              </ul>
+            </Td>
+            <Td>
+              <a
+                href={`/api/v1/proposals/${p.id}/workbook`}
+                className="font-bold text-flux-700 hover:underline"
+              >
+                .xlsx
+              </a>
+            </Td>
+          </tr>
+        ))}
+      </tbody>
+    </Table>
+  );
+}

@@ -1,0 +1,14 @@
+import { Badge } from "@/components/ui/badge";
+import type { CaseStage } from "@/db/schema/cases";
+
+const TONES: Record<CaseStage, "neutral" | "flux" | "coil" | "success" | "danger"> = {
+  draft: "neutral",
+  modelled: "flux",
+  proposed: "coil",
+  won: "success",
+  lost: "danger",
+};
+
+export function StageBadge({ stage }: { stage: CaseStage }) {
+  return <Badge tone={TONES[stage]}>{stage}</Badge>;
+}

@@ -1,0 +1,133 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import { Badge } from "@/components/ui/badge";
+import { Button } from "@/components/ui/button";
+import { Panel } from "@/components/ui/panel";
+import { Table, Td, Th } from "@/components/ui/table";
+import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { axisRows, type AxisRow } from "@/lib/results/axis-rows";
+import { formatKWh, formatNumber, formatPct } from "@/lib/results/format";
+import type { LoopStatusView } from "@/lib/results/status";
+
+// Long fleets render in pages of this size until the reader asks for all of them.
+const FIRST_ROWS = 50;
+
+/** Per-axis results: each loop's status in words and colour, what the retrofit frees and saves. */
+export function AxisResultsTable({
+  result,
+  input,
+}: {
+  result: CaseResult;
+  input: ParsedCase | null;
+}) {
+  const rows = useMemo(() => axisRows(result, input), [result, input]);
+  const [showAll, setShowAll] = useState(false);
+  const visible = showAll ? rows : rows.slice(0, FIRST_ROWS);
+  return (
+    <Panel title="Results by axis">
+      <p className="mb-3 text-small text-steel-700">
+        Torque, speed and temperature are per unit; energy counts every unit of the axis.
+      </p>
+      <Table caption="Results of each axis: loop status, torque freed, speed headroom, energy saved, temperature drop and warnings">
+        <thead>
+          <tr>
+            <Th>Axis</Th>
+            <Th>Open loop today</Th>
+            <Th>Closed loop</Th>
+            <Th className="text-right">Torque freed [N·m]</Th>
+            <Th className="text-right">Speed headroom [%]</Th>
+            <Th className="text-right">Energy saved</Th>
+            <Th className="text-right">Temperature drop [K]</Th>
+            <Th>Warnings</Th>
+          </tr>
+        </thead>
+        <tbody className="divide-y divide-steel-100">
+          {visible.map((row) => (
+            <AxisResultRow key={row.axisId} row={row} />
+          ))}
+        </tbody>
+      </Table>
+      {rows.length > FIRST_ROWS ? (
+        <div className="mt-3">
+          <Button variant="secondary" size="sm" onClick={() => setShowAll((v) => !v)}>
+            {showAll ? `Show the first ${FIRST_ROWS} axes` : `Show all ${rows.length} axes`}
+          </Button>
+        </div>
+      ) : null}
+    </Panel>
+  );
+}
+
+function AxisResultRow({ row }: { row: AxisRow }) {
+  return (
+    <tr className="align-top">
+      <Td className="min-w-40 align-top">
+        <span className="font-bold">{row.label}</span>
+        <span className="block text-caption text-steel-600">
+          {row.machineName} · {row.axisId}
+          {row.quantity > 1 ? ` · ${row.quantity} units` : ""}
+        </span>
+      </Td>
+      <Td className="align-top">
+        <LoopStatus status={row.openLoop} />
+      </Td>
+      <Td className="align-top">
+        <LoopStatus status={row.closedLoop} />
+      </Td>
+      <Td className="min-w-28 text-right align-top tabular-nums">
+        {formatNumber(row.torqueFreedNm, 3)}
+        <span className="block text-caption text-steel-600">
+          {row.torqueFreedPct === null
+            ? "no usable torque today"
+            : `${formatPct(row.torqueFreedPct, 0)} more`}
+        </span>
+      </Td>
+      <Td className="text-right align-top tabular-nums">
+        {row.speedHeadroomPct === null ? "—" : formatPct(row.speedHeadroomPct, 0)}
+      </Td>
+      <Td className="min-w-36 text-right align-top tabular-nums">
+        <span className="whitespace-nowrap">{formatKWh(row.energySavedKWhPerYear)}</span>
+        <span className="block text-caption text-steel-600">
+          {row.energyPct === null ? "" : `${formatPct(row.energyPct, 0)} · `}
+          {row.bandText.toLowerCase()}
+        </span>
+      </Td>
+      <Td className="text-right align-top tabular-nums">
+        {row.tempDropK === null ? "—" : formatNumber(row.tempDropK, 0)}
+      </Td>
+      <Td className="min-w-56 align-top">
+        {row.warnings.length === 0 ? (
+          <span className="text-steel-600">None</span>
+        ) : (
+          <ul className="space-y-1.5">
+            {row.warnings.map((w) => (
+              <li key={w.code}>
+                <span className={w.safety ? "font-bold text-danger-700" : "text-steel-900"}>
+                  {w.safety ? "Safety: " : ""}
+                  {w.sentence}
+                </span>
+                {w.caution ? (
+                  <span className="block text-caption text-steel-700">{w.caution}</span>
+                ) : null}
+              </li>
+            ))}
+          </ul>
+        )}
+      </Td>
+    </tr>
+  );
+}
+
+function LoopStatus({ status }: { status: LoopStatusView }) {
+  return (
+    <>
+      <span className="whitespace-nowrap">
+        <Badge tone={status.tone}>{status.words}</Badge>
+      </span>
+      <span className="mt-0.5 block whitespace-nowrap text-caption text-steel-600">
+        {status.detail}
+      </span>
+    </>
+  );
+}

@@ -1,0 +1,183 @@
+"use client";
+
+import { useMemo } from "react";
+import { Badge } from "@/components/ui/badge";
+import { Button } from "@/components/ui/button";
+import { Panel, Skeleton } from "@/components/ui/panel";
+import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { CaseRequestError, useCase, useCaseResult, type CaseId } from "@/lib/hooks/use-case-result";
+import { parseCaseInput } from "@/lib/results/case-view";
+import { AxisResultsTable } from "./axis-results-table";
+import { CashFlowChart } from "./cash-flow-chart";
+import { CautionsPanel } from "./cautions-panel";
+import { EnergyByMachineChart } from "./energy-by-machine-chart";
+import { HeadlineCards } from "./headline-cards";
+import { TornadoChart } from "./tornado-chart";
+import { TorqueSpeedChart } from "./torque-speed-chart";
+import { WindingTemperatureChart } from "./winding-temperature-chart";
+
+/**
+ * The live results of a case. While an edit recomputes, the last result stays on screen under
+ * an "Updating…" badge, so the reader sees the numbers move instead of a blank page.
+ */
+export function CaseResults({ caseId }: { caseId: CaseId }) {
+  const resultQuery = useCaseResult(caseId);
+  const caseQuery = useCase(caseId);
+  const rawInput = caseQuery.data?.input;
+  const input = useMemo(() => parseCaseInput(rawInput), [rawInput]);
+
+  if (resultQuery.data === undefined) {
+    if (resultQuery.isError) {
+      return <ResultsError error={resultQuery.error} onRetry={() => void resultQuery.refetch()} />;
+    }
+    return <CaseResultsSkeleton />;
+  }
+
+  return (
+    <CaseResultsView
+      result={resultQuery.data}
+      input={input}
+      updating={resultQuery.isFetching || caseQuery.isFetching}
+      inputState={caseQuery.isError ? "failed" : caseQuery.data === undefined ? "loading" : "ready"}
+      staleError={resultQuery.isError ? resultQuery.error : null}
+      onRetry={() => {
+        void resultQuery.refetch();
+        if (caseQuery.isError) void caseQuery.refetch();
+      }}
+    />
+  );
+}
+
+/** The results themselves, from a result and its input; also what a frozen proposal shows. */
+export function CaseResultsView({
+  result,
+  input,
+  updating = false,
+  inputState = "ready",
+  staleError = null,
+  onRetry,
+}: {
+  result: CaseResult;
+  input: ParsedCase | null;
+  updating?: boolean;
+  inputState?: "loading" | "ready" | "failed";
+  staleError?: Error | null;
+  onRetry?: () => void;
+}) {
+  return (
+    <div className="space-y-6" aria-busy={updating}>
+      <div className="flex min-h-7 flex-wrap items-center justify-between gap-3">
+        <p aria-live="polite" role="status" className="flex items-center gap-2">
+          {updating ? <Badge tone="caution">Updating…</Badge> : null}
+          <span className="text-caption text-steel-600">
+            Engine {result.engineVersion} · amounts in {result.currency}
+          </span>
+        </p>
+        {staleError ? (
+          <p role="alert" className="flex items-center gap-2 text-small text-danger-700">
+            The latest change could not be computed; these are the last results.
+            {onRetry ? (
+              <Button variant="secondary" size="sm" onClick={onRetry}>
+                Try again
+              </Button>
+            ) : null}
+          </p>
+        ) : null}
+      </div>
+
+      <HeadlineCards result={result} input={input} />
+
+      <div className="grid gap-6 xl:grid-cols-2">
+        {input ? (
+          <TorqueSpeedChart result={result} input={input} />
+        ) : (
+          <InputPending title="Torque against speed" state={inputState} onRetry={onRetry} />
+        )}
+        <CashFlowChart result={result} input={input} />
+        <EnergyByMachineChart result={result} input={input} />
+        <TornadoChart result={result} input={input} />
+        <WindingTemperatureChart result={result} input={input} />
+        <CautionsPanel result={result} input={input} />
+      </div>
+
+      <AxisResultsTable result={result} input={input} />
+    </div>
+  );
+}
+
+function InputPending({
+  title,
+  state,
+  onRetry,
+}: {
+  title: string;
+  state: "loading" | "ready" | "failed";
+  onRetry?: () => void;
+}) {
+  return (
+    <Panel title={title}>
+      {state === "failed" ? (
+        <div role="alert" className="space-y-3">
+          <p className="text-steel-700">
+            The curves need the case&apos;s axes, which could not be loaded.
+          </p>
+          {onRetry ? (
+            <Button variant="secondary" size="sm" onClick={onRetry}>
+              Try again
+            </Button>
+          ) : null}
+        </div>
+      ) : (
+        <Skeleton className="h-80 w-full" />
+      )}
+    </Panel>
+  );
+}
+
+function ResultsError({ error, onRetry }: { error: Error; onRetry: () => void }) {
+  const notFound = error instanceof CaseRequestError && error.status === 404;
+  return (
+    <div role="alert" className="rounded-panel border border-danger-600 bg-white p-6">
+      <h2 className="text-title text-danger-700">
+        {notFound ? "This case could not be found" : "The results could not be computed"}
+      </h2>
+      <p className="mt-2 text-steel-700">
+        {notFound
+          ? "It may have been removed, or it is not shared with you."
+          : "Your inputs are saved. Try again; if it keeps failing, check the case's inputs for values the engine cannot use."}
+      </p>
+      {notFound ? null : (
+        <Button className="mt-4" onClick={onRetry}>
+          Try again
+        </Button>
+      )}
+    </div>
+  );
+}
+
+/** Grey stand-ins in the shape of the results, while the first result loads. */
+export function CaseResultsSkeleton() {
+  return (
+    <div aria-busy="true" aria-label="Loading results" className="space-y-6">
+      <div className="grid gap-4 md:grid-cols-3">
+        {[0, 1, 2].map((i) => (
+          <div key={i} className="space-y-3 rounded-panel border border-steel-200 bg-white p-5">
+            <Skeleton className="h-5 w-40" />
+            <Skeleton className="h-9 w-48" />
+            {[0, 1, 2, 3, 4, 5].map((j) => (
+              <Skeleton key={j} className="h-4 w-full" />
+            ))}
+          </div>
+        ))}
+      </div>
+      <div className="grid gap-6 xl:grid-cols-2">
+        {[0, 1, 2, 3].map((i) => (
+          <div key={i} className="space-y-3 rounded-panel border border-steel-200 bg-white p-5">
+            <Skeleton className="h-5 w-56" />
+            <Skeleton className="h-72 w-full" />
+          </div>
+        ))}
+      </div>
+    </div>
+  );
+}

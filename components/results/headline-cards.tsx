@@ -1,0 +1,100 @@
+import { Badge } from "@/components/ui/badge";
+import type { CaseResult, ParsedCase } from "@/lib/engine";
+import {
+  formatIrr,
+  formatKWh,
+  formatMoney,
+  formatPayback,
+  formatPct,
+  formatTonnes,
+} from "@/lib/results/format";
+import { scenarioHeadlines, type ScenarioHeadline } from "@/lib/results/scenarios";
+
+const BAND_TONE = { below: "caution", within: "success", above: "flux" } as const;
+const BAND_WORDS = { below: "Below band", within: "Within band", above: "Above band" } as const;
+
+/** The business case at a glance: each scenario's figures in one column, side by side. */
+export function HeadlineCards({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
+  const headlines = scenarioHeadlines(result, input);
+  const horizonYears = result.scenarios.physics.cashFlows.length - 1;
+  return (
+    <section aria-labelledby="headline-title">
+      <h2 id="headline-title" className="sr-only">
+        Headline figures by scenario
+      </h2>
+      <div className="grid gap-4 md:grid-cols-3">
+        {headlines.map((h) => (
+          <ScenarioCard
+            key={h.key}
+            headline={h}
+            currency={result.currency}
+            horizonYears={horizonYears}
+          />
+        ))}
+      </div>
+    </section>
+  );
+}
+
+function ScenarioCard({
+  headline: h,
+  currency,
+  horizonYears,
+}: {
+  headline: ScenarioHeadline;
+  currency: string;
+  horizonYears: number;
+}) {
+  const primary = h.key === "physics";
+  const negative = h.npv.startsWith("-");
+  const titleId = `scenario-${h.key}-title`;
+  return (
+    <article
+      aria-labelledby={titleId}
+      className={`rounded-panel border bg-white p-5 shadow-panel ${primary ? "border-flux-500 ring-1 ring-flux-500" : "border-steel-200"}`}
+    >
+      <header className="flex flex-wrap items-center justify-between gap-2">
+        <h3 id={titleId} className="text-lead">
+          {h.label}
+        </h3>
+        {primary ? <Badge tone="flux">Basis of the proposal</Badge> : <Badge>For comparison</Badge>}
+      </header>
+      <p className="mt-3 text-caption font-bold uppercase tracking-wide text-steel-600">
+        Net present value
+      </p>
+      <p
+        className={`text-display font-black tabular-nums ${negative ? "text-danger-700" : "text-flux-800"}`}
+      >
+        {formatMoney(h.npv, currency)}
+      </p>
+      <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
+        <Row term="Capex" value={formatMoney(h.capex, currency)} />
+        <Row term="Payback" value={formatPayback(h.paybackYears, horizonYears)} />
+        <Row
+          term="Discounted payback"
+          value={formatPayback(h.discountedPaybackYears, horizonYears)}
+        />
+        <Row term="IRR" value={formatIrr(h.irr)} />
+        <Row term="Return on investment" value={formatPct(h.roiPct, 0)} />
+        <Row term="Energy saved" value={formatKWh(h.energySavedKWhPerYear)} />
+        <Row
+          term="CO₂ avoided"
+          value={h.co2TonnesPerYear === null ? "—" : formatTonnes(h.co2TonnesPerYear)}
+        />
+      </dl>
+      <div className="mt-4 border-t border-steel-100 pt-3">
+        {h.band ? <Badge tone={BAND_TONE[h.band]}>{BAND_WORDS[h.band]}</Badge> : null}
+        <p className="mt-1 text-small text-steel-700">{h.bandText}</p>
+      </div>
+    </article>
+  );
+}
+
+function Row({ term, value }: { term: string; value: string }) {
+  return (
+    <>
+      <dt className="text-steel-700">{term}</dt>
+      <dd className="text-right font-bold tabular-nums text-steel-900">{value}</dd>
+    </>
+  );
+}

@@ -1,0 +1,466 @@
+import { createHash } from "node:crypto";
+import { and, asc, desc, eq, getTableColumns, inArray, sql } from "drizzle-orm";
+import { db } from "@/db";
+import {
+  accounts,
+  axes,
+  caseAxes,
+  cases,
+  kits,
+  machines,
+  motors,
+  proposals,
+  sites,
+  users,
+  type Axis,
+  type Proposal,
+} from "@/db/schema";
+import { ENGINE_VERSION, evaluateCase, type CaseInput, type CaseResult } from "@/lib/engine";
+import { assertRole, type SessionUser } from "@/lib/auth/session-user";
+import { ConflictError, NotFoundError } from "@/lib/errors";
+import type { AxisRetrofitInput, CaseAssumptions, CreateCaseInput } from "@/lib/validations/case";
+import { accountScope, INSTALLED_BASE_ROLES } from "./accounts";
+import { recordAudit } from "./audit";
+import {
+  assembleCaseInput,
+  defaultAssumptions,
+  DEFAULT_RETROFIT_TERMS,
+  kitInputOf,
+  kitOptions,
+  suggestKitFor,
+  type CaseAxisRow,
+  type KitOption,
+} from "./case-input";
+import { proposalChanges } from "./proposal-changes";
+import { getSiteOrThrow } from "./sites";
+
+// Cases are reached through their account, like sites: the caller's account scope is in every
+// WHERE. Reviewers see frozen proposals through their own portal, never the working cases.
+function scoped(caller: SessionUser) {
+  assertRole(caller, ...INSTALLED_BASE_ROLES);
+  return accountScope(caller);
+}
+
+const caseColumns = {
+  ...getTableColumns(cases),
+  accountName: accounts.name,
+  siteName: sites.name,
+  ownerName: users.name,
+  // Units, like a site's axis count: an axis row of quantity 4 is four motors to retrofit.
+  axisCount: sql<number>`(select coalesce(sum(${axes.quantity}), 0) from ${caseAxes} inner join ${axes} on ${axes.id} = ${caseAxes.axisId} where ${caseAxes.caseId} = ${cases.id})`,
+  latestVersion: sql<
+    number | null
+  >`(select max(${proposals.version}) from ${proposals} where ${proposals.caseId} = ${cases.id})`,
+};
+
+function caseQuery() {
+  return db
+    .select(caseColumns)
+    .from(cases)
+    .innerJoin(accounts, eq(cases.accountId, accounts.id))
+    .innerJoin(sites, eq(cases.siteId, sites.id))
+    .innerJoin(users, eq(cases.ownerId, users.id));
+}
+
+export type CaseRow = ReturnType<typeof getCaseOrThrow>;
+
+export function listCases(caller: SessionUser) {
+  return caseQuery().where(scoped(caller)).orderBy(desc(cases.updatedAt), desc(cases.id)).all();
+}
+
+export function getCaseOrThrow(caller: SessionUser, id: number) {
+  const row = caseQuery()
+    .where(and(eq(cases.id, id), scoped(caller)))
+    .get();
+  if (!row) throw new NotFoundError("No such case");
+  return row;
+}
+
+// Strictly later than the previous stamp, so two edits within one millisecond still order.
+function touch(caseId: number, previous: string, extra: Partial<typeof cases.$inferInsert> = {}) {
+  const stamp = new Date(Math.max(Date.now(), Date.parse(previous) + 1)).toISOString();
+  db.update(cases)
+    .set({ ...extra, updatedAt: stamp })
+    .where(eq(cases.id, caseId))
+    .run();
+}
+
+export function createCase(caller: SessionUser, input: CreateCaseInput) {
+  const site = getSiteOrThrow(caller, input.siteId);
+  const [row] = db
+    .insert(cases)
+    .values({
+      accountId: site.accountId,
+      siteId: site.id,
+      ownerId: caller.id,
+      name: input.name,
+      assumptions: defaultAssumptions(site),
+    })
+    .returning()
+    .all();
+  recordAudit({
+    actor: caller,
+    action: "case.create",
+    targetType: "case",
+    targetId: row.id,
+    detail: input.name,
+  });
+  return row;
+}
+
+export function updateAssumptions(caller: SessionUser, caseId: number, values: CaseAssumptions) {
+  const found = getCaseOrThrow(caller, caseId);
+  touch(caseId, found.updatedAt, { assumptions: values });
+}
+
+function siteCurrency(siteId: number) {
+  return db.select({ currency: sites.currency }).from(sites).where(eq(sites.id, siteId)).get()!
+    .currency;
+}
+
+function loadKitOptions(currency: string) {
+  return kitOptions(currency, db.select().from(kits).all(), db.select().from(motors).all());
+}
+
+/**
+ * Picks the case's axes from its site. Axes no longer picked leave with their retrofit; new ones
+ * get the engine's suggested kit, or the cheapest active kit when none keeps the margin (the
+ * result then shows the axis undersized, which is what the engineer must see).
+ */
+export function setCaseAxes(caller: SessionUser, caseId: number, axisIds: number[]) {
+  const found = getCaseOrThrow(caller, caseId);
+  const wanted = [...new Set(axisIds)];
+  // Only the wanted rows, in chunks under SQLite's bound-parameter limit: a site may hold tens of
+  // thousands of axes.
+  const siteAxes = new Map<number, Axis>();
+  for (let i = 0; i < wanted.length; i += 500) {
+    for (const a of db
+      .select()
+      .from(axes)
+      .where(and(eq(axes.siteId, found.siteId), inArray(axes.id, wanted.slice(i, i + 500))))
+      .all())
+      siteAxes.set(a.id, a);
+  }
+  // An axis of another site, or of nobody, is not found: the same answer as for a missing one.
+  if (siteAxes.size !== wanted.length) throw new NotFoundError("No such axis on this site");
+
+  const current = new Set(
+    db
+      .select({ axisId: caseAxes.axisId })
+      .from(caseAxes)
+      .where(eq(caseAxes.caseId, caseId))
+      .all()
+      .map((r) => r.axisId),
+  );
+  const keep = new Set(wanted);
+  const removed = [...current].filter((id) => !keep.has(id));
+  const added = wanted.filter((id) => !current.has(id));
+
+  let options: KitOption[] = [];
+  if (added.length) {
+    options = loadKitOptions(siteCurrency(found.siteId));
+    if (options.length === 0)
+      throw new ConflictError(
+        "The catalogue has no active kit priced in this site's currency to propose",
+      );
+  }
+  const newRows = added.map((axisId) => {
+    const choice = suggestKitFor(
+      siteAxes.get(axisId)!,
+      DEFAULT_RETROFIT_TERMS,
+      options,
+      found.assumptions.margins,
+    );
+    return { caseId, axisId, kitId: (choice.kit ?? options[0]).row.id };
+  });
+
+  db.transaction((tx) => {
+    for (let i = 0; i < removed.length; i += 500) {
+      tx.delete(caseAxes)
+        .where(
+          and(eq(caseAxes.caseId, caseId), inArray(caseAxes.axisId, removed.slice(i, i + 500))),
+        )
+        .run();
+    }
+    for (let i = 0; i < newRows.length; i += 500) {
+      tx.insert(caseAxes)
+        .values(newRows.slice(i, i + 500))
+        .run();
+    }
+  });
+  // A draft with axes has been modelled: it now has a result to look at.
+  touch(
+    caseId,
+    found.updatedAt,
+    found.stage === "draft" && wanted.length > 0 ? { stage: "modelled" } : {},
+  );
+  return { added: added.length, removed: removed.length, total: wanted.length };
+}
+
+function caseAxisOrThrow(caseId: number, axisId: number) {
+  const row = db
+    .select()
+    .from(caseAxes)
+    .where(and(eq(caseAxes.caseId, caseId), eq(caseAxes.axisId, axisId)))
+    .get();
+  if (!row) throw new NotFoundError("No such axis in this case");
+  return row;
+}
+
+export function setAxisRetrofit(
+  caller: SessionUser,
+  caseId: number,
+  axisId: number,
+  values: AxisRetrofitInput,
+) {
+  const found = getCaseOrThrow(caller, caseId);
+  const current = caseAxisOrThrow(caseId, axisId);
+  const kit = db.select().from(kits).where(eq(kits.id, values.kitId)).get();
+  // A retired kit may stay where it is already proposed, but is not chosen anew.
+  if (!kit || (!kit.active && kit.id !== current.kitId)) throw new NotFoundError("No such kit");
+  const currency = siteCurrency(found.siteId);
+  if (kit.currency !== currency)
+    throw new ConflictError(
+      `Kit ${kit.code} is priced in ${kit.currency}, this case in ${currency}`,
+    );
+  db.update(caseAxes)
+    .set(values)
+    .where(and(eq(caseAxes.caseId, caseId), eq(caseAxes.axisId, axisId)))
+    .run();
+  touch(caseId, found.updatedAt);
+}
+
+export type KitSuggestionRow = { axisId: number; kitId: number | null; reason: string };
+
+/**
+ * Runs the engine's suggestKit on every axis of the case with the active kits of its currency
+ * and applies each suggestion; an axis for which no kit keeps the margin keeps its kit, and
+ * the reason says why none fits.
+ */
+export function suggestKitsForCase(caller: SessionUser, caseId: number): KitSuggestionRow[] {
+  const found = getCaseOrThrow(caller, caseId);
+  const options = loadKitOptions(siteCurrency(found.siteId));
+  const rows = db
+    .select({ axis: axes, retrofit: caseAxes })
+    .from(caseAxes)
+    .innerJoin(axes, eq(axes.id, caseAxes.axisId))
+    .where(eq(caseAxes.caseId, caseId))
+    .orderBy(asc(axes.id))
+    .all();
+  const suggestions = rows.map(({ axis, retrofit }) => {
+    const choice = suggestKitFor(axis, retrofit, options, found.assumptions.margins);
+    return {
+      axisId: axis.id,
+      kitId: choice.kit?.row.id ?? null,
+      reason: choice.reason,
+      changed: choice.kit != null && choice.kit.row.id !== retrofit.kitId,
+    };
+  });
+  const changes = suggestions.filter((s) => s.changed);
+  if (changes.length) {
+    db.transaction((tx) => {
+      for (const s of changes) {
+        tx.update(caseAxes)
+          .set({ kitId: s.kitId! })
+          .where(and(eq(caseAxes.caseId, caseId), eq(caseAxes.axisId, s.axisId)))
+          .run();
+      }
+    });
+    touch(caseId, found.updatedAt);
+  }
+  return suggestions.map(({ axisId, kitId, reason }) => ({ axisId, kitId, reason }));
+}
+
+// The case's axes with their machine and retrofit, for the case page's tables.
+export function listCaseAxes(caller: SessionUser, caseId: number) {
+  getCaseOrThrow(caller, caseId);
+  return db
+    .select({
+      axisId: axes.id,
+      label: axes.label,
+      quantity: axes.quantity,
+      machineId: machines.id,
+      machineName: machines.name,
+      kitId: kits.id,
+      kitCode: kits.code,
+      kitName: kits.name,
+      kitPrice: kits.price,
+      kitActive: kits.active,
+      discountPct: caseAxes.discountPct,
+      installHours: caseAxes.installHours,
+      commissioningCost: caseAxes.commissioningCost,
+      maintenanceSavingPerYear: caseAxes.maintenanceSavingPerYear,
+    })
+    .from(caseAxes)
+    .innerJoin(axes, eq(axes.id, caseAxes.axisId))
+    .innerJoin(machines, eq(machines.id, axes.machineId))
+    .innerJoin(kits, eq(kits.id, caseAxes.kitId))
+    .where(eq(caseAxes.caseId, caseId))
+    .orderBy(asc(machines.name), asc(axes.label), asc(axes.id))
+    .all();
+}
+
+function inputOf(found: CaseRow): CaseInput {
+  const rows = db
+    .select({ axis: axes, retrofit: caseAxes, kit: kits, kitMotor: motors })
+    .from(caseAxes)
+    .innerJoin(axes, eq(axes.id, caseAxes.axisId))
+    .innerJoin(kits, eq(kits.id, caseAxes.kitId))
+    .leftJoin(motors, eq(motors.id, kits.motorId))
+    .where(eq(caseAxes.caseId, found.id))
+    .orderBy(asc(axes.id))
+    .all();
+  const machineRows = db
+    .select()
+    .from(machines)
+    .where(
+      inArray(
+        machines.id,
+        db
+          .select({ id: axes.machineId })
+          .from(caseAxes)
+          .innerJoin(axes, eq(axes.id, caseAxes.axisId))
+          .where(eq(caseAxes.caseId, found.id)),
+      ),
+    )
+    .all();
+  // Kits repeat over thousands of axes; one KitInput per kit keeps the input small to build.
+  const kitInputs = new Map<number, ReturnType<typeof kitInputOf>>();
+  const axisRows: CaseAxisRow[] = rows.map(({ axis, retrofit, kit, kitMotor }) => {
+    let kitInput = kitInputs.get(kit.id);
+    if (!kitInput) kitInputs.set(kit.id, (kitInput = kitInputOf(kit, kitMotor)));
+    return { axis, kit: kitInput, terms: retrofit };
+  });
+  return assembleCaseInput(siteCurrency(found.siteId), found.assumptions, machineRows, axisRows);
+}
+
+/** The exact CaseInput the engine receives for this case, built from its rows now. */
+export function buildCaseInput(caller: SessionUser, caseId: number): CaseInput {
+  return inputOf(getCaseOrThrow(caller, caseId));
+}
+
+// Results of recent inputs. Keyed by the input itself (a hash of its JSON), not by the case's
+// updatedAt alone: an edit of the site's axes or of a kit in the catalogue changes the input
+// without touching the case, and must not serve a stale result.
+const RESULT_CACHE_LIMIT = 32;
+const resultCache = new Map<number, { fingerprint: string; result: CaseResult }>();
+
+function evaluateCached(caseId: number, input: CaseInput): CaseResult {
+  if (input.axes.length === 0)
+    throw new ConflictError("The case has no axes yet: pick axes from its site to see a result");
+  const fingerprint = createHash("sha256").update(JSON.stringify(input)).digest("base64");
+  const hit = resultCache.get(caseId);
+  if (hit?.fingerprint === fingerprint) return hit.result;
+  const result = evaluateCase(input);
+  resultCache.delete(caseId);
+  resultCache.set(caseId, { fingerprint, result });
+  if (resultCache.size > RESULT_CACHE_LIMIT) resultCache.delete(resultCache.keys().next().value!);
+  return result;
+}
+
+/** evaluateCase(buildCaseInput(caller, caseId)), computed once per distinct input. */
+export function caseResult(caller: SessionUser, caseId: number): CaseResult {
+  return evaluateCached(caseId, buildCaseInput(caller, caseId));
+}
+
+/**
+ * Freezes the case as its next proposal version: the input as the engine received it, its
+ * result and the engine version. Nothing updates a proposal afterwards (the database refuses it).
+ */
+export function freezeProposal(caller: SessionUser, caseId: number): Proposal {
+  const found = getCaseOrThrow(caller, caseId);
+  const input = inputOf(found);
+  const result = evaluateCached(caseId, input);
+  const proposal = db.transaction((tx) => {
+    const [{ last }] = tx
+      .select({ last: sql<number | null>`max(${proposals.version})` })
+      .from(proposals)
+      .where(eq(proposals.caseId, caseId))
+      .all();
+    const [row] = tx
+      .insert(proposals)
+      .values({
+        caseId,
+        version: (last ?? 0) + 1,
+        input,
+        result,
+        engineVersion: ENGINE_VERSION,
+        createdById: caller.id,
+      })
+      .returning()
+      .all();
+    return row;
+  });
+  // Sending a proposal moves a case still being modelled to "proposed"; won and lost stay.
+  if (found.stage === "draft" || found.stage === "modelled")
+    touch(caseId, found.updatedAt, { stage: "proposed" });
+  recordAudit({
+    actor: caller,
+    action: "proposal.freeze",
+    targetType: "proposal",
+    targetId: proposal.id,
+    detail: `${found.name} v${proposal.version}`,
+  });
+  return proposal;
+}
+
+export type ProposalSummary = {
+  id: number;
+  caseId: number;
+  version: number;
+  engineVersion: string;
+  createdAt: string;
+  createdById: number;
+  createdByName: string;
+  currency: string;
+  capex: string;
+  npv: string;
+  paybackYears: number | null;
+  changes: string[];
+};
+
+/** The case's proposals, oldest first, each with what changed since the version before. */
+export function listProposals(caller: SessionUser, caseId: number): ProposalSummary[] {
+  getCaseOrThrow(caller, caseId);
+  const rows = db
+    .select({ ...getTableColumns(proposals), createdByName: users.name })
+    .from(proposals)
+    .innerJoin(users, eq(users.id, proposals.createdById))
+    .where(eq(proposals.caseId, caseId))
+    .orderBy(asc(proposals.version))
+    .all();
+  return rows.map((row, i) => ({
+    id: row.id,
+    caseId: row.caseId,
+    version: row.version,
+    engineVersion: row.engineVersion,
+    createdAt: row.createdAt,
+    createdById: row.createdById,
+    createdByName: row.createdByName,
+    currency: row.result.currency,
+    capex: row.result.totals.capex,
+    npv: row.result.scenarios.physics.npv,
+    paybackYears: row.result.scenarios.physics.paybackYears,
+    changes: proposalChanges(i === 0 ? null : rows[i - 1], row, i === 0 ? 0 : rows[i - 1].version),
+  }));
+}
+
+export function getProposalOrThrow(caller: SessionUser, id: number) {
+  const row = db
+    .select({
+      ...getTableColumns(proposals),
+      caseName: cases.name,
+      accountId: cases.accountId,
+      accountName: accounts.name,
+      siteId: cases.siteId,
+      siteName: sites.name,
+    })
+    .from(proposals)
+    .innerJoin(cases, eq(cases.id, proposals.caseId))
+    .innerJoin(accounts, eq(accounts.id, cases.accountId))
+    .innerJoin(sites, eq(sites.id, cases.siteId))
+    .where(and(eq(proposals.id, id), scoped(caller)))
+    .get();
+  if (!row) throw new NotFoundError("No such proposal");
+  return row;
+}

@@ -1,0 +1,114 @@
+import {
+  keepPreviousData,
+  useQuery,
+  useQueryClient,
+  type QueryClient,
+} from "@tanstack/react-query";
+import { useCallback, useEffect, useRef } from "react";
+import type { CaseInput, CaseResult } from "@/lib/engine";
+
+/** Case ids are numbers in the database and strings in a URL; the keys use one form. */
+export type CaseId = string | number;
+
+/** One key factory for a case: invalidating `detail(id)` refreshes the case and its result. */
+export const caseKeys = {
+  all: ["cases"] as const,
+  detail: (caseId: CaseId) => [...caseKeys.all, String(caseId)] as const,
+  result: (caseId: CaseId) => [...caseKeys.detail(caseId), "result"] as const,
+};
+
+/** What `GET /api/v1/cases/{id}` answers; the results view needs only the input the engine gets. */
+export interface CaseWithInput {
+  id: CaseId;
+  name?: string;
+  input: CaseInput;
+}
+
+/** A failed request, with its status so that the view can tell "not found" from "try again". */
+export class CaseRequestError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+  ) {
+    super(message);
+    this.name = "CaseRequestError";
+  }
+}
+
+async function getJson<T>(url: string, signal: AbortSignal): Promise<T> {
+  const response = await fetch(url, { signal, headers: { accept: "application/json" } });
+  if (!response.ok) {
+    throw new CaseRequestError(
+      response.status,
+      response.status === 404
+        ? "This case does not exist or is not shared with you."
+        : "The result could not be loaded.",
+    );
+  }
+  return (await response.json()) as T;
+}
+
+const casePath = (caseId: CaseId) => `/api/v1/cases/${encodeURIComponent(String(caseId))}`;
+
+// A missing case will not appear on a second try; anything else may be a passing hiccup.
+const retry = (failures: number, error: Error) =>
+  !(error instanceof CaseRequestError && (error.status === 404 || error.status === 403)) &&
+  failures < 2;
+
+export function useCase(caseId: CaseId) {
+  return useQuery({
+    queryKey: caseKeys.detail(caseId),
+    queryFn: ({ signal }) => getJson<CaseWithInput>(casePath(caseId), signal),
+    placeholderData: keepPreviousData,
+    retry,
+  });
+}
+
+/**
+ * The engine's result of a case. `keepPreviousData` leaves the last result on screen while an
+ * edit is recomputed, so the charts do not blank between keystrokes.
+ */
+export function useCaseResult(caseId: CaseId) {
+  return useQuery({
+    queryKey: caseKeys.result(caseId),
+    queryFn: ({ signal }) => getJson<CaseResult>(`${casePath(caseId)}/result`, signal),
+    placeholderData: keepPreviousData,
+    retry,
+  });
+}
+
+/** After an edit: refetch the case and its result (the key prefix covers both). */
+export function invalidateCase(queryClient: QueryClient, caseId: CaseId) {
+  return queryClient.invalidateQueries({ queryKey: caseKeys.detail(caseId) });
+}
+
+export const INVALIDATE_DEBOUNCE_MS = 400;
+
+/**
+ * A callback for the case forms: each call restarts a 400 ms timer, so a burst of edits asks
+ * the server for one recomputation instead of one per keystroke. A pending refresh still runs
+ * when the form unmounts, so the last edit is never left unshown.
+ */
+export function useDebouncedInvalidate(caseId: CaseId, delayMs = INVALIDATE_DEBOUNCE_MS) {
+  const queryClient = useQueryClient();
+  const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
+
+  useEffect(
+    () => () => {
+      if (timer.current !== null) {
+        clearTimeout(timer.current);
+        timer.current = null;
+        void invalidateCase(queryClient, caseId);
+      }
+    },
+    [queryClient, caseId],
+  );
+
+  return useCallback(() => {
+    if (timer.current !== null) clearTimeout(timer.current);
+    timer.current = setTimeout(() => {
+      timer.current = null;
+      void invalidateCase(queryClient, caseId);
+    }, delayMs);
+  }, [queryClient, caseId, delayMs]);
+}

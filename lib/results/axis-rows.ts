@@ -1,0 +1,61 @@
+import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { axisBandText } from "./band";
+import { namesById } from "./case-view";
+import { loopStatus, type LoopStatusView } from "./status";
+import { explainAnyWarning, type ExplainedWarning } from "./warnings";
+
+export interface AxisRow {
+  axisId: string;
+  label: string;
+  machineName: string;
+  quantity: number;
+  openLoop: LoopStatusView;
+  closedLoop: LoopStatusView;
+  /** Per unit (ENGINE.md §9: per-axis loop figures are for one unit). */
+  torqueFreedNm: number;
+  torqueFreedPct: number | null;
+  speedHeadroomPct: number | null;
+  /** All units of the axis together. */
+  energySavedKWhPerYear: number;
+  energyPct: number | null;
+  bandText: string;
+  tempDropK: number | null;
+  warnings: ExplainedWarning[];
+}
+
+export function axisRows(result: CaseResult, input: ParsedCase | null): AxisRow[] {
+  const names = namesById(input);
+  return result.axes.map((axis) => ({
+    axisId: axis.id,
+    label: names.axis(axis.id),
+    machineName: names.machine(axis.machineId),
+    quantity: axis.quantity,
+    openLoop: loopStatus(axis.openLoop, input?.margins.openLoopRequiredPct ?? null),
+    closedLoop: loopStatus(axis.closedLoop, input?.margins.closedLoopRequiredPct ?? null),
+    torqueFreedNm: axis.savings.torqueFreedNm,
+    torqueFreedPct: axis.savings.torqueFreedPct,
+    speedHeadroomPct: axis.savings.speedHeadroomPct,
+    energySavedKWhPerYear: axis.totals.energySavedKWhPerYear,
+    energyPct: axis.savings.energyPct,
+    bandText: axisBandText(axis.savings.band),
+    tempDropK: axis.savings.tempDropK,
+    warnings: axis.warnings.map(explainAnyWarning),
+  }));
+}
+
+export interface MachineWarningRow {
+  machineId: string;
+  name: string;
+  warnings: ExplainedWarning[];
+}
+
+export function machineWarnings(result: CaseResult, input: ParsedCase | null): MachineWarningRow[] {
+  const names = namesById(input);
+  return result.machines
+    .filter((m) => m.warnings.length > 0)
+    .map((m) => ({
+      machineId: m.id,
+      name: names.machine(m.id),
+      warnings: m.warnings.map(explainAnyWarning),
+    }));
+}

@@ -1,0 +1,99 @@
+import { roundMoney } from "@/lib/engine/money";
+
+/**
+ * Display formatting for the results view. Money arrives as decimal strings (ENGINE.md §1) and is
+ * rounded half-even to the currency's minor unit before Intl sees it, so the screen shows the
+ * same cents as the workbook.
+ */
+
+const LOCALE = "en-GB";
+
+const moneyFormats = new Map<string, Intl.NumberFormat>();
+function moneyFormat(currency: string, compact: boolean): Intl.NumberFormat {
+  const key = `${currency}:${compact}`;
+  let format = moneyFormats.get(key);
+  if (!format) {
+    format = new Intl.NumberFormat(LOCALE, {
+      style: "currency",
+      currency,
+      ...(compact ? { notation: "compact", maximumFractionDigits: 1 } : {}),
+    });
+    moneyFormats.set(key, format);
+  }
+  return format;
+}
+
+// Intl formats a numeric string without passing it through a double (ES2023 Intl.NumberFormat);
+// older engines convert it to a number, which is harmless after rounding to the minor unit.
+const formatNumeric = (format: Intl.NumberFormat, value: string) =>
+  (format.format as unknown as (value: string) => string)(value);
+
+/** "€5,649.10" — rounded to the currency's minor unit. */
+export function formatMoney(amount: string, currency: string): string {
+  return formatNumeric(moneyFormat(currency, false), roundMoney(amount, currency));
+}
+
+/** "€59.6K" — for chart ticks, where full cents would crowd the axis. */
+export function formatMoneyCompact(amount: string | number, currency: string): string {
+  const value = typeof amount === "number" ? String(amount) : roundMoney(amount, currency);
+  return formatNumeric(moneyFormat(currency, true), value);
+}
+
+/** A signed amount: "+€1,200.00" / "−€300.00", for changes against a reference. */
+export function formatMoneyChange(amount: string, currency: string): string {
+  const rounded = roundMoney(amount, currency);
+  if (/^0(\.0*)?$/.test(rounded)) return formatMoney(rounded, currency);
+  const negative = rounded.startsWith("-");
+  const magnitude = formatMoney(negative ? rounded.slice(1) : rounded, currency);
+  return `${negative ? "\u2212" : "+"}${magnitude}`;
+}
+
+/**
+ * A money string as a chart coordinate. Charts place pixels, so a double is enough here; the
+ * figures a reader can copy come from formatMoney.
+ */
+export function moneyToChartNumber(amount: string, currency: string): number {
+  return Number(roundMoney(amount, currency));
+}
+
+export function formatNumber(value: number, fractionDigits = 0): string {
+  return new Intl.NumberFormat(LOCALE, {
+    minimumFractionDigits: fractionDigits,
+    maximumFractionDigits: fractionDigits,
+  }).format(value);
+}
+
+/** "1,234 kWh/yr" */
+export function formatKWh(value: number): string {
+  return `${formatNumber(value, Math.abs(value) < 10 ? 1 : 0)} kWh/yr`;
+}
+
+/** Percentages that are already in percent ("32.7 %"); null reads as a dash with its reason elsewhere. */
+export function formatPct(value: number | null, fractionDigits = 1): string {
+  return value === null ? "—" : `${formatNumber(value, fractionDigits)} %`;
+}
+
+/** The engine's IRR is a rate (0.12 = 12 %). */
+export function formatIrr(irr: number | null): string {
+  return irr === null ? "no rate of return" : formatPct(irr * 100, 1);
+}
+
+/** Payback in years and months, or why there is none within the horizon. */
+export function formatPayback(years: number | null, horizonYears?: number): string {
+  if (years === null) {
+    return horizonYears ? `not within ${horizonYears} years` : "not within the horizon";
+  }
+  if (years === 0) return "immediate";
+  const months = Math.round(years * 12);
+  if (months < 1) return "under 1 month";
+  if (months < 24) return `${months} month${months === 1 ? "" : "s"}`;
+  return `${formatNumber(years, 1)} years`;
+}
+
+export function formatTempC(value: number | null): string {
+  return value === null ? "no steady state" : `${formatNumber(value, 0)} °C`;
+}
+
+export function formatTonnes(value: number): string {
+  return `${formatNumber(value, value < 10 ? 2 : 1)} t CO₂/yr`;
+}

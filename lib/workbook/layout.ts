@@ -1,0 +1,179 @@
+import type ExcelJS from "exceljs";
+
+/**
+ * Where each sheet puts what the others read. The Cash flow sheet has a fixed shape (31 year
+ * rows, since the horizon may be set from 1 to 30 years in the file), so its cells are constants;
+ * the Axes and Assumptions tables grow with the case and report their ranges when written.
+ */
+
+export const SHEET = {
+  summary: "Summary",
+  axes: "Axes",
+  cashFlow: "Cash flow",
+  assumptions: "Assumptions",
+  cautions: "Cautions",
+} as const;
+
+/** Header rows kept in view (and printed on every page) and leading columns kept in view, per sheet. */
+export const FROZEN: Record<(typeof SHEET)[keyof typeof SHEET], { rows: number; columns: number }> =
+  {
+    [SHEET.summary]: { rows: 1, columns: 0 },
+    [SHEET.axes]: { rows: 2, columns: 2 },
+    [SHEET.cashFlow]: { rows: 2, columns: 1 },
+    [SHEET.assumptions]: { rows: 1, columns: 0 },
+    [SHEET.cautions]: { rows: 1, columns: 0 },
+  };
+
+/** The horizon of ENGINE.md §2 is a whole number of years from 1 to 30. */
+export const MAX_HORIZON_YEARS = 30;
+
+export const SCENARIOS = ["physics", "bandLow", "bandHigh"] as const;
+export type ScenarioKey = (typeof SCENARIOS)[number];
+
+/** Spreadsheet column letters of a 1-based index: 1 → A, 27 → AA. */
+export function columnLetter(index: number): string {
+  let n = index;
+  let letters = "";
+  while (n > 0) {
+    const rem = (n - 1) % 26;
+    letters = String.fromCharCode(65 + rem) + letters;
+    n = Math.floor((n - 1) / 26);
+  }
+  return letters;
+}
+
+/** A sheet name as a formula reference prefix: quoted when it holds anything but letters. */
+export function sheetRef(sheet: string): string {
+  return /^[A-Za-z_][A-Za-z0-9_]*$/.test(sheet) ? sheet : `'${sheet.replace(/'/g, "''")}'`;
+}
+
+export function absolute(sheet: string, column: string, row: number): string {
+  return `${sheetRef(sheet)}!$${column}$${row}`;
+}
+
+export function absoluteRange(sheet: string, column: string, first: number, last: number): string {
+  return `${sheetRef(sheet)}!$${column}$${first}:$${column}$${last}`;
+}
+
+/** The Cash flow sheet: years down the rows, three groups of six columns, one per scenario. */
+export const CASH_FLOW = {
+  groupRow: 1,
+  headerRow: 2,
+  /** Row of year t is firstYearRow + t. */
+  firstYearRow: 3,
+  lastYearRow: 3 + MAX_HORIZON_YEARS,
+  yearColumn: "A",
+  tariffColumn: "B",
+  /** First column of each scenario's group. */
+  groupStart: { physics: 3, bandLow: 9, bandHigh: 15 } satisfies Record<ScenarioKey, number>,
+  /** Offsets within a group. */
+  offset: {
+    flow: 0,
+    cumulative: 1,
+    discounted: 2,
+    discountedCumulative: 3,
+    payback: 4,
+    discountedPayback: 5,
+  },
+  groupWidth: 6,
+  resultsTitleRow: 35,
+  results: {
+    saving: 36,
+    npv: 37,
+    irr: 38,
+    payback: 39,
+    discountedPayback: 40,
+    roi: 41,
+    irrGuess: 42,
+  },
+  termsTitleRow: 44,
+  /** The yearly terms are one column: C. */
+  termsColumn: "C",
+  terms: {
+    capex: 45,
+    energySaved: 46,
+    coolingSaved: 47,
+    energyOpenLoop: 48,
+    coolingOpenLoop: 49,
+    reliability: 50,
+    maintenance: 51,
+    throughput: 52,
+    service: 53,
+    recurring: 54,
+  },
+} as const;
+
+export function cashFlowColumn(scenario: ScenarioKey, part: keyof typeof CASH_FLOW.offset): string {
+  return columnLetter(CASH_FLOW.groupStart[scenario] + CASH_FLOW.offset[part]);
+}
+
+export const yearRow = (t: number): number => CASH_FLOW.firstYearRow + t;
+
+/** Scenario part of the defined names: NPV_Physics, NPV_BandLow, NPV_BandHigh. */
+export const SCENARIO_NAME: Record<ScenarioKey, string> = {
+  physics: "Physics",
+  bandLow: "BandLow",
+  bandHigh: "BandHigh",
+};
+
+export const SCENARIO_TITLE: Record<ScenarioKey, string> = {
+  physics: "Physics (the engine's energy model)",
+  bandLow: "Band low (trade claim, low end)",
+  bandHigh: "Band high (trade claim, high end)",
+};
+
+/**
+ * Workbook-level defined names. The formulas of the Cash flow and Summary sheets read the
+ * inputs through these, so that a reviewer sees `Tariff` rather than `Assumptions!$C$2`.
+ */
+export const NAME = {
+  capex: "Capex",
+  energySaved: "EnergySaved_kWh",
+  coolingSaved: "CoolingSaved_kWh",
+  energyOpenLoop: "EnergyOpenLoop_kWh",
+  coolingOpenLoop: "CoolingOpenLoop_kWh",
+  reliability: "Reliability_PerYear",
+  maintenance: "Maintenance_PerYear",
+  throughput: "Throughput_PerYear",
+  recurring: "Recurring_PerYear",
+  tariff: "Tariff",
+  escalation: "TariffEscalation_Pct",
+  discountRate: "DiscountRate_Pct",
+  horizon: "Horizon_Years",
+  laborRate: "LaborRate_PerHour",
+  downtimeCost: "DowntimeCost_PerHour",
+  projectCost: "ProjectOneTimeCost",
+  serviceCost: "AnnualServiceCost",
+  gridFactor: "GridFactor_kgPerKWh",
+  bandLow: "BandLow_Pct",
+  bandHigh: "BandHigh_Pct",
+} as const;
+
+export const scenarioName = (figure: string, scenario: ScenarioKey): string =>
+  `${figure}_${SCENARIO_NAME[scenario]}`;
+
+export function defineName(
+  workbook: ExcelJS.Workbook,
+  name: string,
+  sheet: string,
+  address: { column: string; row: number },
+): void {
+  workbook.definedNames.add(absolute(sheet, address.column, address.row), name);
+}
+
+/** What the Axes sheet reports for the formulas of the Cash flow sheet. */
+export interface AxesRanges {
+  capexTotal: string;
+  energySavedTotal: string;
+  coolingSavedTotal: string;
+  energyOpenLoopTotal: string;
+  coolingOpenLoopTotal: string;
+  reliability: string;
+  maintenance: string;
+}
+
+/** What the Assumptions sheet reports: the machine table's columns that Capex and throughput sum. */
+export interface MachineRanges {
+  downtimeHours: string | null;
+  throughput: string | null;
+}

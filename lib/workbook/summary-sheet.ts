@@ -1,0 +1,200 @@
+import type ExcelJS from "exceljs";
+import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { NOT_APPLICABLE, irrValue, paybackValue, roiValue } from "./cash-flow-values";
+import { coolingOpenLoop } from "./cash-flow-sheet";
+import { FORMATS, currencyFormat, styleHeader, styleTitle } from "./formats";
+import {
+  NAME,
+  SCENARIOS,
+  SCENARIO_TITLE,
+  SHEET,
+  absolute,
+  cashFlowColumn,
+  scenarioName,
+  yearRow,
+  type ScenarioKey,
+} from "./layout";
+import { safeText } from "./safe-text";
+import type { WorkbookMeta } from "./types";
+
+export const SUMMARY_TABLE_HEADER_ROW = 11;
+
+interface Figure {
+  label: string;
+  unit: string;
+  format: string;
+  formula: (s: ScenarioKey, column: string, row: number) => string;
+  value: (s: ScenarioKey) => number | string;
+}
+
+/**
+ * The headline of the three scenarios. Every figure is a formula over the Cash flow sheet (by
+ * its defined names), so the Summary moves when a reviewer changes an input.
+ */
+export function writeSummarySheet(
+  sheet: ExcelJS.Worksheet,
+  input: ParsedCase,
+  result: CaseResult,
+  meta: WorkbookMeta,
+): void {
+  const currency = currencyFormat(input.currency);
+  sheet.getColumn(1).width = 46;
+  for (const c of [2, 3, 4]) sheet.getColumn(c).width = 22;
+  sheet.getColumn(5).width = 16;
+
+  const title = sheet.getCell("A1");
+  title.value = safeText(meta.title);
+  styleTitle(title);
+  const facts: [string, string][] = [
+    ["Account", meta.accountName],
+    ["Site", meta.siteName],
+    ["Case", meta.caseName],
+    ["Proposal version", meta.version === null ? "draft (not frozen)" : String(meta.version)],
+    ["Currency", input.currency],
+    ["Engine version", meta.engineVersion],
+    ["Generated at", meta.generatedAt],
+    ["Axes (units)", `${input.axes.length} (${input.axes.reduce((n, a) => n + a.quantity, 0)})`],
+  ];
+  facts.forEach(([label, value], i) => {
+    sheet.getCell(2 + i, 1).value = label;
+    sheet.getCell(2 + i, 2).value = safeText(value);
+  });
+
+  const header = sheet.getRow(SUMMARY_TABLE_HEADER_ROW);
+  header.values = ["Figure", ...SCENARIOS.map((s) => SCENARIO_TITLE[s]), "Unit"];
+  styleHeader(header);
+  header.height = 30;
+
+  const { scenarios, totals } = result;
+  const savingValue = (s: ScenarioKey) =>
+    s === "physics"
+      ? totals.energySavedKWhPerYear + totals.coolingSavedKWhPerYear
+      : ((s === "bandLow" ? input.band.lowPct : input.band.highPct) / 100) *
+        (totals.energyOpenLoopKWhPerYear + coolingOpenLoop(result, input));
+  const cashFlowCell = (s: ScenarioKey, row: number) =>
+    absolute(SHEET.cashFlow, cashFlowColumn(s, "flow"), row);
+
+  const figures: Figure[] = [
+    {
+      label: "Capex",
+      unit: input.currency,
+      format: currency,
+      formula: () => NAME.capex,
+      value: () => Number(totals.capex),
+    },
+    {
+      label: "Energy saving counted (drives and cooling)",
+      unit: "kWh/yr",
+      format: FORMATS.kWh,
+      formula: (s) => `${scenarioName("Saving", s)}_kWh`,
+      value: savingValue,
+    },
+    {
+      label: "CO₂ avoided",
+      unit: "t/yr",
+      format: FORMATS.physics,
+      formula: (_s, column, row) => `${column}${row - 1}*${NAME.gridFactor}/1000`,
+      value: (s) => (savingValue(s) * input.finance.gridKgCo2PerKWh) / 1000,
+    },
+    {
+      label: "Cash flow in year 1",
+      unit: input.currency,
+      format: currency,
+      formula: (s) => cashFlowCell(s, yearRow(1)),
+      value: (s) => Number(scenarios[s].cashFlows[1]),
+    },
+    {
+      label: "NPV",
+      unit: input.currency,
+      format: currency,
+      formula: (s) => scenarioName("NPV", s),
+      value: (s) => Number(scenarios[s].npv),
+    },
+    {
+      label: "IRR",
+      unit: "per year",
+      format: FORMATS.ratio,
+      formula: (s) => scenarioName("IRR", s),
+      value: (s) => irrValue(scenarios[s]),
+    },
+    {
+      label: "Payback, simple",
+      unit: "years",
+      format: FORMATS.years,
+      formula: (s) => scenarioName("Payback", s),
+      value: (s) => paybackValue(scenarios[s].paybackYears),
+    },
+    {
+      label: "Payback, discounted",
+      unit: "years",
+      format: FORMATS.years,
+      formula: (s) => scenarioName("DiscountedPayback", s),
+      value: (s) => paybackValue(scenarios[s].discountedPaybackYears),
+    },
+    {
+      label: "ROI over the horizon",
+      unit: "%",
+      format: FORMATS.pct2,
+      formula: (s) => scenarioName("ROI", s),
+      value: (s) => roiValue(scenarios[s].roiPct),
+    },
+  ];
+  figures.forEach((f, i) => {
+    const row = SUMMARY_TABLE_HEADER_ROW + 1 + i;
+    sheet.getCell(row, 1).value = f.label;
+    SCENARIOS.forEach((s, j) => {
+      const cell = sheet.getCell(row, 2 + j);
+      cell.value = {
+        formula: f.formula(s, cell.address.replace(/\d+$/, ""), row),
+        result: f.value(s),
+      };
+      cell.numFmt = f.format;
+    });
+    sheet.getCell(row, 5).value = f.unit;
+  });
+
+  writeBandPosition(sheet, input, result, SUMMARY_TABLE_HEADER_ROW + figures.length + 2);
+  sheet.getCell(SUMMARY_TABLE_HEADER_ROW + figures.length + 7, 1).value =
+    "Savings and payback are estimates from the stated assumptions (Assumptions sheet); read the Cautions sheet.";
+}
+
+/** Where the physics lands against the band claimed in the trade (ENGINE.md §6, inclusive ends). */
+function writeBandPosition(
+  sheet: ExcelJS.Worksheet,
+  input: ParsedCase,
+  result: CaseResult,
+  top: number,
+): void {
+  const { energyOpenLoopKWhPerYear: today, energySavedKWhPerYear: saved } = result.totals;
+  const share = today > 0 ? saved / today : NOT_APPLICABLE;
+  const rows: [string, string, number | string, string][] = [
+    ["Drive energy today, open loop (kWh/yr)", NAME.energyOpenLoop, today, FORMATS.kWh],
+    ["Drive energy saved, physics (kWh/yr)", NAME.energySaved, saved, FORMATS.kWh],
+    [
+      "Share of today's drive energy saved",
+      `IF(${NAME.energyOpenLoop}>0,${NAME.energySaved}/${NAME.energyOpenLoop},"${NOT_APPLICABLE}")`,
+      share,
+      FORMATS.ratio,
+    ],
+  ];
+  rows.forEach(([label, formula, value, format], i) => {
+    sheet.getCell(top + i, 1).value = label;
+    const cell = sheet.getCell(top + i, 2);
+    cell.value = { formula, result: value };
+    cell.numFmt = format;
+  });
+  const shareCell = `B${top + 2}`;
+  const position =
+    typeof share !== "number"
+      ? NOT_APPLICABLE
+      : share * 100 < input.band.lowPct
+        ? "below the band"
+        : share * 100 > input.band.highPct
+          ? "above the band"
+          : "within the band";
+  sheet.getCell(top + 3, 1).value = "Against the band claimed in the trade";
+  sheet.getCell(top + 3, 2).value = {
+    formula: `IF(ISNUMBER(${shareCell}),IF(${shareCell}*100<${NAME.bandLow},"below the band",IF(${shareCell}*100>${NAME.bandHigh},"above the band","within the band")),"${NOT_APPLICABLE}")`,
+    result: position,
+  };
+}

@@ -1,0 +1,160 @@
+import ExcelJS from "exceljs";
+import { describe, expect, it } from "vitest";
+import fixtureCase from "@/tests/fixtures/engine-case.json";
+import handCase from "@/tests/fixtures/engine-hand-case.json";
+import {
+  caseInputSchema,
+  evaluateCase,
+  evaluateParsedCase,
+  type CaseResult,
+  type Scenario,
+} from "@/lib/engine";
+import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
+import {
+  cachedFormulaValues,
+  definedNameTarget,
+  definedNameValue,
+  recalculateWithLibreOffice,
+  sofficeVersion,
+  withoutCachedFormulaValues,
+  xlsxParts,
+} from "@/tests/support/libreoffice";
+
+const META = {
+  title: "Retrofit proposal",
+  accountName: "Invented packaging plant",
+  siteName: "Hall 2",
+  caseName: "Cartoner line",
+  version: 1,
+  engineVersion: "1.0.0",
+  generatedAt: "2025-01-15T09:30:00.000Z",
+};
+
+const HYPERLINK_LABEL = '=HYPERLINK("http://example.invalid","open me")';
+
+/** The hand case with a kit so dear that neither payback is reached within the 5-year horizon. */
+function beyondHorizonCase() {
+  const raw = structuredClone(handCase);
+  raw.axes[0].retrofit.kit.price = "20000";
+  raw.axes[0].label = HYPERLINK_LABEL;
+  return raw;
+}
+
+/** Builds the workbook, removes every cached formula value, and has LibreOffice Calc recalculate it. */
+async function recalculated(
+  raw: unknown,
+  edit?: (workbook: ExcelJS.Workbook) => void,
+): Promise<{ result: CaseResult; calc: ExcelJS.Workbook }> {
+  // Without LibreOffice every test fails (none is skipped), with the package to install.
+  sofficeVersion();
+  const input = caseInputSchema.parse(raw);
+  const result = evaluateParsedCase(input);
+  let stripped = await withoutCachedFormulaValues(await buildProposalWorkbook(input, result, META));
+  if (edit) {
+    const workbook = new ExcelJS.Workbook();
+    await workbook.xlsx.load(stripped as unknown as ArrayBuffer);
+    edit(workbook);
+    stripped = Buffer.from(await workbook.xlsx.writeBuffer());
+  }
+  // LibreOffice keeps a value cached beside a formula instead of computing it: none may be left.
+  let formulas = 0;
+  for (const [part, xml] of xlsxParts(stripped)) {
+    if (!part.startsWith("xl/worksheets/")) continue;
+    formulas += (xml.match(/<f[ >]/g) ?? []).length;
+    expect(cachedFormulaValues(xml), part).toEqual([]);
+  }
+  expect(formulas).toBeGreaterThan(600);
+  const calc = new ExcelJS.Workbook();
+  await calc.xlsx.load(recalculateWithLibreOffice(stripped) as unknown as ArrayBuffer);
+  return { result, calc };
+}
+
+const SCENARIO_NAMES: [string, keyof CaseResult["scenarios"]][] = [
+  ["Physics", "physics"],
+  ["BandLow", "bandLow"],
+  ["BandHigh", "bandHigh"],
+];
+
+/** Each defined name against the engine: money to the cent, ratios and years to 1e-9. */
+function expectEngineFigures(calc: ExcelJS.Workbook, result: CaseResult): Record<string, unknown> {
+  const seen: Record<string, unknown> = {};
+  const value = (name: string) => (seen[name] = definedNameValue(calc, name));
+  const money = (name: string, expected: string) => {
+    const v = value(name);
+    expect(typeof v, name).toBe("number");
+    expect(
+      Math.abs((v as number) - Number(expected)),
+      `${name}: Calc ${v}, engine ${expected}`,
+    ).toBeLessThan(0.005);
+  };
+  const close = (name: string, expected: number | null, whenNull: string) => {
+    const v = value(name);
+    if (expected === null) expect(v, name).toBe(whenNull);
+    else {
+      expect(typeof v, `${name}: ${JSON.stringify(v)}`).toBe("number");
+      expect(
+        Math.abs((v as number) - expected),
+        `${name}: Calc ${v}, engine ${expected}`,
+      ).toBeLessThan(1e-9);
+    }
+  };
+  money("Capex", result.totals.capex);
+  close("EnergySaved_kWh", result.totals.energySavedKWhPerYear, "");
+  for (const [suffix, key] of SCENARIO_NAMES) {
+    const s: Scenario = result.scenarios[key];
+    money(`NPV_${suffix}`, s.npv);
+    close(`IRR_${suffix}`, s.irr, "no rate found");
+    close(`Payback_${suffix}`, s.paybackYears, BEYOND_HORIZON);
+    close(`DiscountedPayback_${suffix}`, s.discountedPaybackYears, BEYOND_HORIZON);
+    close(`ROI_${suffix}`, s.roiPct, "n/a");
+  }
+  return seen;
+}
+
+describe("LibreOffice Calc recalculating the exported workbook (REFERENCES.md)", () => {
+  it("reproduces the engine's figures for the engine fixture case (engine-case.json)", async () => {
+    const { result, calc } = await recalculated(fixtureCase);
+    const seen = expectEngineFigures(calc, result);
+    console.info("engine-case.json, LibreOffice:", JSON.stringify(seen));
+  }, 180_000);
+
+  it("reproduces the engine's figures for the hand-checked case (engine-hand-case.json)", async () => {
+    const { result, calc } = await recalculated(handCase);
+    const seen = expectEngineFigures(calc, result);
+    console.info("engine-hand-case.json, LibreOffice:", JSON.stringify(seen));
+  }, 180_000);
+
+  it("says the payback lies beyond the horizon when the engine finds none, and keeps a formula-like label as text", async () => {
+    const { result, calc } = await recalculated(beyondHorizonCase());
+    expect(result.scenarios.physics.paybackYears).toBeNull();
+    expect(result.scenarios.physics.discountedPaybackYears).toBeNull();
+    const seen = expectEngineFigures(calc, result);
+    expect(seen.Payback_Physics).toBe(BEYOND_HORIZON);
+    console.info("beyond-horizon case, LibreOffice:", JSON.stringify(seen));
+
+    const label = calc.getWorksheet("Axes")?.getCell("B3");
+    expect(label?.type).toBe(ExcelJS.ValueType.String);
+    expect(label?.value).toBe(HYPERLINK_LABEL);
+  }, 180_000);
+
+  it("moves NPV, IRR and payback as the engine does when a reviewer changes the tariff and the horizon in the file", async () => {
+    const setInput = (workbook: ExcelJS.Workbook, name: string, value: number) => {
+      const { sheet, address } = definedNameTarget(workbook, name);
+      const cell = workbook.getWorksheet(sheet)?.getCell(address);
+      if (!cell) throw new Error(`no cell for ${name}`);
+      cell.value = value;
+    };
+    const { calc } = await recalculated(fixtureCase, (workbook) => {
+      setInput(workbook, "Tariff", 0.48);
+      setInput(workbook, "Horizon_Years", 8);
+      setInput(workbook, "DiscountRate_Pct", 11);
+    });
+    const edited = structuredClone(fixtureCase);
+    Object.assign(edited.finance, { tariffPerKWh: "0.48", horizonYears: 8, discountRatePct: 11 });
+    const seen = expectEngineFigures(calc, evaluateCase(edited));
+    console.info(
+      "engine-case.json with tariff 0.48, horizon 8, rate 11 %, LibreOffice:",
+      JSON.stringify(seen),
+    );
+  }, 180_000);
+});

@@ -1,0 +1,113 @@
+import { describe, expect, it } from "vitest";
+import { buildWorkbookOf, formulaOf, sheetOf } from "./fixture-workbook";
+
+// The Cash flow sheet is what a finance reviewer audits: every year of every scenario is a
+// formula over the inputs (ENGINE.md §8), never a typed number.
+describe("Cash flow sheet formulas (ENGINE.md §8)", () => {
+  it("starts each scenario at −Capex and builds every year from saving × tariff plus the other terms", async () => {
+    const { workbook } = await buildWorkbookOf();
+    const sheet = sheetOf(workbook, "Cash flow");
+    for (const [flow, saving] of [
+      ["C", "Saving_Physics_kWh"],
+      ["I", "Saving_BandLow_kWh"],
+      ["O", "Saving_BandHigh_kWh"],
+    ]) {
+      expect(formulaOf(sheet.getCell(`${flow}3`))).toBe("-Capex");
+      for (let t = 1; t <= 30; t++) {
+        const row = 3 + t;
+        expect(sheet.getCell(`A${row}`).value).toBe(t);
+        expect(formulaOf(sheet.getCell(`${flow}${row}`))).toBe(
+          `IF($A${row}<=Horizon_Years,${saving}*$B${row}+Recurring_PerYear,0)`,
+        );
+      }
+    }
+    expect(formulaOf(sheet.getCell("B4"))).toBe("Tariff*(1+TariffEscalation_Pct/100)^($A4-1)");
+  });
+
+  it("accumulates, discounts and finds the payback year by formula", async () => {
+    const { workbook } = await buildWorkbookOf();
+    const sheet = sheetOf(workbook, "Cash flow");
+    expect(formulaOf(sheet.getCell("D5"))).toBe("D4+C5");
+    expect(formulaOf(sheet.getCell("E5"))).toBe("C5/(1+DiscountRate_Pct/100)^$A5");
+    expect(formulaOf(sheet.getCell("F5"))).toBe("F4+E5");
+    expect(formulaOf(sheet.getCell("G5"))).toBe(
+      'IF(AND($A5<=Horizon_Years,D4<0,D5>=0),$A5-1+(-D4)/C5,"")',
+    );
+    expect(formulaOf(sheet.getCell("H5"))).toBe(
+      'IF(AND($A5<=Horizon_Years,F4<0,F5>=0),$A5-1+(-F4)/E5,"")',
+    );
+    expect(formulaOf(sheet.getCell("C39"))).toBe(
+      'IF(Capex=0,0,IF(COUNT(G4:G33)=0,"beyond the horizon",MIN(G4:G33)))',
+    );
+    expect(formulaOf(sheet.getCell("C40"))).toBe(
+      'IF(Capex=0,0,IF(COUNT(H4:H33)=0,"beyond the horizon",MIN(H4:H33)))',
+    );
+    expect(formulaOf(sheet.getCell("C41"))).toBe('IF(Capex=0,"n/a",100*SUM(C3:C33)/Capex)');
+  });
+
+  it("counts the band scenarios as their fraction of today's drive and cooling energy", async () => {
+    const { workbook } = await buildWorkbookOf();
+    const sheet = sheetOf(workbook, "Cash flow");
+    expect(formulaOf(sheet.getCell("C36"))).toBe("EnergySaved_kWh+CoolingSaved_kWh");
+    expect(formulaOf(sheet.getCell("I36"))).toBe(
+      "BandLow_Pct/100*(EnergyOpenLoop_kWh+CoolingOpenLoop_kWh)",
+    );
+    expect(formulaOf(sheet.getCell("O36"))).toBe(
+      "BandHigh_Pct/100*(EnergyOpenLoop_kWh+CoolingOpenLoop_kWh)",
+    );
+    expect(formulaOf(sheet.getCell("C54"))).toBe("C50+C51+C52-C53");
+  });
+
+  it("gives the Summary's headline figures as formulas over the Cash flow sheet, not typed numbers", async () => {
+    const { workbook } = await buildWorkbookOf();
+    const summary = sheetOf(workbook, "Summary");
+    const rows = new Map<string, number>();
+    summary.eachRow((row, n) => rows.set(String(row.getCell(1).value), n));
+    const row = (label: string) => {
+      const n = rows.get(label);
+      if (n === undefined) throw new Error(`no Summary row "${label}"`);
+      return summary.getRow(n);
+    };
+    expect([2, 3, 4].map((c) => formulaOf(row("NPV").getCell(c)))).toEqual([
+      "NPV_Physics",
+      "NPV_BandLow",
+      "NPV_BandHigh",
+    ]);
+    expect([2, 3, 4].map((c) => formulaOf(row("IRR").getCell(c)))).toEqual([
+      "IRR_Physics",
+      "IRR_BandLow",
+      "IRR_BandHigh",
+    ]);
+    expect(formulaOf(row("Payback, simple").getCell(2))).toBe("Payback_Physics");
+    expect(formulaOf(row("Capex").getCell(2))).toBe("Capex");
+    expect(formulaOf(row("Cash flow in year 1").getCell(3))).toBe("'Cash flow'!$I$4");
+    for (const label of [
+      "Capex",
+      "NPV",
+      "IRR",
+      "Payback, simple",
+      "Payback, discounted",
+      "ROI over the horizon",
+    ])
+      for (const c of [2, 3, 4]) formulaOf(row(label).getCell(c));
+  });
+
+  it("keeps every axis's money as formulas over its own row", async () => {
+    const { workbook } = await buildWorkbookOf();
+    const axes = sheetOf(workbook, "Axes");
+    const headers = axes.getRow(2).values as unknown[];
+    const at = (header: string) => headers.indexOf(header);
+    for (const row of [3, 4, 5]) {
+      for (const header of [
+        "Capex, one unit",
+        "Capex, all units",
+        "Drive energy saved, all units (kWh/yr)",
+        "Step losses avoided, per year",
+      ])
+        formulaOf(axes.getRow(row).getCell(at(header)));
+    }
+    expect(formulaOf(axes.getRow(3).getCell(at("Step losses avoided, per year")))).toMatch(
+      /^IF\([A-Z]+3="undersized",0,/,
+    );
+  });
+});
