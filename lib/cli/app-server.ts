@@ -5,7 +5,8 @@ import { migrateDatabase } from "../../db/migrate";
 import { seedDatabase } from "../../db/seed";
 import { needsBuild } from "./build-check";
 
-export const ROOT = path.resolve(__dirname, "../..");
+// Commands run from the project root (npm scripts, tests, the bundled benchmarks).
+export const ROOT = process.cwd();
 const NEXT_BIN = path.join(ROOT, "node_modules", "next", "dist", "bin", "next");
 
 // Applies the migrations and seeds the demo scenario into an empty database.

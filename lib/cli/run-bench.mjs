@@ -12,6 +12,7 @@ let failed = 0;
 for (const [name, title] of [
   ["bench", "Engine"],
   ["bench-installed-base", "Installed base and import"],
+  ["bench-cases", "Cases: workbook and result route"],
 ]) {
   const outfile = path.join(outDir, `${name}.cjs`);
   await build({
@@ -20,8 +21,8 @@ for (const [name, title] of [
     platform: "node",
     format: "cjs",
     outfile,
-    // better-sqlite3 is a native addon: it stays a require() from node_modules.
-    external: ["better-sqlite3"],
+    // A native addon and a load generator with worker files: both stay require()s from node_modules.
+    external: ["better-sqlite3", "autocannon"],
     alias: { "@": root, "server-only": path.join(root, "lib/cli/server-only-stub.ts") },
     logLevel: "warning",
   });

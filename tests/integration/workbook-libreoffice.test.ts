@@ -9,7 +9,9 @@ import {
   type CaseResult,
   type Scenario,
 } from "@/lib/engine";
+import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
+import { caller } from "../support/callers";
 import {
   cachedFormulaValues,
   definedNameTarget,
@@ -157,4 +159,22 @@ describe("LibreOffice Calc recalculating the exported workbook (REFERENCES.md)",
       JSON.stringify(seen),
     );
   }, 180_000);
+});
+
+describe("LibreOffice Calc recalculating the workbook of every seeded demo case (issue 5)", () => {
+  const manager = caller("manager@example.com");
+  const demo = listCases(manager);
+
+  it("has the four demo cases to check", () => {
+    expect(demo.length).toBeGreaterThanOrEqual(4);
+  });
+
+  it.each(demo.map((c) => [c.name, c.id] as const))(
+    "%s: every defined name equals the engine's figure",
+    async (_name, id) => {
+      const { result, calc } = await recalculated(buildCaseInput(manager, id));
+      expectEngineFigures(calc, result);
+    },
+    180_000,
+  );
 });
