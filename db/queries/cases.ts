@@ -343,24 +343,39 @@ export function buildCaseInput(caller: SessionUser, caseId: number): CaseInput {
 // updatedAt alone: an edit of the site's axes or of a kit in the catalogue changes the input
 // without touching the case, and must not serve a stale result.
 const RESULT_CACHE_LIMIT = 32;
-const resultCache = new Map<number, { fingerprint: string; result: CaseResult }>();
+type CachedResult = {
+  fingerprint: string;
+  result: CaseResult;
+  json?: string;
+};
+const resultCache = new Map<number, CachedResult>();
 
-function evaluateCached(caseId: number, input: CaseInput): CaseResult {
+function evaluateCached(caseId: number, input: CaseInput): CachedResult {
   if (input.axes.length === 0)
     throw new ConflictError("The case has no axes yet: pick axes from its site to see a result");
   const fingerprint = createHash("sha256").update(JSON.stringify(input)).digest("base64");
   const hit = resultCache.get(caseId);
-  if (hit?.fingerprint === fingerprint) return hit.result;
-  const result = evaluateCase(input);
+  if (hit?.fingerprint === fingerprint) return hit;
+  const entry: CachedResult = { fingerprint, result: evaluateCase(input) };
   resultCache.delete(caseId);
-  resultCache.set(caseId, { fingerprint, result });
+  resultCache.set(caseId, entry);
   if (resultCache.size > RESULT_CACHE_LIMIT) resultCache.delete(resultCache.keys().next().value!);
-  return result;
+  return entry;
 }
 
 /** evaluateCase(buildCaseInput(caller, caseId)), computed once per distinct input. */
 export function caseResult(caller: SessionUser, caseId: number): CaseResult {
-  return evaluateCached(caseId, buildCaseInput(caller, caseId));
+  return evaluateCached(caseId, buildCaseInput(caller, caseId)).result;
+}
+
+/**
+ * The result as JSON text, written once per distinct input: a 500-axis result is close to a
+ * megabyte of JSON, which costs more to write again for every request than to keep.
+ */
+export function caseResultJson(caller: SessionUser, caseId: number): string {
+  const entry = evaluateCached(caseId, buildCaseInput(caller, caseId));
+  entry.json ??= JSON.stringify(entry.result);
+  return entry.json;
 }
 
 /**
@@ -370,7 +385,7 @@ export function caseResult(caller: SessionUser, caseId: number): CaseResult {
 export function freezeProposal(caller: SessionUser, caseId: number): Proposal {
   const found = getCaseOrThrow(caller, caseId);
   const input = inputOf(found);
-  const result = evaluateCached(caseId, input);
+  const { result } = evaluateCached(caseId, input);
   const proposal = db.transaction((tx) => {
     const [{ last }] = tx
       .select({ last: sql<number | null>`max(${proposals.version})` })

@@ -1,5 +1,6 @@
 import type { CurvePoint } from "./curves";
 import { torqueConstant } from "./motor";
+import { rpmToRadPerS } from "./units";
 import type { ParsedMotor } from "./schema";
 
 /*
@@ -10,30 +11,10 @@ import type { ParsedMotor } from "./schema";
 export const MAX_SEARCH_RPM = 6000;
 
 /**
- * Per-phase current the bus can drive at speed, back-EMF in phase with the current:
- * (e + R·I)² + (ω_e·L·I)² = V² (ENGINE.md §3).
- */
-export function availableCurrentA(
-  k1: number,
-  resistanceOhm: number,
-  inductanceH: number,
-  rotorTeeth: number,
-  busVoltageV: number,
-  rpm: number,
-): number {
-  const omegaM = (2 * Math.PI * rpm) / 60;
-  const e = k1 * omegaM;
-  const xl = rotorTeeth * omegaM * inductanceH;
-  const a = resistanceOhm * resistanceOhm + xl * xl;
-  const b = 2 * e * resistanceOhm;
-  const c = e * e - busVoltageV * busVoltageV;
-  if (c >= 0) return 0;
-  return (-b + Math.sqrt(b * b - 4 * a * c)) / (2 * a);
-}
-
-/**
  * What the torque model needs about one motor on one drive once the hot resistance is known,
- * as plain numbers: the max-speed search evaluates it about forty times per axis.
+ * as plain numbers: the max-speed search evaluates it about forty times per axis, so what does
+ * not depend on the speed is worked out once here (each the same expression as in the formula,
+ * so the result is the same to the last bit).
  */
 export interface TorqueModel {
   k1: number;
@@ -45,6 +26,12 @@ export interface TorqueModel {
   busVoltageV: number;
   hysteresisWPerHz: number;
   eddyWPerHz2: number;
+  /** k1·vf: torque per ampere of per-phase current. */
+  torquePerA: number;
+  resistanceSquared: number;
+  busVoltageSquared: number;
+  /** false when P_fe is 0 at every speed, so there is no drag to subtract. */
+  hasIronLoss: boolean;
 }
 
 export function torqueModel(
@@ -56,34 +43,49 @@ export function torqueModel(
     busVoltageV: number;
   },
 ): TorqueModel {
+  const k1 = torqueConstant(motor);
+  const { vectorFactor, resistanceOhm, busVoltageV } = drive;
+  const { hysteresisWPerHz, eddyWPerHz2 } = motor;
   return {
-    k1: torqueConstant(motor),
-    vectorFactor: drive.vectorFactor,
+    k1,
+    vectorFactor,
     currentLimitA: drive.currentLimitA,
-    resistanceOhm: drive.resistanceOhm,
+    resistanceOhm,
     inductanceH: motor.phaseInductanceMh / 1000,
     rotorTeeth: motor.rotorTeeth,
-    busVoltageV: drive.busVoltageV,
-    hysteresisWPerHz: motor.hysteresisWPerHz,
-    eddyWPerHz2: motor.eddyWPerHz2,
+    busVoltageV,
+    hysteresisWPerHz,
+    eddyWPerHz2,
+    torquePerA: k1 * vectorFactor,
+    resistanceSquared: resistanceOhm * resistanceOhm,
+    busVoltageSquared: busVoltageV * busVoltageV,
+    hasIronLoss: hysteresisWPerHz !== 0 || eddyWPerHz2 !== 0,
   };
+}
+
+/**
+ * Per-phase current the bus can drive at ω_m, back-EMF in phase with the current:
+ * (e + R·I)² + (ω_e·L·I)² = V², i.e. the positive root of a·I² + b·I + c = 0 when c < 0, else 0
+ * (ENGINE.md §3).
+ */
+function availableAtA(m: TorqueModel, omegaM: number): number {
+  const e = m.k1 * omegaM;
+  const c = e * e - m.busVoltageSquared;
+  if (c >= 0) return 0;
+  const xl = m.rotorTeeth * omegaM * m.inductanceH;
+  const a = m.resistanceSquared + xl * xl;
+  const b = 2 * e * m.resistanceOhm;
+  return (-b + Math.sqrt(b * b - 4 * a * c)) / (2 * a);
 }
 
 /** T(n) = k1·vf·min(I, I_avail(n)) − T_drag(n), floored at 0 (ENGINE.md §3). */
 export function modelTorqueNm(m: TorqueModel, rpm: number): number {
-  const available = availableCurrentA(
-    m.k1,
-    m.resistanceOhm,
-    m.inductanceH,
-    m.rotorTeeth,
-    m.busVoltageV,
-    rpm,
-  );
-  let torque = m.k1 * m.vectorFactor * Math.min(m.currentLimitA, available);
-  if (rpm > 0) {
+  const omegaM = rpmToRadPerS(rpm);
+  let torque = m.torquePerA * Math.min(m.currentLimitA, availableAtA(m, omegaM));
+  if (rpm > 0 && m.hasIronLoss) {
     // T_drag = P_fe/ω_m with f_e = Nr·n/60 (same as dragTorqueNm, on the flat model).
     const fe = (m.rotorTeeth * rpm) / 60;
-    torque -= (m.hysteresisWPerHz * fe + m.eddyWPerHz2 * fe * fe) / ((2 * Math.PI * rpm) / 60);
+    torque -= (m.hysteresisWPerHz * fe + m.eddyWPerHz2 * fe * fe) / omegaM;
   }
   return torque > 0 ? torque : 0;
 }
@@ -131,23 +133,21 @@ export function maxSpeedRpm(
   requiredPct: number,
   peakTorqueNm: number,
 ): number {
-  if (!covers(capability, 0, requiredPct, peakTorqueNm)) return 0;
-  if (covers(capability, MAX_SEARCH_RPM, requiredPct, peakTorqueNm)) return MAX_SEARCH_RPM;
+  // usableTorqueNm's factor, worked out once for the ~22 steps rather than at each.
+  const share = 1 - requiredPct / 100;
+  if (!covers(capability, 0, share, peakTorqueNm)) return 0;
+  if (covers(capability, MAX_SEARCH_RPM, share, peakTorqueNm)) return MAX_SEARCH_RPM;
   let lo = 0;
   let hi = MAX_SEARCH_RPM;
   while (hi - lo > 0.01) {
     const mid = (lo + hi) / 2;
-    if (covers(capability, mid, requiredPct, peakTorqueNm)) lo = mid;
+    if (covers(capability, mid, share, peakTorqueNm)) lo = mid;
     else hi = mid;
   }
   return lo;
 }
 
-function covers(
-  capability: Capability,
-  rpm: number,
-  requiredPct: number,
-  peakTorqueNm: number,
-): boolean {
-  return usableTorqueNm(capabilityNm(capability, rpm), requiredPct) >= peakTorqueNm;
+/** usable(n) ≥ peak, with usable = T(n)·share as in usableTorqueNm. */
+function covers(capability: Capability, rpm: number, share: number, peakTorqueNm: number): boolean {
+  return capabilityNm(capability, rpm) * share >= peakTorqueNm;
 }

@@ -180,9 +180,9 @@ function axisResult(axis: AxisPhysics, money: AxisMoney): AxisResult {
     openLoop: axis.openLoop,
     closedLoop: axis.closedLoop,
     savings: axis.savings,
-    capex: moneyString(money.capexUnit),
+    capex: money.capexUnitText,
     totals: {
-      capex: moneyString(money.capexTotal),
+      capex: money.capexTotalText,
       energySavedKWhPerYear: axis.quantity * axis.savings.energyKWhPerYear,
       coolingSavedKWhPerYear: axis.quantity * axis.savings.coolingKWhPerYear,
     },

@@ -8,6 +8,9 @@ export interface AxisMoney {
   /** One unit: price after discount + install labor + commissioning. */
   capexUnit: Decimal;
   capexTotal: Decimal;
+  /** capexUnit and capexTotal as the CaseResult prints them, made once per distinct combination. */
+  capexUnitText: string;
+  capexTotalText: string;
   /** quantity·price·(1 − discount): the part the kit-price driver scales. */
   kitTotal: Decimal;
   /** quantity·installHours: the part the labor-rate driver scales. */
@@ -19,21 +22,46 @@ export interface AxisMoney {
 
 const isZeroMoney = (amount: string): boolean => /^\+?0*\.?0*$/.test(amount);
 
+/** The inputs axisMoney reads, in a fixed order: equal tuples give equal money. */
+const moneyInputs = ({ quantity, retrofit, reliability }: ParsedAxis) =>
+  [
+    quantity,
+    retrofit.kit.price,
+    retrofit.discountPct,
+    retrofit.installHours,
+    retrofit.commissioningCost,
+    retrofit.maintenanceSavingPerYear,
+    reliability.stepLossEventsPerYear,
+    reliability.avoidedPct,
+    reliability.costPerEvent,
+  ] as const;
+
+type MoneyMemo = Map<number | string, MoneyMemo | AxisMoney>;
+
 /**
  * The money of every axis. Fleets repeat the same few kits, labor and costs on thousands of
- * axes, so each distinct combination is computed once and shared (Decimals are immutable).
+ * axes, so each distinct combination is computed once and shared (Decimals are immutable). The
+ * memo is a tree of Maps, one level per input, rather than one Map on a joined key: building
+ * and hashing that key string for every axis cost more than the lookups.
  */
 export function axesMoney(axes: readonly ParsedAxis[], laborRatePerHour: Decimal): AxisMoney[] {
-  const memo = new Map<string, AxisMoney>();
+  const memo: MoneyMemo = new Map();
   return axes.map((axis) => {
-    const { retrofit, reliability } = axis;
-    const key =
-      `${axis.quantity}|${retrofit.kit.price}|${retrofit.discountPct}|${retrofit.installHours}|${retrofit.commissioningCost}|` +
-      `${retrofit.maintenanceSavingPerYear}|${reliability.stepLossEventsPerYear}|${reliability.avoidedPct}|${reliability.costPerEvent}`;
-    let money = memo.get(key);
+    const inputs = moneyInputs(axis);
+    let level = memo;
+    for (let k = 0; k < inputs.length - 1; k++) {
+      let next = level.get(inputs[k]) as MoneyMemo | undefined;
+      if (next === undefined) {
+        next = new Map();
+        level.set(inputs[k], next);
+      }
+      level = next;
+    }
+    const last = inputs[inputs.length - 1];
+    let money = level.get(last) as AxisMoney | undefined;
     if (money === undefined) {
       money = axisMoney(axis, laborRatePerHour);
-      memo.set(key, money);
+      level.set(last, money);
     }
     return money;
   });
@@ -61,9 +89,12 @@ export function axisMoney(axis: ParsedAxis, laborRatePerHour: Decimal): AxisMone
           .times(reliability.avoidedPct)
           .div(HUNDRED)
           .times(parseMoney(reliability.costPerEvent));
+  const capexTotal = capexUnit.times(quantity);
   return {
     capexUnit,
-    capexTotal: capexUnit.times(quantity),
+    capexTotal,
+    capexUnitText: moneyString(capexUnit),
+    capexTotalText: moneyString(capexTotal),
     kitTotal: kitUnit.times(quantity),
     laborHoursTotal: laborHoursUnit.times(quantity),
     reliabilityIfServed: served,

@@ -1,5 +1,4 @@
-import { NextResponse } from "next/server";
-import { caseResult } from "@/db/queries/cases";
+import { caseResultJson } from "@/db/queries/cases";
 import { withApi } from "@/lib/api/handler";
 import { idFromRoute } from "@/lib/api/params";
 import { requireRole } from "@/lib/auth";
@@ -9,9 +8,9 @@ export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ caseId: string }> }) => {
     const caller = await requireRole("engineer", "manager", "admin");
     const caseId = idFromRoute((await context.params).caseId);
-    return NextResponse.json(caseResult(caller, caseId), {
+    return new Response(caseResultJson(caller, caseId), {
       // A result follows every edit of the case, its site or the catalogue: never reuse one.
-      headers: { "cache-control": "no-store" },
+      headers: { "content-type": "application/json", "cache-control": "no-store" },
     });
   },
 );
