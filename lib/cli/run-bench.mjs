@@ -14,6 +14,8 @@ for (const [name, title] of [
   ["bench-installed-base", "Installed base and import"],
   ["bench-cases", "Cases: workbook and result route"],
 ]) {
+  // `npm run bench -- bench-cases` runs one of them.
+  if (process.argv[2] && process.argv[2] !== name) continue;
   const outfile = path.join(outDir, `${name}.cjs`);
   await build({
     entryPoints: [path.join(root, `lib/cli/${name}.ts`)],
