@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
+import { axisInputOf, DEFAULT_RETROFIT_TERMS } from "@/db/queries/case-input";
 import { axisInputSchema } from "@/lib/engine";
 import { matchHeaders } from "@/lib/import/headers";
 import { readWorkbook, type SheetData } from "@/lib/import/read";
@@ -359,50 +360,22 @@ describe("header faults", () => {
 });
 
 describe("agreement with the engine's input schema (ENGINE.md §2)", () => {
-  const asEngineAxis = (axis: ValidatedAxis) => ({
-    id: `a${axis.sourceRow}`,
-    label: axis.label,
-    machineId: axis.machineName,
-    quantity: axis.quantity,
-    motor: {
-      rotorTeeth: axis.rotorTeeth,
-      holdingTorqueNm: axis.holdingTorqueNm,
-      ratedCurrentA: axis.ratedCurrentA,
-      phaseResistanceOhm: axis.phaseResistanceOhm,
-      phaseInductanceMh: axis.phaseInductanceMh,
-      thermalResistanceKPerW: axis.thermalResistanceKPerW ?? undefined,
-      ratedTempRiseK: axis.ratedTempRiseK,
-      insulationClass: axis.insulationClass,
-      hysteresisWPerHz: axis.hysteresisWPerHz,
-      eddyWPerHz2: axis.eddyWPerHz2,
-    },
-    drive: {
-      busVoltageV: axis.busVoltageV,
-      currentSettingA: axis.currentSettingA,
-      currentConvention: axis.currentConvention,
-      stepMode: axis.stepMode,
-      microsteps: axis.microsteps,
-      idleCurrentPct: axis.idleCurrentPct,
-      efficiencyPct: axis.driveEfficiencyPct,
-      standbyW: axis.driveStandbyW,
-    },
-    duty: {
-      hoursPerYear: axis.hoursPerYear,
-      movePct: axis.movePct,
-      holdPct: axis.holdPct,
-      speedRpm: axis.speedRpm,
-      loadTorqueNm: axis.loadTorqueNm,
-      peakTorqueNm: axis.peakTorqueNm,
-      holdTorqueNm: axis.holdTorqueNm,
-      ambientC: axis.ambientC,
-    },
-    reliability: {
-      stepLossEventsPerYear: axis.stepLossEventsPerYear,
-      costPerEvent: axis.costPerEvent,
-      avoidedPct: axis.avoidedPct,
-    },
-    retrofit: { kit: { id: "k1", name: "Invented kit", price: "400" } },
-  });
+  // The same row → AxisInput mapping the cases use (db/queries/case-input.ts), so the property
+  // covers the path an imported axis really takes into the engine.
+  const asEngineAxis = ({ sourceRow, machineName: _machine, ...axis }: ValidatedAxis) =>
+    axisInputOf(
+      {
+        ...axis,
+        id: sourceRow,
+        siteId: 1,
+        machineId: 1,
+        referenceMotorId: null,
+        pullOutCurve: null,
+        createdAt: "",
+      },
+      { id: "k1", name: "Invented kit", price: "400" },
+      DEFAULT_RETROFIT_TERMS,
+    );
 
   it("every row of the clean fixtures is a valid engine axis", async () => {
     for (const name of ["clean.csv", "clean.xlsx"]) {
