@@ -74,10 +74,11 @@ export function evaluateParsedCase(input: ParsedCase): CaseResult {
   const bandSaving = (pct: number) =>
     (pct / 100) * (base.energyOpenLoopKWh + base.coolingOpenLoopKWh);
 
-  const valued = new Set(
+  // The gain each machine puts a value on; absent where throughput is worth nothing.
+  const valuedGainPct = new Map(
     input.machines
       .filter((m) => m.throughputGainPct > 0 && !parseMoney(m.marginPerOutputHour).isZero())
-      .map((m) => m.id),
+      .map((m) => [m.id, m.throughputGainPct]),
   );
   const kitTotal = sumShared(money.map((m) => m.kitTotal));
   const laborTotal = sumShared(money.map((m) => m.laborHoursTotal)).times(laborRate);
@@ -96,7 +97,13 @@ export function evaluateParsedCase(input: ParsedCase): CaseResult {
         break;
       case "loadTorque":
         totals = fleetTotals(input, money, (i) =>
-          economicsAtLoad(input.axes[i], physics[i], ctx, f, valued.has(input.axes[i].machineId)),
+          economicsAtLoad(
+            input.axes[i],
+            physics[i],
+            ctx,
+            f,
+            valuedGainPct.get(input.axes[i].machineId),
+          ),
         );
         break;
       case "kitPrice":
