@@ -52,6 +52,7 @@ CREATE TABLE `proposal_comments` (
 	`proposal_id` integer NOT NULL,
 	`author_id` integer NOT NULL,
 	`body` text NOT NULL,
+	`decision` text,
 	`created_at` text DEFAULT (strftime('%Y-%m-%dT%H:%M:%fZ','now')) NOT NULL,
 	FOREIGN KEY (`proposal_id`) REFERENCES `proposals`(`id`) ON UPDATE no action ON DELETE cascade,
 	FOREIGN KEY (`author_id`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action

@@ -38,6 +38,8 @@ export const proposalComments = sqliteTable(
       .notNull()
       .references(() => users.id),
     body: text("body").notNull(),
+    // Set when the comment came with the reviewer's decision, so the thread shows both together.
+    decision: text("decision", { enum: ["accept", "changes", "decline"] }),
     createdAt: text("created_at").notNull().default(now),
   },
   (t) => [index("proposal_comments_proposal_idx").on(t.proposalId, t.createdAt)],
