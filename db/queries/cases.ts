@@ -32,6 +32,7 @@ import {
   type KitOption,
 } from "./case-input";
 import { proposalChanges } from "./proposal-changes";
+import { openQuoteFor } from "./quote-open";
 import { getSiteOrThrow } from "./sites";
 
 // Cases are reached through their account, like sites: the caller's account scope is in every
@@ -380,7 +381,8 @@ export function caseResultJson(caller: SessionUser, caseId: number): string {
 
 /**
  * Freezes the case as its next proposal version: the input as the engine received it, its
- * result and the engine version. Nothing updates a proposal afterwards (the database refuses it).
+ * result and the engine version. Nothing updates a proposal afterwards (the database refuses it);
+ * its sales side starts as a quote ready to send, and replaces the case's older open quotes.
  */
 export function freezeProposal(caller: SessionUser, caseId: number): Proposal {
   const found = getCaseOrThrow(caller, caseId);
@@ -404,6 +406,7 @@ export function freezeProposal(caller: SessionUser, caseId: number): Proposal {
       })
       .returning()
       .all();
+    openQuoteFor(tx, row, found.ownerId);
     return row;
   });
   // Sending a proposal moves a case still being modelled to "proposed"; won and lost stay.

@@ -7,7 +7,14 @@ const now = sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`;
 
 // Where a proposal stands with the customer, in Loopshift's own words (labels in lib/pipeline).
 // "replaced" is an open version that a newer frozen version of the same case took over from.
-export const QUOTE_STAGES = ["ready", "sent", "changes", "accepted", "declined", "replaced"] as const;
+export const QUOTE_STAGES = [
+  "ready",
+  "sent",
+  "changes",
+  "accepted",
+  "declined",
+  "replaced",
+] as const;
 export type QuoteStage = (typeof QUOTE_STAGES)[number];
 
 // The sales side of a frozen proposal: one row per proposal. A proposal's input and result never

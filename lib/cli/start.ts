@@ -20,7 +20,8 @@ async function main() {
   );
   const server = spawnNext(env, dev ? "dev" : "start");
   console.log(`Loopshift on ${env.NEXTAUTH_URL} (database ${env.DATABASE_PATH})`);
-  for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => server.kill(signal));
+  for (const signal of ["SIGINT", "SIGTERM"] as const)
+    process.on(signal, () => server.kill(signal));
   server.on("exit", (code) => {
     void mail.close().finally(() => process.exit(code ?? 0));
   });

@@ -55,7 +55,11 @@ export function invitationMail(args: {
         kind: "paragraph",
         text: `First choose a password for your reviewer account (${args.email}). The link works once and until ${dateText(args.expiresAt)}.`,
       },
-      { kind: "button", label: "Choose a password and open the proposal", href: args.invitationUrl },
+      {
+        kind: "button",
+        label: "Choose a password and open the proposal",
+        href: args.invitationUrl,
+      },
       {
         kind: "note",
         text: "If you did not expect this message, ignore it: nothing happens until the link is used.",

@@ -2,7 +2,13 @@ import "server-only";
 import { count, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { mailQueue } from "@/db/schema";
-import { attemptDelivery, flushQueue, QUEUED_NOTICE, retryDelayMs, type MailDelivery } from "./delivery";
+import {
+  attemptDelivery,
+  flushQueue,
+  QUEUED_NOTICE,
+  retryDelayMs,
+  type MailDelivery,
+} from "./delivery";
 import type { MailContent } from "./layout";
 
 export type { MailDelivery };
