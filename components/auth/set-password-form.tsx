@@ -2,6 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { signIn } from "next-auth/react";
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { acceptInvitationAction } from "@/app/(auth)/invitation/actions";
@@ -11,6 +12,7 @@ import { setPasswordSchema, type SetPasswordInput } from "@/lib/validations/invi
 
 /** The invited reviewer chooses a password once, and is signed in with it straight away. */
 export function SetPasswordForm({ token, email }: { token: string; email: string }) {
+  const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const {
     register,
@@ -37,7 +39,7 @@ export function SetPasswordForm({ token, email }: { token: string; email: string
     });
     if (!signedIn || signedIn.error) {
       setMessage("Your password is set. Sign in with it to open the proposal.");
-      return window.location.assign("/sign-in");
+      return router.push("/sign-in");
     }
     window.location.assign(
       result.data.proposalId ? `/review/proposals/${result.data.proposalId}` : "/review",

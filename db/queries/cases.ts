@@ -10,10 +10,12 @@ import {
   machines,
   motors,
   proposals,
+  quotes,
   sites,
   users,
   type Axis,
   type Proposal,
+  type QuoteStage,
 } from "@/db/schema";
 import { ENGINE_VERSION, evaluateCase, type CaseInput, type CaseResult } from "@/lib/engine";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
@@ -434,6 +436,7 @@ export type ProposalSummary = {
   capex: string;
   npv: string;
   paybackYears: number | null;
+  stage: QuoteStage;
   changes: string[];
 };
 
@@ -441,9 +444,10 @@ export type ProposalSummary = {
 export function listProposals(caller: SessionUser, caseId: number): ProposalSummary[] {
   getCaseOrThrow(caller, caseId);
   const rows = db
-    .select({ ...getTableColumns(proposals), createdByName: users.name })
+    .select({ ...getTableColumns(proposals), createdByName: users.name, stage: quotes.stage })
     .from(proposals)
     .innerJoin(users, eq(users.id, proposals.createdById))
+    .innerJoin(quotes, eq(quotes.proposalId, proposals.id))
     .where(eq(proposals.caseId, caseId))
     .orderBy(asc(proposals.version))
     .all();
@@ -459,6 +463,7 @@ export function listProposals(caller: SessionUser, caseId: number): ProposalSumm
     capex: row.result.totals.capex,
     npv: row.result.scenarios.physics.npv,
     paybackYears: row.result.scenarios.physics.paybackYears,
+    stage: row.stage,
     changes: proposalChanges(i === 0 ? null : rows[i - 1], row, i === 0 ? 0 : rows[i - 1].version),
   }));
 }

@@ -89,3 +89,15 @@ export function pipelineWinRate(
   );
   return { ...winRate(decided), from: period.from, to: period.to };
 }
+
+/** The owners and accounts the caller's quotes have, for the filter choices. */
+export function pipelineFilterOptions(caller: SessionUser) {
+  const rows = listVisibleQuotes(caller, pipelineScope(caller));
+  const owners = new Map(rows.map((r) => [r.ownerId, r.ownerName]));
+  const accounts = new Map(rows.map((r) => [r.accountId, r.accountName]));
+  const byName = (a: { name: string }, b: { name: string }) => a.name.localeCompare(b.name);
+  return {
+    owners: [...owners].map(([id, name]) => ({ id, name })).sort(byName),
+    accounts: [...accounts].map(([id, name]) => ({ id, name })).sort(byName),
+  };
+}

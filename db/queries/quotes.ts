@@ -240,3 +240,53 @@ export function updateQuote(caller: SessionUser, proposalId: number, input: Quot
   });
   return { changes };
 }
+
+/** Who may own a quote of this account, for the manager's owner choice. */
+export function listOwnerOptions(caller: SessionUser, accountId: number) {
+  assertRole(caller, "manager");
+  return db
+    .select({ id: users.id, name: users.name, role: users.role })
+    .from(users)
+    .where(
+      and(
+        eq(users.active, true),
+        or(
+          eq(users.role, "manager"),
+          and(
+            eq(users.role, "engineer"),
+            or(
+              exists(
+                db
+                  .select({ one: sql`1` })
+                  .from(accounts)
+                  .where(and(eq(accounts.id, accountId), eq(accounts.ownerId, users.id))),
+              ),
+              exists(
+                db
+                  .select({ one: sql`1` })
+                  .from(accountShares)
+                  .where(
+                    and(eq(accountShares.accountId, accountId), eq(accountShares.userId, users.id)),
+                  ),
+              ),
+            ),
+          ),
+        ),
+      ),
+    )
+    .orderBy(users.name)
+    .all();
+}
+
+/** The account's reviewers, offered as recipients when a proposal is sent. */
+export function listAccountReviewers(caller: SessionUser, proposalId: number) {
+  const quote = vendorQuoteOrThrow(caller, proposalId);
+  return db
+    .select({ id: users.id, name: users.name, email: users.email })
+    .from(users)
+    .where(
+      and(eq(users.role, "reviewer"), eq(users.accountId, quote.accountId), eq(users.active, true)),
+    )
+    .orderBy(users.name)
+    .all();
+}
