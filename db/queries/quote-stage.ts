@@ -25,7 +25,14 @@ export function setQuoteStage(
   const stamp = new Date().toISOString();
   const decided = stage === "accepted" || stage === "declined";
   tx.update(quotes)
-    .set({ stage, decidedAt: decided ? stamp : null, updatedAt: stamp, ...extra })
+    // A decided quote has closed: its close date becomes the day of the decision.
+    .set({
+      stage,
+      decidedAt: decided ? stamp : null,
+      ...(decided ? { expectedCloseOn: stamp.slice(0, 10) } : {}),
+      updatedAt: stamp,
+      ...extra,
+    })
     .where(eq(quotes.proposalId, quote.id))
     .run();
   const [{ latest }] = tx

@@ -6,7 +6,6 @@ import {
   createCase,
   freezeProposal,
   getCaseOrThrow,
-  listCases,
   setAxisRetrofit,
   setCaseAxes,
   listCaseAxes,

@@ -120,8 +120,18 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
               className="w-44"
             />
           </FilterField>
-          <input type="hidden" name="from" value={period.from} />
-          <input type="hidden" name="to" value={period.to} />
+          <FilterField id="f-from" label="Win rate from">
+            <Input
+              id="f-from"
+              name="from"
+              type="month"
+              defaultValue={period.from}
+              className="w-44"
+            />
+          </FilterField>
+          <FilterField id="f-to" label="Win rate to">
+            <Input id="f-to" name="to" type="month" defaultValue={period.to} className="w-44" />
+          </FilterField>
           <button type="submit" className={buttonClass("secondary")}>
             Apply filters
           </button>
@@ -166,7 +176,7 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                   note="Each quote's value × the chance of its stage"
                   testId="weighted-total"
                 />
-                <WinRateCard rate={rate} period={period} filters={filters} />
+                <WinRateCard rate={rate} period={period} />
               </div>
               <div className="grid gap-6 xl:grid-cols-2">
                 <ValueByStageChart rows={stageRows} currency={t.currency} />
@@ -315,11 +325,9 @@ function Card({
 function WinRateCard({
   rate,
   period,
-  filters,
 }: {
   rate: { won: number; lost: number; ratePct: number | null };
   period: { from: string; to: string };
-  filters: { owner?: number; stage?: string; account?: number; closeMonth?: string };
 }) {
   return (
     <div className="rounded-panel border border-steel-200 bg-white p-5 shadow-panel">
@@ -332,31 +340,8 @@ function WinRateCard({
       </p>
       <p className="mt-1 text-small text-steel-700">
         {rate.won} accepted, {rate.lost} declined, decided {monthLabel(period.from)} –{" "}
-        {monthLabel(period.to)}
+        {monthLabel(period.to)}; the period is set in the filters
       </p>
-      <form
-        method="get"
-        action="/pipeline"
-        className="mt-3 flex flex-wrap items-end gap-2"
-        aria-label="Win rate period"
-      >
-        {Object.entries(filters).map(([k, v]) =>
-          v === undefined || k === "from" || k === "to" ? null : (
-            <input key={k} type="hidden" name={k} value={String(v)} />
-          ),
-        )}
-        <label className="text-caption text-steel-700">
-          From
-          <Input name="from" type="month" defaultValue={period.from} className="w-36" />
-        </label>
-        <label className="text-caption text-steel-700">
-          To
-          <Input name="to" type="month" defaultValue={period.to} className="w-36" />
-        </label>
-        <button type="submit" className={buttonClass("secondary", "sm")}>
-          Show
-        </button>
-      </form>
     </div>
   );
 }

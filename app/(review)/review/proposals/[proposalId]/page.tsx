@@ -60,31 +60,14 @@ export default async function ReviewProposalPage({
             <a href={`/api/v1/proposals/${id}/workbook`} className={buttonClass("secondary")}>
               Download the workbook (.xlsx)
             </a>
+            {decidable ? (
+              <a href="#decision" className={buttonClass("primary")}>
+                Decide
+              </a>
+            ) : null}
           </div>
         }
       />
-
-      <Panel title="Your decision">
-        {decidable ? (
-          <>
-            {quote.stage === "changes" ? (
-              <p className="mb-3 text-small text-steel-700">
-                You asked for changes to this version. You may still accept or decline it as it
-                stands.
-              </p>
-            ) : null}
-            <DecisionForm proposalId={id} />
-          </>
-        ) : (
-          <p className="text-body font-bold text-steel-900">
-            {DECIDED_TEXT[quote.stage as keyof typeof DECIDED_TEXT] ?? ""}
-            {quote.decidedAt ? ` on ${quote.decidedAt.slice(0, 10)}` : ""}.
-            <span className="block font-normal text-steel-700">
-              Write to your supplier in the comments below if anything needs saying.
-            </span>
-          </p>
-        )}
-      </Panel>
 
       <HeadlineCards result={result} input={input} />
 
@@ -110,6 +93,30 @@ export default async function ReviewProposalPage({
       <div className="grid gap-6 xl:grid-cols-2">
         {input ? <AssumptionsList input={input} /> : null}
         <CautionsPanel result={result} input={input} />
+      </div>
+
+      <div id="decision" className="scroll-mt-6">
+        <Panel title="Your decision">
+          {decidable ? (
+            <>
+              {quote.stage === "changes" ? (
+                <p className="mb-3 text-small text-steel-700">
+                  You asked for changes to this version. You may still accept or decline it as it
+                  stands.
+                </p>
+              ) : null}
+              <DecisionForm proposalId={id} />
+            </>
+          ) : (
+            <p className="text-body font-bold text-steel-900">
+              {DECIDED_TEXT[quote.stage as keyof typeof DECIDED_TEXT] ?? ""}
+              {quote.decidedAt ? ` on ${quote.decidedAt.slice(0, 10)}` : ""}.
+              <span className="block font-normal text-steel-700">
+                Write to your supplier in the comments below if anything needs saying.
+              </span>
+            </p>
+          )}
+        </Panel>
       </div>
 
       <Panel title="Questions and comments">
