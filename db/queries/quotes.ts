@@ -218,16 +218,17 @@ export function updateQuote(caller: SessionUser, proposalId: number, input: Quot
         .run();
       changes.push(`owner ${quote.ownerName} → ${newOwner.name}`);
     }
+    // The stage first: a decided stage dates the close to today unless a date is given with it.
+    if (input.stage && input.stage !== quote.stage) {
+      setQuoteStage(tx, quote, input.stage);
+      changes.push(`stage ${STAGE_LABELS[quote.stage]} → ${STAGE_LABELS[input.stage]}`);
+    }
     if (input.expectedCloseOn && input.expectedCloseOn !== quote.expectedCloseOn) {
       tx.update(quotes)
         .set({ expectedCloseOn: input.expectedCloseOn, updatedAt: stamp })
         .where(eq(quotes.proposalId, proposalId))
         .run();
       changes.push(`expected close ${quote.expectedCloseOn} → ${input.expectedCloseOn}`);
-    }
-    if (input.stage && input.stage !== quote.stage) {
-      setQuoteStage(tx, quote, input.stage);
-      changes.push(`stage ${STAGE_LABELS[quote.stage]} → ${STAGE_LABELS[input.stage]}`);
     }
     for (const change of changes)
       recordAudit({
