@@ -7,6 +7,8 @@ export function navItemsFor(role: Role): NavItem[] {
     case "admin":
       return [
         { href: "/admin", label: "Users and audit" },
+        { href: "/admin/sales", label: "Sales settings" },
+        { href: "/admin/outbox", label: "Outbox" },
         { href: "/accounts", label: "Accounts" },
         { href: "/catalogue", label: "Catalogue" },
       ];
@@ -16,6 +18,7 @@ export function navItemsFor(role: Role): NavItem[] {
       return [
         { href: "/accounts", label: "Accounts" },
         { href: "/cases", label: "Cases" },
+        { href: "/pipeline", label: "Pipeline" },
         { href: "/catalogue", label: "Catalogue" },
       ];
   }

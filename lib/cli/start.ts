@@ -1,16 +1,33 @@
-import { ensureBuild, prepareDatabase, spawnNext } from "./app-server";
+import { ensureBuild, prepareDatabase, spawnNext, startLocalMail } from "./app-server";
 import { prepareRuntimeEnv } from "./runtime-env";
 
 // `npm start`: everything on one machine with no configuration — database migrated and seeded,
-// a production build made when missing or stale, then the server on PORT. `--dev` runs next dev.
-const dev = process.argv.includes("--dev");
-const env = prepareRuntimeEnv();
+// a production build made when missing or stale, a local fake SMTP server unless SMTP_URL names a
+// real one, then the server on PORT. `--dev` runs next dev.
+async function main() {
+  const dev = process.argv.includes("--dev");
+  const env = prepareRuntimeEnv();
 
-if (prepareDatabase(env.DATABASE_PATH!))
-  console.log("Seeded the demo data into an empty database.");
-if (!dev) ensureBuild(env);
+  if (prepareDatabase(env.DATABASE_PATH!))
+    console.log("Seeded the demo data into an empty database.");
+  if (!dev) ensureBuild(env);
 
-const server = spawnNext(env, dev ? "dev" : "start");
-console.log(`Loopshift on ${env.NEXTAUTH_URL} (database ${env.DATABASE_PATH})`);
-for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => server.kill(signal));
-server.on("exit", (code) => process.exit(code ?? 0));
+  const mail = await startLocalMail(env, { retry: true });
+  console.log(
+    mail.fake
+      ? `Mail: local fake SMTP server on ${mail.fake.url}; messages land in /admin/outbox`
+      : "Mail: sent through SMTP_URL",
+  );
+  const server = spawnNext(env, dev ? "dev" : "start");
+  console.log(`Loopshift on ${env.NEXTAUTH_URL} (database ${env.DATABASE_PATH})`);
+  for (const signal of ["SIGINT", "SIGTERM"] as const)
+    process.on(signal, () => server.kill(signal));
+  server.on("exit", (code) => {
+    void mail.close().finally(() => process.exit(code ?? 0));
+  });
+}
+
+main().catch((error) => {
+  console.error(error);
+  process.exit(1);
+});

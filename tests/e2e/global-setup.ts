@@ -3,7 +3,7 @@ import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
-import { ensureBuild, prepareDatabase, spawnNext } from "../../lib/cli/app-server";
+import { ensureBuild, prepareDatabase, spawnNext, startLocalMail } from "../../lib/cli/app-server";
 import { prepareRuntimeEnv } from "../../lib/cli/runtime-env";
 
 declare module "vitest" {
@@ -37,7 +37,8 @@ async function waitForServer(url: string, timeoutMs: number) {
   throw new Error(`the app did not answer at ${url} within ${timeoutMs} ms`);
 }
 
-// Builds the app when needed and serves it on a free port over a fresh, seeded database file.
+// Builds the app when needed and serves it on a free port over a fresh, seeded database file,
+// with the local fake SMTP server catching its mail into the outbox table.
 export default async function setup(project: TestProject) {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "loopshift-e2e-"));
   const port = await freePort();
@@ -47,9 +48,11 @@ export default async function setup(project: TestProject) {
     DATABASE_PATH: path.join(dir, "e2e.db"),
     NEXTAUTH_URL: `http://localhost:${port}`,
     LOOPSHIFT_DEMO: "on",
+    SMTP_URL: "",
   });
   ensureBuild(env);
   prepareDatabase(env.DATABASE_PATH!);
+  const mail = await startLocalMail(env);
   const server = spawnNext(env, "start", "pipe");
   let log = "";
   server.stdout?.on("data", (d) => (log += d));
@@ -58,12 +61,14 @@ export default async function setup(project: TestProject) {
     await waitForServer(`${env.NEXTAUTH_URL}/sign-in`, 60_000);
   } catch (error) {
     server.kill();
+    await mail.close();
     console.error(log);
     throw error;
   }
   project.provide("baseUrl", env.NEXTAUTH_URL!);
-  return () => {
+  return async () => {
     server.kill();
+    await mail.close();
     if (process.env.E2E_SERVER_LOG) fs.writeFileSync(process.env.E2E_SERVER_LOG, log);
   };
 }
