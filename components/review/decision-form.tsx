@@ -39,14 +39,14 @@ export function DecisionForm({ proposalId }: { proposalId: number }) {
           tone: "error",
           text: result.fieldErrors.comment ?? result.message,
         });
-      setMessage({
-        tone: "ok",
-        text:
-          result.data.mail.status === "queued"
-            ? `Your decision is recorded. ${result.data.mail.notice}`
-            : "Your decision is recorded and your supplier has been told.",
-      });
-      router.refresh();
+      const text =
+        result.data.mail.status === "queued"
+          ? `Your decision is recorded. ${result.data.mail.notice}`
+          : "Your decision is recorded and your supplier has been told.";
+      setMessage({ tone: "ok", text });
+      // An accept or decline takes this form off the page, and its message with it: the page
+      // repeats the confirmation from the address.
+      router.replace(`?recorded=${result.data.mail.status}#decision`, { scroll: false });
     });
   }
 

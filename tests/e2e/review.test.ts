@@ -42,6 +42,8 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
     await page.waitForURL("**/accounts");
     await page.goto(`${baseUrl()}/proposals/${proposalId}`);
     await page.getByRole("heading", { name: /South hall labellers, version \d/ }).waitFor();
+    // The form submits through React: wait until the page's scripts have loaded and run.
+    await page.waitForLoadState("networkidle");
     const form = page.getByRole("form", { name: "Send to the reviewer" });
     await form.getByLabel("Reviewer's e-mail").fill(REVIEWER);
     await form.getByLabel("Reviewer's name").fill("Pat Controller");

@@ -16,6 +16,7 @@ import { PageHeader, Panel } from "@/components/ui/panel";
 import { listComments } from "@/db/queries/proposal-review";
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { requirePageUser } from "@/lib/auth";
+import { QUEUED_NOTICE } from "@/lib/mail/delivery";
 import { idParam } from "@/lib/pages";
 import { DECIDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
@@ -31,11 +32,15 @@ const DECIDED_TEXT = {
 
 export default async function ReviewProposalPage({
   params,
+  searchParams,
 }: {
   params: Promise<{ proposalId: string }>;
+  searchParams: Promise<{ recorded?: string }>;
 }) {
   const user = await requirePageUser("reviewer");
   const id = idParam((await params).proposalId);
+  // Set by the decision form once a decision is saved: the form itself is gone from the page then.
+  const { recorded } = await searchParams;
   const { quote, input: rawInput, result } = getProposalSnapshotOrThrow(user, id);
   const input = parseCaseInput(rawInput);
   const comments = listComments(user, id);
@@ -108,13 +113,25 @@ export default async function ReviewProposalPage({
               <DecisionForm proposalId={id} />
             </>
           ) : (
-            <p className="text-body font-bold text-steel-900">
-              {DECIDED_TEXT[quote.stage as keyof typeof DECIDED_TEXT] ?? ""}
-              {quote.decidedAt ? ` on ${quote.decidedAt.slice(0, 10)}` : ""}.
-              <span className="block font-normal text-steel-700">
-                Write to your supplier in the comments below if anything needs saying.
-              </span>
-            </p>
+            <>
+              {recorded === "sent" || recorded === "queued" ? (
+                <p
+                  role="status"
+                  className="mb-3 rounded-md bg-flux-50 p-3 text-small text-steel-800"
+                >
+                  {recorded === "sent"
+                    ? "Your decision is recorded and your supplier has been told."
+                    : `Your decision is recorded. ${QUEUED_NOTICE}`}
+                </p>
+              ) : null}
+              <p className="text-body font-bold text-steel-900">
+                {DECIDED_TEXT[quote.stage as keyof typeof DECIDED_TEXT] ?? ""}
+                {quote.decidedAt ? ` on ${quote.decidedAt.slice(0, 10)}` : ""}.
+                <span className="block font-normal text-steel-700">
+                  Write to your supplier in the comments below if anything needs saying.
+                </span>
+              </p>
+            </>
           )}
         </Panel>
       </div>
