@@ -4,14 +4,14 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { saveSalesSettingsAction } from "@/app/(app)/admin/actions";
-import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 import { QUOTE_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import { salesSettingsSchema, type SalesSettingsInput } from "@/lib/validations/pipeline";
+import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
 
 /** The discount threshold and the chance of closing per stage, which weight the pipeline. */
 export function SalesSettingsForm({ values }: { values: SalesSettingsInput }) {
-  const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
+  const [message, setMessage] = useState<FormMessage>(null);
   const {
     register,
     handleSubmit,
@@ -78,18 +78,7 @@ export function SalesSettingsForm({ values }: { values: SalesSettingsInput }) {
           ))}
         </div>
       </fieldset>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? "Saving…" : "Save sales settings"}
-        </Button>
-        <p
-          aria-live="polite"
-          role="status"
-          className={`text-small font-bold ${message?.tone === "error" ? "text-danger-700" : "text-success-700"}`}
-        >
-          {message?.text}
-        </p>
-      </div>
+      <SubmitRow label="Save sales settings" pending={isSubmitting} message={message} />
     </form>
   );
 }

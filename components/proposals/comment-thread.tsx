@@ -3,9 +3,9 @@
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { Badge } from "@/components/ui/badge";
-import { Button } from "@/components/ui/button";
 import type { ActionResult } from "@/lib/actions/result";
 import type { MailDelivery } from "@/lib/mail/delivery";
+import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
 
 export type ThreadComment = {
   id: number;
@@ -38,7 +38,7 @@ export function CommentThread({
 }) {
   const router = useRouter();
   const [body, setBody] = useState("");
-  const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
+  const [message, setMessage] = useState<FormMessage>(null);
   const [pending, start] = useTransition();
 
   function submit(event: React.FormEvent) {
@@ -103,18 +103,14 @@ export function CommentThread({
           placeholder={placeholder}
           className="block w-full rounded-md border border-steel-300 bg-white px-3 py-2 text-body"
         />
-        <div className="flex flex-wrap items-center gap-3">
-          <Button type="submit" variant="secondary" disabled={pending || !body.trim()}>
-            {pending ? "Posting…" : "Post comment"}
-          </Button>
-          <p
-            aria-live="polite"
-            role="status"
-            className={`text-small font-bold ${message?.tone === "error" ? "text-danger-700" : "text-success-700"}`}
-          >
-            {message?.text}
-          </p>
-        </div>
+        <SubmitRow
+          label="Post comment"
+          variant="secondary"
+          pending={pending}
+          pendingLabel="Posting…"
+          disabled={!body.trim()}
+          message={message}
+        />
       </form>
     </div>
   );

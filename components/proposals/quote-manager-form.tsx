@@ -6,6 +6,7 @@ import { approveDiscountAction, updateQuoteAction } from "@/app/(app)/proposals/
 import { Button } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";
 import { QUOTE_STAGES, STAGE_LABELS, type QuoteStage } from "@/lib/pipeline/stages";
+import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
 
 /** A manager's controls on a quote: stage, owner, expected close date. Every change is audited. */
 export function QuoteManagerForm({
@@ -23,7 +24,7 @@ export function QuoteManagerForm({
 }) {
   const router = useRouter();
   const [values, setValues] = useState({ stage, ownerId: String(ownerId), expectedCloseOn });
-  const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
+  const [message, setMessage] = useState<FormMessage>(null);
   const [pending, start] = useTransition();
 
   function submit(event: React.FormEvent) {
@@ -87,18 +88,7 @@ export function QuoteManagerForm({
           />
         </Field>
       </div>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" variant="secondary" disabled={pending}>
-          {pending ? "Saving…" : "Save quote"}
-        </Button>
-        <p
-          aria-live="polite"
-          role="status"
-          className={`text-small font-bold ${message?.tone === "error" ? "text-danger-700" : "text-success-700"}`}
-        >
-          {message?.text}
-        </p>
-      </div>
+      <SubmitRow label="Save quote" variant="secondary" pending={pending} message={message} />
     </form>
   );
 }

@@ -5,9 +5,9 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { sendProposalAction } from "@/app/(app)/proposals/actions";
-import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 import { sendProposalSchema, type SendProposalInput } from "@/lib/validations/pipeline";
+import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
 
 type Reviewer = { id: number; name: string; email: string };
 
@@ -24,9 +24,7 @@ export function SendForm({
   resend: boolean;
 }) {
   const router = useRouter();
-  const [message, setMessage] = useState<{ tone: "ok" | "caution" | "error"; text: string } | null>(
-    null,
-  );
+  const [message, setMessage] = useState<FormMessage>(null);
   const {
     register,
     handleSubmit,
@@ -108,24 +106,12 @@ export function SendForm({
           <Input id="send-name" autoComplete="off" invalid={!!errors.name} {...register("name")} />
         </Field>
       </div>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? "Sending…" : resend ? "Send again" : "Send the proposal"}
-        </Button>
-        <p
-          aria-live="polite"
-          role="status"
-          className={`text-small font-bold ${
-            message?.tone === "error"
-              ? "text-danger-700"
-              : message?.tone === "caution"
-                ? "text-caution-700"
-                : "text-success-700"
-          }`}
-        >
-          {message?.text}
-        </p>
-      </div>
+      <SubmitRow
+        label={resend ? "Send again" : "Send the proposal"}
+        pending={isSubmitting}
+        pendingLabel="Sending…"
+        message={message}
+      />
     </form>
   );
 }

@@ -3,7 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { decideAction } from "@/app/(review)/review/actions";
-import { Button } from "@/components/ui/button";
+import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
 
 const CHOICES = [
   {
@@ -26,7 +26,7 @@ export function DecisionForm({ proposalId }: { proposalId: number }) {
   const router = useRouter();
   const [decision, setDecision] = useState<Decision | null>(null);
   const [comment, setComment] = useState("");
-  const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
+  const [message, setMessage] = useState<FormMessage>(null);
   const [pending, start] = useTransition();
 
   function submit(event: React.FormEvent) {
@@ -89,18 +89,12 @@ export function DecisionForm({ proposalId }: { proposalId: number }) {
           className="block w-full rounded-md border border-steel-300 bg-white px-3 py-2 text-body"
         />
       </div>
-      <div className="flex flex-wrap items-center gap-3">
-        <Button type="submit" disabled={pending}>
-          {pending ? "Sending…" : "Send my decision"}
-        </Button>
-        <p
-          aria-live="polite"
-          role="status"
-          className={`text-small font-bold ${message?.tone === "error" ? "text-danger-700" : "text-success-700"}`}
-        >
-          {message?.text}
-        </p>
-      </div>
+      <SubmitRow
+        label="Send my decision"
+        pending={pending}
+        pendingLabel="Sending…"
+        message={message}
+      />
     </form>
   );
 }
