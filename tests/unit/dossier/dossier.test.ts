@@ -128,3 +128,16 @@ describe("dossier tables", () => {
     expect(dossier.result).toEqual(result);
   });
 });
+
+describe("the draws' generator", () => {
+  it("is MT19937: seed 5489 gives 3499211612 then 581869302 (reference mt19937ar.c, Matsumoto & Nishimura 1998)", async () => {
+    const { mersenne } = await import("pure-rand/generator/mersenne");
+    const rng = mersenne(5489);
+    expect([rng.next() >>> 0, rng.next() >>> 0]).toEqual([3499211612, 581869302]);
+    // ISO C++ [rand.predef]: the 10000th output of a default-seeded mt19937 is 4123659995.
+    let value = 0;
+    for (let i = 3; i <= 10000; i++) value = rng.next() >>> 0;
+    expect(value).toBe(4123659995);
+    expect(dossier.uncertainty.generator).toMatch(/^MT19937/);
+  });
+});
