@@ -6,6 +6,8 @@ const PUBLIC_PREFIXES = [
   "/sign-in",
   "/api/auth",
   "/api/v1/webhooks",
+  // The payment provider signs its webhooks; the handler checks the signature, not a session.
+  "/api/webhooks",
   "/_next",
   "/favicon",
   "/brand",

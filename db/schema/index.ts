@@ -5,3 +5,4 @@ export * from "./catalogue";
 export * from "./installed-base";
 export * from "./imports";
 export * from "./cases";
+export * from "./dossiers";

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { currencyMinorUnits } from "../engine/money";
 
 /**
  * The uncertainty analysis of a dossier: a range for each driver, in % of the case's own value,
@@ -52,18 +53,35 @@ export const DEFAULT_RANGES: Omit<UncertaintySettings, "seed"> = {
 };
 
 /** The dossier's price as the administrator sets it: a decimal amount and an ISO 4217 code. */
-export const dossierPriceSchema = z.object({
-  amount: z
-    .string({ error: "Enter the price" })
-    .trim()
-    .regex(/^\d{1,7}(\.\d{1,2})?$/, "Enter an amount such as 490 or 490.00 (at most two decimals)")
-    .refine((v) => Number(v) > 0, "The price must be above 0"),
-  currency: z
-    .string({ error: "Enter a currency" })
-    .trim()
-    .transform((v) => v.toUpperCase())
-    .pipe(z.string().regex(/^[A-Z]{3}$/, "Enter a three-letter ISO 4217 code, e.g. EUR")),
-});
+export const dossierPriceSchema = z
+  .object({
+    amount: z
+      .string({ error: "Enter the price" })
+      .trim()
+      .regex(
+        /^\d{1,7}(\.\d{1,2})?$/,
+        "Enter an amount such as 490 or 490.00 (at most two decimals)",
+      )
+      .refine((v) => Number(v) > 0, "The price must be above 0"),
+    currency: z
+      .string({ error: "Enter a currency" })
+      .trim()
+      .transform((v) => v.toUpperCase())
+      .pipe(z.string().regex(/^[A-Z]{3}$/, "Enter a three-letter ISO 4217 code, e.g. EUR")),
+  })
+  .superRefine((price, ctx) => {
+    const places = price.amount.split(".")[1]?.length ?? 0;
+    const allowed = currencyMinorUnits(price.currency);
+    if (places > allowed)
+      ctx.addIssue({
+        code: "custom",
+        path: ["amount"],
+        message:
+          allowed === 0
+            ? `${price.currency} has no minor unit: enter a whole amount`
+            : `${price.currency} has ${allowed} decimal places at most`,
+      });
+  });
 export type DossierPrice = z.output<typeof dossierPriceSchema>;
 
 export const checkoutRequestSchema = z.object({

@@ -1,0 +1,65 @@
+import "server-only";
+import Decimal from "decimal.js";
+import { readDossierPrice } from "@/db/queries/dossiers";
+import { recordCheckoutSession } from "@/db/queries/payments";
+import { getDossierAccess } from "@/db/queries/dossiers";
+import { currencyMinorUnits } from "@/lib/engine";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { ConflictError } from "@/lib/errors";
+import { stripeClient } from "./client";
+
+/** The app's public URL, as the payment provider sends the customer back to it. */
+export function appOrigin(): string {
+  return (process.env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, "");
+}
+
+/**
+ * The price in the currency's minor unit, as the provider's API takes it. The amount is a
+ * validated decimal with no more places than the currency has, so this is an exact integer.
+ */
+export function minorUnits(amount: string, currency: string): number {
+  const minor = new Decimal(amount).times(new Decimal(10).pow(currencyMinorUnits(currency)));
+  if (!minor.isInteger())
+    throw new Error(`${amount} ${currency} has more places than the currency`);
+  return minor.toNumber();
+}
+
+/**
+ * Opens a Checkout Session for a proposal's dossier at the price the administrators set (the
+ * client names only the proposal), records it, and answers the hosted page's URL.
+ */
+export async function createDossierCheckout(caller: SessionUser, proposalId: number) {
+  const { proposal, grant } = getDossierAccess(caller, proposalId);
+  if (grant) throw new ConflictError("This proposal's dossier is already paid for");
+  const price = readDossierPrice();
+  const amountMinor = minorUnits(price.amount, price.currency);
+  const origin = appOrigin();
+  const session = await stripeClient().checkout.sessions.create({
+    mode: "payment",
+    line_items: [
+      {
+        quantity: 1,
+        price_data: {
+          currency: price.currency.toLowerCase(),
+          unit_amount: amountMinor,
+          product_data: {
+            name: `Loopshift dossier: ${proposal.caseName}, proposal v${proposal.version}`,
+          },
+        },
+      },
+    ],
+    customer_email: caller.email,
+    client_reference_id: String(proposal.id),
+    metadata: { proposalId: String(proposal.id), accountId: String(proposal.accountId) },
+    success_url: `${origin}/dossiers/${proposal.id}/paid?session_id={CHECKOUT_SESSION_ID}`,
+    cancel_url: `${origin}/dossiers/${proposal.id}/cancelled`,
+  });
+  if (!session.url) throw new Error("The payment provider answered a session without a URL");
+  recordCheckoutSession(caller, proposal.id, {
+    id: session.id,
+    amountMinor,
+    amount: price.amount,
+    currency: price.currency,
+  });
+  return { url: session.url, sessionId: session.id };
+}
