@@ -9,6 +9,7 @@ export function navItemsFor(role: Role): NavItem[] {
         { href: "/admin", label: "Users and audit" },
         { href: "/accounts", label: "Accounts" },
         { href: "/catalogue", label: "Catalogue" },
+        { href: "/admin/payments", label: "Dossier price and payments" },
       ];
     case "reviewer":
       return [{ href: "/review", label: "Proposals for review" }];
