@@ -1,27 +1,14 @@
 import "server-only";
-import Decimal from "decimal.js";
-import { readDossierPrice } from "@/db/queries/dossiers";
+import { getDossierAccess, readDossierPrice } from "@/db/queries/dossiers";
 import { recordCheckoutSession } from "@/db/queries/payments";
-import { getDossierAccess } from "@/db/queries/dossiers";
-import { currencyMinorUnits } from "@/lib/engine";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { ConflictError } from "@/lib/errors";
 import { stripeClient } from "./client";
+import { minorUnits } from "./minor-units";
 
 /** The app's public URL, as the payment provider sends the customer back to it. */
 export function appOrigin(): string {
   return (process.env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, "");
-}
-
-/**
- * The price in the currency's minor unit, as the provider's API takes it. The amount is a
- * validated decimal with no more places than the currency has, so this is an exact integer.
- */
-export function minorUnits(amount: string, currency: string): number {
-  const minor = new Decimal(amount).times(new Decimal(10).pow(currencyMinorUnits(currency)));
-  if (!minor.isInteger())
-    throw new Error(`${amount} ${currency} has more places than the currency`);
-  return minor.toNumber();
 }
 
 /**

@@ -4,11 +4,16 @@ import os from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { ensureBuild, prepareDatabase, spawnNext } from "../../lib/cli/app-server";
+import { startLocalPayments } from "../../lib/cli/payment-fake";
 import { prepareRuntimeEnv } from "../../lib/cli/runtime-env";
 
 declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
+    /** The SQLite file the server uses, for checks of what a request changed. */
+    databasePath: string;
+    /** The local fake payment API and the keys the server was given for it. */
+    payments: { host: string; port: number; secretKey: string; webhookSecret: string };
   }
 }
 
@@ -47,9 +52,11 @@ export default async function setup(project: TestProject) {
     DATABASE_PATH: path.join(dir, "e2e.db"),
     NEXTAUTH_URL: `http://localhost:${port}`,
     LOOPSHIFT_DEMO: "on",
+    STRIPE_FAKE: "on",
   });
   ensureBuild(env);
   prepareDatabase(env.DATABASE_PATH!);
+  const payments = (await startLocalPayments(env))!;
   const server = spawnNext(env, "start", "pipe");
   let log = "";
   server.stdout?.on("data", (d) => (log += d));
@@ -58,12 +65,21 @@ export default async function setup(project: TestProject) {
     await waitForServer(`${env.NEXTAUTH_URL}/sign-in`, 60_000);
   } catch (error) {
     server.kill();
+    await payments.close();
     console.error(log);
     throw error;
   }
   project.provide("baseUrl", env.NEXTAUTH_URL!);
-  return () => {
+  project.provide("databasePath", env.DATABASE_PATH!);
+  project.provide("payments", {
+    host: payments.host,
+    port: payments.port,
+    secretKey: env.STRIPE_SECRET_KEY!,
+    webhookSecret: env.STRIPE_WEBHOOK_SECRET!,
+  });
+  return async () => {
     server.kill();
+    await payments.close();
     if (process.env.E2E_SERVER_LOG) fs.writeFileSync(process.env.E2E_SERVER_LOG, log);
   };
 }
