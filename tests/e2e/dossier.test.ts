@@ -1,0 +1,115 @@
+import fs from "node:fs";
+import ExcelJS from "exceljs";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, screenshot, signInWithForm } from "./support/browser";
+import { baseUrl } from "./support/http";
+
+let browser: Browser;
+let page: Page;
+let dossierUrl: string;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signedIn(email: string) {
+  const context = await browser.newContext({
+    viewport: { width: 1400, height: 900 },
+    acceptDownloads: true,
+  });
+  const p = await context.newPage();
+  await signInWithForm(p, email);
+  await p.waitForURL(/\/(accounts|admin)$/);
+  return p;
+}
+
+describe("the paid dossier in Chromium", () => {
+  it("an administrator sets the dossier's price", async () => {
+    const admin = await signedIn("admin@example.com");
+    await admin.goto(`${baseUrl()}/admin/payments`);
+    await admin.getByText("TEST MODE").first().waitFor();
+    const form = admin.getByRole("form", { name: "Dossier price" });
+    await form.getByLabel("Price per dossier").fill("12.345");
+    await form.getByRole("button", { name: "Save the price" }).click();
+    await admin.getByText("EUR has 2 decimal places at most").waitFor();
+    await form.getByLabel("Price per dossier").fill("390.00");
+    await form.getByRole("button", { name: "Save the price" }).click();
+    await admin.getByText("Saved. New checkouts use this price.").waitFor();
+    await screenshot(admin, "dossier-admin-price");
+    await admin.context().close();
+  });
+
+  it("an engineer freezes a proposal and finds its dossier locked, with the price", async () => {
+    page = await signedIn("engineer@example.com");
+    await page.goto(`${baseUrl()}/cases`);
+    const form = page.getByRole("form", { name: "New case" });
+    await form.getByLabel("Case name").fill("Invented infeed dossier");
+    await form.getByLabel("Site").selectOption({ label: "Cartonia Packaging Plant — North hall" });
+    await form.getByRole("button", { name: "Create case" }).click();
+    await page.waitForURL(/\/cases\/\d+$/);
+    await page.getByRole("button", { name: /^Select all visible/ }).click();
+    await page.getByRole("button", { name: "Save selection" }).click();
+    await page.getByText(/The case now holds \d+ axes\./).waitFor();
+    await page.getByRole("button", { name: "Suggest kits" }).click();
+    await page.getByText(/Kits suggested for \d+ of \d+ axes\./).waitFor();
+    await page.getByRole("button", { name: "Freeze as proposal" }).click();
+    await page.getByText("Frozen as proposal version 1.").waitFor();
+    await page.getByRole("link", { name: "Dossier", exact: true }).click();
+    await page.waitForURL(/\/dossiers\/\d+$/);
+    dossierUrl = page.url();
+    await page.getByRole("heading", { name: "This dossier is locked" }).waitFor();
+    await page.getByText("€390.00").waitFor();
+    await screenshot(page, "dossier-locked");
+  });
+
+  it("a declined card leaves the dossier locked with a clear message", async () => {
+    await page.getByRole("button", { name: "Buy the dossier" }).click();
+    await page.waitForURL(/\/pay\/cs_test_/);
+    await page.getByText("390.00 EUR").first().waitFor();
+    await screenshot(page, "checkout");
+    await page.getByLabel("Card number").fill("4000 0000 0000 0002");
+    await page.getByLabel("Expiry (MM/YY)").fill("12/39");
+    await page.getByLabel("Security code").fill("123");
+    await page.getByRole("button", { name: /^Pay / }).click();
+    await page.getByRole("alert").getByText("Your card was declined").waitFor();
+    await screenshot(page, "checkout-declined");
+    await page.getByRole("link", { name: "Cancel and go back" }).click();
+    await page.getByText("Nothing was charged and the dossier stays locked.").waitFor();
+    await page.getByRole("link", { name: "Back to the dossier" }).click();
+    await page.getByRole("heading", { name: "This dossier is locked" }).waitFor();
+  });
+
+  it("the test card pays; the report opens and the workbook downloads", async () => {
+    await page.getByRole("button", { name: "Buy the dossier" }).click();
+    await page.waitForURL(/\/pay\/cs_test_/);
+    await page.getByLabel("Card number").fill("4242 4242 4242 4242");
+    await page.getByLabel("Expiry (MM/YY)").fill("12/39");
+    await page.getByLabel("Security code").fill("123");
+    await page.getByRole("button", { name: /^Pay / }).click();
+    await page.waitForURL(/\/paid\?session_id=cs_test_/);
+    await page.getByText("Payment received: the dossier is unlocked").waitFor();
+    await screenshot(page, "dossier-paid");
+    await page.getByRole("link", { name: "Open the dossier" }).click();
+    await page.waitForURL(dossierUrl);
+    await page.getByRole("heading", { name: "Uncertainty: P10, P50 and P90" }).waitFor();
+    await page.getByRole("heading", { name: "Payback over tariff and running hours" }).waitFor();
+    await page.getByText("NPV over 1,000 draws").waitFor();
+    await screenshot(page, "dossier-report");
+
+    const download = page.waitForEvent("download");
+    await page.getByRole("link", { name: "Download the workbook (.xlsx)" }).click();
+    const file = await download;
+    expect(file.suggestedFilename()).toMatch(/-dossier\.xlsx$/);
+    const workbook = new ExcelJS.Workbook();
+    await workbook.xlsx.load(fs.readFileSync((await file.path())!) as unknown as ArrayBuffer);
+    expect(workbook.worksheets.map((w) => w.name)).toContain("Uncertainty");
+
+    await page.emulateMedia({ media: "print" });
+    await screenshot(page, "dossier-report-print");
+    await page.emulateMedia({ media: "screen" });
+  });
+});
