@@ -35,7 +35,7 @@ describe("the paid dossier in Chromium", () => {
     const form = admin.getByRole("form", { name: "Dossier price" });
     await form.getByLabel("Price per dossier").fill("12.345");
     await form.getByRole("button", { name: "Save the price" }).click();
-    await admin.getByText("EUR has 2 decimal places at most").waitFor();
+    await admin.getByText(/Enter an amount such as 490 or 490\.00/).waitFor();
     await form.getByLabel("Price per dossier").fill("390.00");
     await form.getByRole("button", { name: "Save the price" }).click();
     await admin.getByText("Saved. New checkouts use this price.").waitFor();
