@@ -90,12 +90,22 @@ export function PaybackGridPanel({ dossier }: { dossier: Dossier }) {
   const grid = dossier.paybackGrid;
   const currency = dossier.result.currency;
   const horizon = dossier.result.scenarios.physics.cashFlows.length - 1;
+  // Short paybacks read in months, as on the headline cards; one unit for the whole table.
+  const longest = Math.max(0, ...grid.paybackYears.flat().map((y) => y ?? 0));
+  const inMonths = longest < 2;
+  const cell = (years: number | null) =>
+    years === null
+      ? "—"
+      : inMonths
+        ? `${formatNumber(years * 12, 1)} mo`
+        : `${formatNumber(years, 2)} y`;
   return (
     <Panel title="Payback over tariff and running hours">
       <p className="mb-3 text-small text-steel-700">
         Simple payback of the physics scenario with the tariff (rows) and every axis&apos;s running
         hours (columns) changed together. Green: within the first third of the {horizon}-year
-        horizon; red: not within it. The framed cell is the case as proposed.
+        horizon; red: not within it. The framed cell is the case as proposed. Paybacks in{" "}
+        {inMonths ? "months" : "years"}.
       </p>
       <Table caption="Simple payback by tariff and running hours">
         <thead>
@@ -121,7 +131,7 @@ export function PaybackGridPanel({ dossier }: { dossier: Dossier }) {
                     key={j}
                     className={`text-right tabular-nums ${TONE[paybackTone(years, horizon)]} ${centre ? "font-bold outline outline-2 -outline-offset-2 outline-flux-600" : ""}`}
                   >
-                    {years === null ? "—" : `${formatNumber(years, 2)} y`}
+                    {cell(years)}
                   </Td>
                 );
               })}
@@ -215,17 +225,25 @@ export function AxisStatesPanel({ dossier }: { dossier: Dossier }) {
               Input moving [W]
             </Th>
             <Th colSpan={3} className="text-center">
-              Winding temperature
+              Winding temperature [°C]
             </Th>
           </tr>
           <tr>
-            {["Open", "Closed", "Open", "Closed", "Open", "Closed", "Open", "Closed", "Limit"].map(
-              (h, i) => (
-                <Th key={i} className="text-right">
-                  {h}
-                </Th>
-              ),
-            )}
+            {[
+              "Open",
+              "Closed",
+              "Open",
+              "Closed",
+              "Open",
+              "Closed",
+              "Open",
+              "Closed",
+              "Class limit",
+            ].map((h, i) => (
+              <Th key={i} className="text-right">
+                {h}
+              </Th>
+            ))}
           </tr>
         </thead>
         <tbody className="divide-y divide-steel-100">

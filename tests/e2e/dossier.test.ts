@@ -2,7 +2,7 @@ import fs from "node:fs";
 import ExcelJS from "exceljs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, screenshot, signInWithForm } from "./support/browser";
+import { SCREENSHOT_DIR, launchBrowser, screenshot, signInWithForm } from "./support/browser";
 import { baseUrl } from "./support/http";
 
 let browser: Browser;
@@ -99,6 +99,16 @@ describe("the paid dossier in Chromium", () => {
     await page.getByRole("heading", { name: "Payback over tariff and running hours" }).waitFor();
     await page.getByText("NPV over 1,000 draws").waitFor();
     await screenshot(page, "dossier-report");
+    // Views a reader sees on screen, section by section, for a closer look.
+    for (const [name, heading] of [
+      ["top", "Uncertainty: P10, P50 and P90"],
+      ["grid", "Payback over tariff and running hours"],
+      ["sensitivity", "Sensitivity at ±10, ±20 and ±30 %"],
+      ["axes", "Each axis: currents, losses and temperatures"],
+    ] as const) {
+      await page.getByRole("heading", { name: heading }).scrollIntoViewIfNeeded();
+      await page.screenshot({ path: `${SCREENSHOT_DIR}/dossier-report-${name}.png` });
+    }
 
     const download = page.waitForEvent("download");
     await page.getByRole("link", { name: "Download the workbook (.xlsx)" }).click();
