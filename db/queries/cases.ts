@@ -1,4 +1,3 @@
-import { createHash } from "node:crypto";
 import { and, asc, desc, eq, getTableColumns, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
 import {
@@ -6,6 +5,7 @@ import {
   axes,
   caseAxes,
   cases,
+  inputRevision,
   kits,
   machines,
   motors,
@@ -339,33 +339,46 @@ export function buildCaseInput(caller: SessionUser, caseId: number): CaseInput {
   return inputOf(getCaseOrThrow(caller, caseId));
 }
 
-// Results of recent inputs. Keyed by the input itself (a hash of its JSON), not by the case's
-// updatedAt alone: an edit of the site's axes or of a kit in the catalogue changes the input
-// without touching the case, and must not serve a stale result.
+// Results of recent cases, each tagged with the input revision it was computed at: the counter
+// moves with every write to a table the input is built from (an edit of the case, of its site's
+// axes or of a kit in the catalogue), so a tag equal to the current revision means the input is
+// unchanged — one indexed read instead of building the input again to compare it.
 const RESULT_CACHE_LIMIT = 32;
 type CachedResult = {
-  fingerprint: string;
+  revision: number;
+  input: CaseInput;
   result: CaseResult;
   json?: string;
 };
 const resultCache = new Map<number, CachedResult>();
 
-function evaluateCached(caseId: number, input: CaseInput): CachedResult {
+function currentInputRevision(): number {
+  return db
+    .select({ revision: inputRevision.revision })
+    .from(inputRevision)
+    .where(eq(inputRevision.id, 1))
+    .get()!.revision;
+}
+
+// The caller's scope is checked by getCaseOrThrow before an entry is looked up; an entry itself
+// does not depend on who asks.
+function evaluateCached(found: CaseRow): CachedResult {
+  const revision = currentInputRevision();
+  const hit = resultCache.get(found.id);
+  if (hit?.revision === revision) return hit;
+  const input = inputOf(found);
   if (input.axes.length === 0)
     throw new ConflictError("The case has no axes yet: pick axes from its site to see a result");
-  const fingerprint = createHash("sha256").update(JSON.stringify(input)).digest("base64");
-  const hit = resultCache.get(caseId);
-  if (hit?.fingerprint === fingerprint) return hit;
-  const entry: CachedResult = { fingerprint, result: evaluateCase(input) };
-  resultCache.delete(caseId);
-  resultCache.set(caseId, entry);
+  const entry: CachedResult = { revision, input, result: evaluateCase(input) };
+  resultCache.delete(found.id);
+  resultCache.set(found.id, entry);
   if (resultCache.size > RESULT_CACHE_LIMIT) resultCache.delete(resultCache.keys().next().value!);
   return entry;
 }
 
 /** evaluateCase(buildCaseInput(caller, caseId)), computed once per distinct input. */
 export function caseResult(caller: SessionUser, caseId: number): CaseResult {
-  return evaluateCached(caseId, buildCaseInput(caller, caseId)).result;
+  return evaluateCached(getCaseOrThrow(caller, caseId)).result;
 }
 
 /**
@@ -373,7 +386,7 @@ export function caseResult(caller: SessionUser, caseId: number): CaseResult {
  * megabyte of JSON, which costs more to write again for every request than to keep.
  */
 export function caseResultJson(caller: SessionUser, caseId: number): string {
-  const entry = evaluateCached(caseId, buildCaseInput(caller, caseId));
+  const entry = evaluateCached(getCaseOrThrow(caller, caseId));
   entry.json ??= JSON.stringify(entry.result);
   return entry.json;
 }
@@ -384,8 +397,7 @@ export function caseResultJson(caller: SessionUser, caseId: number): string {
  */
 export function freezeProposal(caller: SessionUser, caseId: number): Proposal {
   const found = getCaseOrThrow(caller, caseId);
-  const input = inputOf(found);
-  const { result } = evaluateCached(caseId, input);
+  const { input, result } = evaluateCached(found);
   const proposal = db.transaction((tx) => {
     const [{ last }] = tx
       .select({ last: sql<number | null>`max(${proposals.version})` })

@@ -5,4 +5,5 @@ export * from "./catalogue";
 export * from "./installed-base";
 export * from "./imports";
 export * from "./cases";
+export * from "./revisions";
 export * from "./dossiers";

@@ -121,7 +121,7 @@ async function main() {
     const url = `${base}/api/v1/cases/${benchCase.id}/result`;
     const first = await fetch(url, { headers: { cookie } });
     if (first.status !== 200) throw new Error(`the result route answered ${first.status}`);
-    // As a browser asks for it: compressed.
+    // As a browser asks for it, accepting gzip (the route answers uncompressed: see its handler).
     const run = await autocannon({
       url,
       connections: 10,

@@ -3,7 +3,7 @@ import { monotoneCurve, isBeyondCurve } from "./curves";
 import { averageOverDuty, coolingKWhPerYear, kWhPerYear, type DutyMix } from "./energy";
 import type { AxisEconomics } from "./fleet";
 import { evaluateLoop, type LoopOutcome, type OperatingPoint } from "./loop";
-import { loadAngle, speedHeadroomPct, type OpenLoopStatus } from "./margin";
+import { headroomForGain, loadAngle, speedHeadroomPct, type OpenLoopStatus } from "./margin";
 import { stepGeometry } from "./motor";
 import type { ParsedAxis, ParsedCase, ParsedMargins } from "./schema";
 import { insulationLifeFactor } from "./thermal";
@@ -202,12 +202,12 @@ export function economicsAtLoad(
   base: AxisPhysics,
   ctx: AxisContext,
   loadFactor: number,
-  throughputValued: boolean,
+  valuedGainPct: number | undefined,
 ): AxisEconomics {
   const op = operatingPoint(axis, ctx.coolingCop, { loadTorque: loadFactor });
-  // The headroom only feeds the throughput cap; without a value on throughput it cannot matter.
-  const closed = evaluateClosedLoop(axis, op, ctx.margins.closedLoopRequiredPct, throughputValued)
-    .outcome.result;
+  const requiredPct = ctx.margins.closedLoopRequiredPct;
+  const { outcome } = evaluateClosedLoop(axis, op, requiredPct, false);
+  const closed = outcome.result;
 
   const eta = axis.drive.efficiencyPct / 100;
   const extraMechanicalW =
@@ -225,6 +225,10 @@ export function economicsAtLoad(
       base.openLoop.coolingKWhPerYear + coolingKWhPerYear(extraDriveLossW, op.duty, ctx.coolingCop),
     coolingClosedLoopKWh: closed.coolingKWhPerYear,
     undersized: closed.status === "undersized",
-    speedHeadroomPct: throughputValued ? speedHeadroomPct(closed.maxSpeedRpm, op.speedRpm) : null,
+    // The headroom only feeds the throughput cap; without a value on throughput it cannot matter.
+    speedHeadroomPct:
+      valuedGainPct === undefined
+        ? null
+        : headroomForGain(outcome.capability, requiredPct, op, valuedGainPct),
   };
 }

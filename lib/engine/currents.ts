@@ -39,9 +39,12 @@ export function kitMaxCurrentA(kit: ParsedKit, motor: ParsedMotor): number {
   return kit.maxCurrentPeakA ?? Math.SQRT2 * motor.ratedCurrentA;
 }
 
-/** ENGINE.md §2: 0.5 W unless given, and 0 when sensorless — there is no encoder to feed. */
+/**
+ * ENGINE.md §2: encoderW defaults to 0.5 W, and to 0 for a sensorless kit, which has no encoder
+ * to feed. A value given is used as given, like every other default of §2.
+ */
 export function kitEncoderW(kit: ParsedKit): number {
-  return kit.sensing === "sensorless" ? 0 : (kit.encoderW ?? 0.5);
+  return kit.encoderW ?? (kit.sensing === "sensorless" ? 0 : 0.5);
 }
 
 /** Closed loop (FOC, I_d = 0): the torque current the load asks for, between I_min and I_max. */

@@ -1,3 +1,5 @@
+import { capabilityNm, maxSpeedRpm, MAX_SEARCH_RPM, type Capability } from "./capability";
+
 /** 100·(1 − peak/T), null when there is no torque at all. */
 export function marginPct(peakTorqueNm: number, torqueNm: number): number | null {
   return torqueNm === 0 ? null : 100 * (1 - peakTorqueNm / torqueNm);
@@ -32,4 +34,29 @@ export function loadAngle(
 /** How much faster the axis could run closed loop with its margin kept; null at standstill. */
 export function speedHeadroomPct(maxSpeedRpmClosed: number, speedRpm: number): number | null {
   return speedRpm === 0 ? null : 100 * (maxSpeedRpmClosed / speedRpm - 1);
+}
+
+/**
+ * The closed-loop speed headroom as the throughput cap of ENGINE.md §8 uses it, where only
+ * min(gain, headroom) counts: a headroom surely at or above the machine's gain comes back as the
+ * gain itself, after one torque evaluation instead of the ~24 of the §7 bisection; any other
+ * comes from the bisection, as speedHeadroomPct gives it.
+ *
+ * Why one evaluation decides it: the usable torque does not rise with speed, so if it covers the
+ * peak at a probe speed x, the bisection keeps every midpoint up to x and ends above x − 0.01 rpm.
+ * The probe lies 0.01 rpm and a relative 1e-9 above the speed the gain needs, and the torque must
+ * clear the peak by a relative 1e-12, far beyond floating-point noise in either.
+ */
+export function headroomForGain(
+  capability: Capability,
+  requiredPct: number,
+  op: { speedRpm: number; peakTorqueNm: number },
+  gainPct: number,
+): number | null {
+  const { speedRpm, peakTorqueNm } = op;
+  if (speedRpm === 0) return null;
+  const probeRpm = speedRpm * (1 + gainPct / 100) * (1 + 1e-9) + 0.01;
+  const usable = capabilityNm(capability, probeRpm) * (1 - requiredPct / 100);
+  if (probeRpm <= MAX_SEARCH_RPM && usable >= peakTorqueNm * (1 + 1e-12)) return gainPct;
+  return speedHeadroomPct(maxSpeedRpm(capability, requiredPct, peakTorqueNm), speedRpm);
 }

@@ -94,10 +94,11 @@ export function prepareCase(input: ParsedCase): PreparedCase {
       horizonYears: finance.horizonYears,
     });
 
-  const valued = new Set(
+  // The gain each machine puts a value on; absent where throughput is worth nothing.
+  const valuedGainPct = new Map(
     input.machines
       .filter((m) => m.throughputGainPct > 0 && !parseMoney(m.marginPerOutputHour).isZero())
-      .map((m) => m.id),
+      .map((m) => [m.id, m.throughputGainPct]),
   );
   let kitTotal: Decimal | undefined;
   let laborTotal: Decimal | undefined;
@@ -110,7 +111,13 @@ export function prepareCase(input: ParsedCase): PreparedCase {
     if (factors.loadTorque !== undefined) {
       const f = factors.loadTorque.toNumber();
       totals = fleetTotals(input, money, (i) =>
-        economicsAtLoad(input.axes[i], physics[i], ctx, f, valued.has(input.axes[i].machineId)),
+        economicsAtLoad(
+          input.axes[i],
+          physics[i],
+          ctx,
+          f,
+          valuedGainPct.get(input.axes[i].machineId),
+        ),
       );
     }
     if (factors.hoursPerYear !== undefined) totals = withHoursScaled(totals, factors.hoursPerYear);

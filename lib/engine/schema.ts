@@ -58,7 +58,7 @@ export const kitInputSchema = obj({
   busVoltageV: positive().optional(),
   efficiencyPct: positive().max(100, "must be at most 100").default(92),
   standbyW: atLeast(0).default(3),
-  // ENGINE.md §2: 0.5 W, 0 when sensorless; resolved by kitEncoderW() since the default depends on sensing.
+  // ENGINE.md §2: 0.5 W, 0 when sensorless; kitEncoderW() fills it since the default depends on sensing.
   encoderW: atLeast(0).optional(),
   minCurrentPct: pct().default(10),
   sensorlessMinRpm: atLeast(0).default(60),
@@ -117,6 +117,7 @@ const axisObject = obj({
  * reportEveryProblem), so they check the types they rely on.
  */
 function checkAxisDuty(axis: unknown, ctx: z.RefinementCtx): void {
+  if (typeof axis !== "object" || axis === null) return;
   const duty = (axis as { duty?: Record<string, unknown> }).duty;
   if (typeof duty !== "object" || duty === null) return;
   const { movePct, holdPct, loadTorqueNm, peakTorqueNm } = duty;

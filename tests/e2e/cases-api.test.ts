@@ -89,8 +89,13 @@ describe("business cases over HTTP", () => {
     const found = await json(engineer, `/api/v1/cases/${mine.id}`, caseDetailSchema);
     expect(found.input.axes.length).toBeGreaterThan(0);
     expect(found.input.finance.tariffPerKWh).toBe(found.assumptions.finance.tariffPerKWh);
-    const res = await request(engineer, `/api/v1/cases/${mine.id}/result`);
+    const res = await request(engineer, `/api/v1/cases/${mine.id}/result`, {
+      headers: { "accept-encoding": "gzip" },
+    });
     expect(res.status).toBe(200);
+    // Sent as it was written once for this input, not compressed again per request.
+    expect(res.headers.get("cache-control")).toBe("no-store, no-transform");
+    expect(res.headers.get("content-encoding")).toBeNull();
     const result = caseResultSchema.parse(await res.json());
     expect(result.currency).toBe(found.input.currency);
     expect(result.axes.map((a) => a.id)).toEqual(found.input.axes.map((a) => a.id));

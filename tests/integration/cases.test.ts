@@ -1,6 +1,7 @@
 import Decimal from "decimal.js";
 import { describe, expect, it } from "vitest";
-import { listAxes, listAxesForExport } from "@/db/queries/axes";
+import { getAxisOrThrow, listAxes, listAxesForExport, updateAxis } from "@/db/queries/axes";
+import { recordAudit } from "@/db/queries/audit";
 import {
   buildCaseInput,
   caseResult,
@@ -21,6 +22,7 @@ import { listSites } from "@/db/queries/sites";
 import { caseInputSchema, evaluateCase, suggestKit, type KitInput } from "@/lib/engine";
 import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/errors";
 import { axisRetrofitSchema, caseAssumptionsSchema } from "@/lib/validations/case";
+import { axisInputSchema as axisFormSchema } from "@/lib/validations/installed-base";
 import { kitInputSchema as kitCatalogueSchema } from "@/lib/validations/catalogue";
 import { caseResultSchema } from "../support/case-result-schema";
 import { caller } from "../support/callers";
@@ -49,6 +51,10 @@ function newCase(who = engineer(), siteName = "North hall", count = 6) {
   );
   return { id: row.id, site, axisIds: picked.map((a) => a.id) };
 }
+
+// Database rows hold null where the forms leave a field out.
+const nullsAsAbsent = <T extends object>(row: T) =>
+  Object.fromEntries(Object.entries(row).filter(([, v]) => v !== null));
 
 function withTariff(caseId: number, tariff: string) {
   const { assumptions } = getCaseOrThrow(engineer(), caseId);
@@ -115,6 +121,45 @@ describe("the demo cases", () => {
     const second = caseResult(engineer(), id);
     expect(second).not.toBe(first);
     expect(second).toEqual(evaluateCase(buildCaseInput(engineer(), id)));
+  });
+});
+
+describe("the cached result follows every input it is built from", () => {
+  const admin = () => caller("admin@example.com");
+
+  it("recomputes after a kit price change in the catalogue and an axis edit on the site, and not after unrelated writes", () => {
+    const { id, axisIds } = newCase(engineer(), "North hall", 3);
+    const first = caseResult(engineer(), id);
+
+    // Neither the case nor its rows change: only the kit in the catalogue does.
+    const kitId = listCaseAxes(engineer(), id)[0].kitId;
+    const kit = listKits(admin(), { includeRetired: true }).find((k) => k.id === kitId)!;
+    const dearer = new Decimal(kit.price).plus(100).toFixed(2);
+    saveKit(admin(), kitCatalogueSchema.parse({ ...nullsAsAbsent(kit), price: dearer }), kit.id);
+    const afterKit = caseResult(engineer(), id);
+    expect(afterKit).not.toBe(first);
+    expect(afterKit).toEqual(evaluateCase(buildCaseInput(engineer(), id)));
+    expect(new Decimal(afterKit.totals.capex).gt(first.totals.capex)).toBe(true);
+
+    // An axis of the case edited on its site page: its load torque doubles.
+    const axis = getAxisOrThrow(engineer(), axisIds[0]);
+    const load = axis.loadTorqueNm * 2;
+    updateAxis(
+      engineer(),
+      axis.id,
+      axisFormSchema.parse({
+        ...nullsAsAbsent(axis),
+        loadTorqueNm: load,
+        peakTorqueNm: Math.max(axis.peakTorqueNm, load),
+      }),
+    );
+    const afterAxis = caseResult(engineer(), id);
+    expect(afterAxis).not.toBe(afterKit);
+    expect(afterAxis).toEqual(evaluateCase(buildCaseInput(engineer(), id)));
+
+    // A sign-in's audit record touches no input table: the same result object is served.
+    recordAudit({ actor: engineer(), action: "test.unrelated", targetType: "user" });
+    expect(caseResult(engineer(), id)).toBe(afterAxis);
   });
 });
 

@@ -84,3 +84,22 @@ describe("torqueSpeedCurve (ENGINE.md §3)", () => {
     ]);
   });
 });
+
+describe("a kit's encoder supply (ENGINE.md §2, §6)", () => {
+  // Off, the closed loop draws only the kit's standby and encoder supply: standbyW 3 by default.
+  const offW = (kit: Json) => {
+    const input = structuredClone(handCase) as Json;
+    Object.assign(input.axes[0].retrofit.kit, kit);
+    return evaluateCase(input).axes[0].closedLoop.inputPowerW.off;
+  };
+
+  it("defaults to 0.5 W with an encoder and to 0 W sensorless", () => {
+    expect(offW({ sensing: "encoder" })).toBeCloseTo(3.5, 12);
+    expect(offW({ sensing: "sensorless" })).toBeCloseTo(3, 12);
+  });
+
+  it("uses a value given, like every other default of §2", () => {
+    expect(offW({ sensing: "encoder", encoderW: 1.2 })).toBeCloseTo(4.2, 12);
+    expect(offW({ sensing: "sensorless", encoderW: 0.8 })).toBeCloseTo(3.8, 12);
+  });
+});

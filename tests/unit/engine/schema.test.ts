@@ -127,6 +127,16 @@ describe("case input schema (ENGINE.md §2)", () => {
     ]);
   });
 
+  it("reports an axis that is not an object at its path instead of failing", () => {
+    for (const notAnAxis of [null, 7, "axis"]) {
+      const input = hand();
+      input.axes[0] = notAnAxis;
+      expect(issuesOf(input)).toEqual([
+        expect.stringMatching(/^axes\[0\]: expected an object, received (null|number|string)$/),
+      ]);
+    }
+  });
+
   it("rejects negative money and torque", () => {
     const input = hand();
     input.axes[0].retrofit.kit.price = "-5";

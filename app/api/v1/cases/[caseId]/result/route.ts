@@ -9,8 +9,14 @@ export const GET = withApi(
     const caller = await requireRole("engineer", "manager", "admin");
     const caseId = idFromRoute((await context.params).caseId);
     return new Response(caseResultJson(caller, caseId), {
-      // A result follows every edit of the case, its site or the catalogue: never reuse one.
-      headers: { "content-type": "application/json", "cache-control": "no-store" },
+      headers: {
+        "content-type": "application/json",
+        // A result follows every edit of the case, its site or the catalogue: never reuse one.
+        // no-transform: the server would gzip the ~1 MB body of a 500-axis case again on every
+        // request (about 15 ms of CPU each, several times the rest of the request), and a route
+        // handler cannot hand it a body compressed once. A reverse proxy in front may compress.
+        "cache-control": "no-store, no-transform",
+      },
     });
   },
 );
