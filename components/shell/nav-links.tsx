@@ -7,10 +7,16 @@ export type NavItem = { href: string; label: string };
 
 export function NavLinks({ items }: { items: NavItem[] }) {
   const pathname = usePathname();
+  const matches = (href: string) => pathname === href || pathname.startsWith(`${href}/`);
+  // A section nested in another (/admin/payments in /admin) marks only itself as current.
+  const currentHref = items
+    .map((i) => i.href)
+    .filter(matches)
+    .sort((a, b) => b.length - a.length)[0];
   return (
     <ul className="flex flex-col gap-1">
       {items.map((item) => {
-        const current = pathname === item.href || pathname.startsWith(`${item.href}/`);
+        const current = item.href === currentHref;
         return (
           <li key={item.href}>
             <Link
