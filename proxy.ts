@@ -4,6 +4,7 @@ import { NextResponse, type NextRequest } from "next/server";
 // Only redirects the signed-out; every page, action and handler checks the caller again.
 const PUBLIC_PREFIXES = [
   "/sign-in",
+  "/invitation",
   "/api/auth",
   "/api/v1/webhooks",
   // The payment provider signs its webhooks; the handler checks the signature, not a session.

@@ -1,8 +1,11 @@
+import Link from "next/link";
+import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
 import type { ProposalSummary } from "@/db/queries/cases";
 import { Table, Td, Th } from "@/components/ui/table";
 import { formatMoney, formatPayback } from "@/lib/results/format";
 
-// Frozen versions, newest first, each with what changed since the one before.
+// Frozen versions, newest first, each with its stage with the customer and what changed since the
+// one before; the version opens the proposal's page (sending, conversation, quote).
 export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
   if (!proposals.length)
     return (
@@ -15,6 +18,7 @@ export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
       <thead>
         <tr>
           <Th>Version</Th>
+          <Th>Stage</Th>
           <Th>Frozen (UTC)</Th>
           <Th>By</Th>
           <Th className="text-right">Capex</Th>
@@ -28,7 +32,14 @@ export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
       <tbody className="divide-y divide-steel-100">
         {[...proposals].reverse().map((p) => (
           <tr key={p.id}>
-            <Td className="font-bold">v{p.version}</Td>
+            <Td className="font-bold">
+              <Link href={`/proposals/${p.id}`} className="text-flux-700 hover:underline">
+                v{p.version}
+              </Link>
+            </Td>
+            <Td>
+              <QuoteStageBadge stage={p.stage} />
+            </Td>
             <Td className="whitespace-nowrap tabular-nums">
               {p.createdAt.replace("T", " ").slice(0, 16)}
             </Td>

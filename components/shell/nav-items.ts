@@ -7,6 +7,8 @@ export function navItemsFor(role: Role): NavItem[] {
     case "admin":
       return [
         { href: "/admin", label: "Users and audit" },
+        { href: "/admin/sales", label: "Sales settings" },
+        { href: "/admin/outbox", label: "Outbox" },
         { href: "/accounts", label: "Accounts" },
         { href: "/catalogue", label: "Catalogue" },
         { href: "/admin/payments", label: "Dossier price and payments" },
@@ -17,6 +19,7 @@ export function navItemsFor(role: Role): NavItem[] {
       return [
         { href: "/accounts", label: "Accounts" },
         { href: "/cases", label: "Cases" },
+        { href: "/pipeline", label: "Pipeline" },
         { href: "/catalogue", label: "Catalogue" },
       ];
   }

@@ -10,6 +10,7 @@ import {
   type RetrofitTerms,
 } from "../queries/case-input";
 import type { Db } from "../client";
+import { dateAfterDays, openQuoteFor } from "../queries/quote-open";
 import {
   accounts,
   axes,
@@ -18,10 +19,12 @@ import {
   kits,
   machines,
   motors,
+  proposalComments,
   proposals,
   sites,
   users,
   type CaseStage,
+  type QuoteStage,
 } from "../schema";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
@@ -37,7 +40,26 @@ type DemoCase = {
   machineCount: number;
   finance: Partial<CaseAssumptionsInput["finance"]>;
   terms: RetrofitTerms;
-  frozen?: boolean;
+  // Machines of that kind to pass over first, so that two cases of a site take different ones.
+  machineOffset?: number;
+  // Frozen as version 1, with its quote where the pipeline has it (days relative to seeding).
+  quote?: DemoQuote;
+};
+
+type DemoQuote = {
+  stage: QuoteStage;
+  frozenDaysAgo: number;
+  closeInDays: number;
+  sentDaysAgo?: number;
+  decidedDaysAgo?: number;
+  // Sent through the portal to this reviewer (the others were sent before it existed).
+  sentTo?: string;
+  comments?: {
+    author: string;
+    body: string;
+    decision?: "accept" | "changes" | "decline";
+    daysAgo: number;
+  }[];
 };
 
 // Invented business cases of the demo scenario, one per stage a newcomer meets first. Figures
@@ -64,7 +86,14 @@ export const DEMO_CASES: DemoCase[] = [
       commissioningCost: "35",
       maintenanceSavingPerYear: "18",
     },
-    frozen: true,
+    // The proposal under review: what reviewer@example.com finds on signing in.
+    quote: {
+      stage: "sent",
+      frozenDaysAgo: 6,
+      sentDaysAgo: 5,
+      closeInDays: 25,
+      sentTo: "reviewer@example.com",
+    },
   },
   {
     account: "Cartonia Packaging Plant",
@@ -113,6 +142,90 @@ export const DEMO_CASES: DemoCase[] = [
       commissioningCost: "40",
       maintenanceSavingPerYear: "0",
     },
+    quote: {
+      stage: "declined",
+      frozenDaysAgo: 120,
+      sentDaysAgo: 115,
+      decidedDaysAgo: 90,
+      closeInDays: -85,
+    },
+  },
+  {
+    account: "Webline Print Finishing",
+    site: "Finishing works",
+    owner: "engineer@example.com",
+    name: "Web press register and infeed",
+    stage: "won",
+    machineKind: "Web press",
+    machineCount: 4,
+    finance: { laborRatePerHour: "72", downtimeCostPerHour: "400", projectOneTimeCost: "3000" },
+    terms: {
+      discountPct: 10,
+      installHours: 2,
+      commissioningCost: "80",
+      maintenanceSavingPerYear: "30",
+    },
+    quote: {
+      stage: "accepted",
+      frozenDaysAgo: 75,
+      sentDaysAgo: 70,
+      decidedDaysAgo: 30,
+      closeInDays: -30,
+    },
+  },
+  {
+    account: "Cartonia Packaging Plant",
+    site: "South hall",
+    owner: "engineer@example.com",
+    name: "South hall cartoners",
+    stage: "proposed",
+    machineKind: "Cartoner",
+    machineCount: 6,
+    finance: { laborRatePerHour: "68", downtimeCostPerHour: "150", projectOneTimeCost: "1800" },
+    // Above the default 15 % threshold: waits for a manager's approval before it can be sent.
+    terms: {
+      discountPct: 18,
+      installHours: 1.5,
+      commissioningCost: "35",
+      maintenanceSavingPerYear: "18",
+    },
+    quote: { stage: "ready", frozenDaysAgo: 2, closeInDays: 75 },
+  },
+  {
+    account: "Cartonia Packaging Plant",
+    site: "North hall",
+    owner: "engineer@example.com",
+    name: "North hall labellers",
+    stage: "proposed",
+    machineKind: "Labeler",
+    machineCount: 4,
+    finance: { laborRatePerHour: "68", downtimeCostPerHour: "90", projectOneTimeCost: "900" },
+    terms: {
+      discountPct: 8,
+      installHours: 1,
+      commissioningCost: "25",
+      maintenanceSavingPerYear: "0",
+    },
+    quote: {
+      stage: "changes",
+      frozenDaysAgo: 20,
+      sentDaysAgo: 18,
+      closeInDays: 45,
+      sentTo: "reviewer@example.com",
+      comments: [
+        {
+          author: "reviewer@example.com",
+          decision: "changes",
+          body: "Please show the figures at our contracted tariff from next year, 0.24 EUR/kWh, and over six years: our board compares every project over six.",
+          daysAgo: 12,
+        },
+        {
+          author: "engineer@example.com",
+          body: "Understood. A second version at 0.24 EUR/kWh over six years follows next week.",
+          daysAgo: 11,
+        },
+      ],
+    },
   },
 ];
 
@@ -154,7 +267,7 @@ export function seedDemoCases(tx: Tx) {
       .orderBy(asc(machines.name))
       .all()
       .filter((m) => m.name.startsWith(demo.machineKind))
-      .slice(0, demo.machineCount);
+      .slice(demo.machineOffset ?? 0, (demo.machineOffset ?? 0) + demo.machineCount);
     const machineIds = new Set(siteMachines.map((m) => m.id));
     const caseAxisRows = tx
       .select()
@@ -198,23 +311,75 @@ export function seedDemoCases(tx: Tx) {
       )
       .run();
 
-    if (demo.frozen) {
-      const input = assembleCaseInput(
-        site.currency,
+    if (demo.quote)
+      seedQuote(tx, demo.quote, {
+        caseId: caseRow.id,
+        ownerId,
+        userIds,
+        site,
         assumptions,
         siteMachines,
-        picked.map(({ axis, kit }) => ({ axis, kit: kit.input, terms: demo.terms })),
-      );
-      tx.insert(proposals)
-        .values({
-          caseId: caseRow.id,
-          version: 1,
-          input,
-          result: evaluateCase(input),
-          engineVersion: ENGINE_VERSION,
-          createdById: ownerId,
-        })
-        .run();
-    }
+        picked,
+        terms: demo.terms,
+      });
   }
+}
+
+const daysAgo = (days: number) => new Date(Date.now() - days * 24 * 3600 * 1000).toISOString();
+
+// Version 1 of a demo case, frozen some days ago, and where its quote stands now.
+function seedQuote(
+  tx: Tx,
+  quote: DemoQuote,
+  c: {
+    caseId: number;
+    ownerId: number;
+    userIds: Map<string, number>;
+    site: { currency: string };
+    assumptions: Parameters<typeof assembleCaseInput>[1];
+    siteMachines: Parameters<typeof assembleCaseInput>[2];
+    picked: {
+      axis: Parameters<typeof assembleCaseInput>[3][number]["axis"];
+      kit: { input: Parameters<typeof assembleCaseInput>[3][number]["kit"] };
+    }[];
+    terms: RetrofitTerms;
+  },
+) {
+  const input = assembleCaseInput(
+    c.site.currency,
+    c.assumptions,
+    c.siteMachines,
+    c.picked.map(({ axis, kit }) => ({ axis, kit: kit.input, terms: c.terms })),
+  );
+  const [proposal] = tx
+    .insert(proposals)
+    .values({
+      caseId: c.caseId,
+      version: 1,
+      input,
+      result: evaluateCase(input),
+      engineVersion: ENGINE_VERSION,
+      createdById: c.ownerId,
+      createdAt: daysAgo(quote.frozenDaysAgo),
+    })
+    .returning()
+    .all();
+  openQuoteFor(tx, proposal, c.ownerId, {
+    stage: quote.stage,
+    expectedCloseOn: dateAfterDays(quote.closeInDays),
+    sentAt: quote.sentDaysAgo === undefined ? null : daysAgo(quote.sentDaysAgo),
+    sentToId: quote.sentTo ? c.userIds.get(quote.sentTo)! : null,
+    decidedAt: quote.decidedDaysAgo === undefined ? null : daysAgo(quote.decidedDaysAgo),
+    updatedAt: daysAgo(quote.decidedDaysAgo ?? quote.sentDaysAgo ?? quote.frozenDaysAgo),
+  });
+  for (const comment of quote.comments ?? [])
+    tx.insert(proposalComments)
+      .values({
+        proposalId: proposal.id,
+        authorId: c.userIds.get(comment.author)!,
+        body: comment.body,
+        decision: comment.decision ?? null,
+        createdAt: daysAgo(comment.daysAgo),
+      })
+      .run();
 }

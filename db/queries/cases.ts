@@ -10,10 +10,12 @@ import {
   machines,
   motors,
   proposals,
+  quotes,
   sites,
   users,
   type Axis,
   type Proposal,
+  type QuoteStage,
 } from "@/db/schema";
 import { ENGINE_VERSION, evaluateCase, type CaseInput, type CaseResult } from "@/lib/engine";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
@@ -32,6 +34,7 @@ import {
   type KitOption,
 } from "./case-input";
 import { proposalChanges } from "./proposal-changes";
+import { openQuoteFor } from "./quote-open";
 import { getSiteOrThrow } from "./sites";
 
 // Cases are reached through their account, like sites: the caller's account scope is in every
@@ -393,7 +396,8 @@ export function caseResultJson(caller: SessionUser, caseId: number): string {
 
 /**
  * Freezes the case as its next proposal version: the input as the engine received it, its
- * result and the engine version. Nothing updates a proposal afterwards (the database refuses it).
+ * result and the engine version. Nothing updates a proposal afterwards (the database refuses it);
+ * its sales side starts as a quote ready to send, and replaces the case's older open quotes.
  */
 export function freezeProposal(caller: SessionUser, caseId: number): Proposal {
   const found = getCaseOrThrow(caller, caseId);
@@ -416,6 +420,7 @@ export function freezeProposal(caller: SessionUser, caseId: number): Proposal {
       })
       .returning()
       .all();
+    openQuoteFor(tx, row, found.ownerId);
     return row;
   });
   // Sending a proposal moves a case still being modelled to "proposed"; won and lost stay.
@@ -443,6 +448,7 @@ export type ProposalSummary = {
   capex: string;
   npv: string;
   paybackYears: number | null;
+  stage: QuoteStage;
   changes: string[];
 };
 
@@ -450,9 +456,10 @@ export type ProposalSummary = {
 export function listProposals(caller: SessionUser, caseId: number): ProposalSummary[] {
   getCaseOrThrow(caller, caseId);
   const rows = db
-    .select({ ...getTableColumns(proposals), createdByName: users.name })
+    .select({ ...getTableColumns(proposals), createdByName: users.name, stage: quotes.stage })
     .from(proposals)
     .innerJoin(users, eq(users.id, proposals.createdById))
+    .innerJoin(quotes, eq(quotes.proposalId, proposals.id))
     .where(eq(proposals.caseId, caseId))
     .orderBy(asc(proposals.version))
     .all();
@@ -468,6 +475,7 @@ export function listProposals(caller: SessionUser, caseId: number): ProposalSumm
     capex: row.result.totals.capex,
     npv: row.result.scenarios.physics.npv,
     paybackYears: row.result.scenarios.physics.paybackYears,
+    stage: row.stage,
     changes: proposalChanges(i === 0 ? null : rows[i - 1], row, i === 0 ? 0 : rows[i - 1].version),
   }));
 }

@@ -5,5 +5,8 @@ export * from "./catalogue";
 export * from "./installed-base";
 export * from "./imports";
 export * from "./cases";
+export * from "./quotes";
+export * from "./review";
+export * from "./mail";
 export * from "./revisions";
 export * from "./dossiers";

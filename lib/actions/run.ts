@@ -11,13 +11,13 @@ export async function runAction<S extends z.ZodType, T>(
   roles: Role[],
   schema: S,
   values: unknown,
-  mutate: (caller: SessionUser, data: z.infer<S>) => T,
+  mutate: (caller: SessionUser, data: z.infer<S>) => T | Promise<T>,
 ): Promise<ActionResult<T>> {
   try {
     const caller = await requireRole(...roles);
     const parsed = schema.safeParse(values);
     if (!parsed.success) return invalid(parsed.error);
-    return { ok: true, data: mutate(caller, parsed.data) };
+    return { ok: true, data: await mutate(caller, parsed.data) };
   } catch (error) {
     return failed(error);
   }

@@ -3,6 +3,8 @@ import path from "node:path";
 import { openDatabase } from "../../db/client";
 import { migrateDatabase } from "../../db/migrate";
 import { seedDatabase } from "../../db/seed";
+import { startRetryLoop } from "../mail/delivery";
+import { startFakeSmtpServer } from "../mail/fake-smtp-server";
 import { needsBuild } from "./build-check";
 
 // Commands run from the project root (npm scripts, tests, the bundled benchmarks).
@@ -46,4 +48,26 @@ export function spawnNext(
       NEXT_TELEMETRY_DISABLED: "1",
     },
   });
+}
+
+/**
+ * Mail for a local run: unless SMTP_URL names a real server, a fake SMTP server on loopback
+ * catches every message into the outbox table, and env.SMTP_URL points the app at it.
+ * `retry` also keeps a loop here that retries queued messages every 30 s.
+ */
+export async function startLocalMail(env: NodeJS.ProcessEnv, { retry = false } = {}) {
+  const db = openDatabase(env.DATABASE_PATH!);
+  const fake = env.SMTP_URL
+    ? null
+    : await startFakeSmtpServer(db, { port: Number(env.FAKE_SMTP_PORT || 0) });
+  if (fake) env.SMTP_URL = fake.url;
+  const stopRetry = retry ? startRetryLoop(db) : () => {};
+  return {
+    fake,
+    async close() {
+      stopRetry();
+      await fake?.close();
+      db.$client.close();
+    },
+  };
 }

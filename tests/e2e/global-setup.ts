@@ -3,7 +3,7 @@ import net from "node:net";
 import os from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
-import { ensureBuild, prepareDatabase, spawnNext } from "../../lib/cli/app-server";
+import { ensureBuild, prepareDatabase, spawnNext, startLocalMail } from "../../lib/cli/app-server";
 import { startLocalPayments } from "../../lib/cli/payment-fake";
 import { prepareRuntimeEnv } from "../../lib/cli/runtime-env";
 
@@ -42,7 +42,9 @@ async function waitForServer(url: string, timeoutMs: number) {
   throw new Error(`the app did not answer at ${url} within ${timeoutMs} ms`);
 }
 
-// Builds the app when needed and serves it on a free port over a fresh, seeded database file.
+// Builds the app when needed and serves it on a free port over a fresh, seeded database file,
+// with the local fake SMTP server catching its mail into the outbox table and the local fake
+// payment API taking its checkouts.
 export default async function setup(project: TestProject) {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "loopshift-e2e-"));
   const port = await freePort();
@@ -52,10 +54,12 @@ export default async function setup(project: TestProject) {
     DATABASE_PATH: path.join(dir, "e2e.db"),
     NEXTAUTH_URL: `http://localhost:${port}`,
     LOOPSHIFT_DEMO: "on",
+    SMTP_URL: "",
     STRIPE_FAKE: "on",
   });
   ensureBuild(env);
   prepareDatabase(env.DATABASE_PATH!);
+  const mail = await startLocalMail(env);
   const payments = (await startLocalPayments(env))!;
   const server = spawnNext(env, "start", "pipe");
   let log = "";
@@ -66,6 +70,7 @@ export default async function setup(project: TestProject) {
   } catch (error) {
     server.kill();
     await payments.close();
+    await mail.close();
     console.error(log);
     throw error;
   }
@@ -80,6 +85,7 @@ export default async function setup(project: TestProject) {
   return async () => {
     server.kill();
     await payments.close();
+    await mail.close();
     if (process.env.E2E_SERVER_LOG) fs.writeFileSync(process.env.E2E_SERVER_LOG, log);
   };
 }

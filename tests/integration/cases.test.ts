@@ -69,16 +69,27 @@ function withTariff(caseId: number, tariff: string) {
 }
 
 describe("the demo cases", () => {
-  it("seeds four cases at four stages, and one frozen proposal on the first account's proposed case", () => {
+  it("seeds seven cases at all five stages, five of them frozen as version 1 with a quote in the pipeline", () => {
     const all = listCases(manager());
-    expect(all).toHaveLength(4);
-    expect(new Set(all.map((c) => c.stage)).size).toBe(4);
+    expect(all).toHaveLength(7);
+    expect(new Set(all.map((c) => c.stage))).toEqual(
+      new Set(["draft", "modelled", "proposed", "won", "lost"]),
+    );
     expect(all.every((c) => c.axisCount >= 3 && c.axisCount <= 48)).toBe(true);
-    const proposed = all.find((c) => c.stage === "proposed")!;
-    expect(proposed.accountName).toBe("Cartonia Packaging Plant");
-    expect(proposed.latestVersion).toBe(1);
-    expect(all.filter((c) => c.latestVersion !== null)).toHaveLength(1);
-    expect(listProposals(engineer(), proposed.id)[0].changes).toEqual(["First version"]);
+    const underReview = caseNamed("North hall cartoners, phase 1");
+    expect(underReview).toMatchObject({
+      stage: "proposed",
+      accountName: "Cartonia Packaging Plant",
+      latestVersion: 1,
+    });
+    expect(all.filter((c) => c.latestVersion !== null)).toHaveLength(5);
+    const [version] = listProposals(engineer(), underReview.id);
+    expect(version.changes).toEqual(["First version"]);
+    expect(version.stage).toBe("sent");
+    // No draft or modelled case has a proposal yet.
+    expect(
+      all.filter((c) => c.stage === "draft" || c.stage === "modelled").map((c) => c.latestVersion),
+    ).toEqual([null, null]);
   });
 
   it("gives each case the result of evaluateCase on exactly the input it stores, which the engine's schema accepts", () => {
@@ -390,6 +401,7 @@ describe("who reaches which case (cross-account)", () => {
     const kitId = listKits(manager())[0].id;
     const axisId = listCaseAxes(engineer2(), theirs.id)[0].axisId;
     const { assumptions } = getCaseOrThrow(engineer2(), theirs.id);
+    const versionsBefore = listProposals(engineer2(), theirs.id);
     const attempts: [string, () => unknown][] = [
       ["getCaseOrThrow", () => getCaseOrThrow(engineer(), theirs.id)],
       ["buildCaseInput", () => buildCaseInput(engineer(), theirs.id)],
@@ -415,7 +427,7 @@ describe("who reaches which case (cross-account)", () => {
     for (const [name, attempt] of attempts) expect(attempt, name).toThrow(NotFoundError);
     // Nothing was changed on the way.
     expect(getCaseOrThrow(engineer2(), theirs.id).updatedAt).toBe(theirs.updatedAt);
-    expect(listProposals(engineer2(), theirs.id)).toEqual([]);
+    expect(listProposals(engineer2(), theirs.id)).toEqual(versionsBefore);
   });
 
   it("an engineer shared on an account works on its cases; managers see every account's", () => {

@@ -1,8 +1,10 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { saveSalesSettings } from "@/db/queries/sales-settings";
 import { changeRole, createUser, setUserActive } from "@/db/queries/users";
 import { runAction } from "@/lib/actions/run";
+import { salesSettingsSchema } from "@/lib/validations/pipeline";
 import { changeRoleSchema, createUserSchema, setActiveSchema } from "@/lib/validations/user";
 
 export async function createUserAction(values: unknown) {
@@ -26,5 +28,16 @@ export async function setActiveAction(values: unknown) {
     setUserActive(caller, data.userId, data.active),
   );
   if (result.ok) revalidatePath("/admin");
+  return result;
+}
+
+export async function saveSalesSettingsAction(values: unknown) {
+  const result = await runAction(["admin"], salesSettingsSchema, values, (caller, data) =>
+    saveSalesSettings(caller, data),
+  );
+  if (result.ok) {
+    revalidatePath("/admin/sales");
+    revalidatePath("/pipeline");
+  }
   return result;
 }

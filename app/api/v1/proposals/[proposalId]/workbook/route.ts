@@ -1,16 +1,21 @@
-import { getProposalOrThrow } from "@/db/queries/cases";
+import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { withApi } from "@/lib/api/handler";
 import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { requireUser } from "@/lib/auth";
 import { caseInputSchema } from "@/lib/engine";
 import { buildProposalWorkbook } from "@/lib/workbook";
 
 // A frozen proposal as an .xlsx: built from the input and result stored when it was frozen, so
-// it reads the same whatever happened to the case since.
+// it reads the same whatever happened to the case since. A reviewer downloads the workbooks of
+// the proposals sent to their account; any other id is not found.
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ proposalId: string }> }) => {
-    const caller = await requireRole("engineer", "manager", "admin");
-    const proposal = getProposalOrThrow(caller, idFromRoute((await context.params).proposalId));
+    const caller = await requireUser();
+    const { quote, input, result } = getProposalSnapshotOrThrow(
+      caller,
+      idFromRoute((await context.params).proposalId),
+    );
+    const proposal = { ...quote, input, result };
     const workbook = await buildProposalWorkbook(
       caseInputSchema.parse(proposal.input),
       proposal.result,

@@ -2,7 +2,6 @@ CREATE TABLE `input_revision` (
 	`id` integer PRIMARY KEY NOT NULL,
 	`revision` integer DEFAULT 0 NOT NULL
 );
-
 --> statement-breakpoint
 -- The counter's one row; every write to a table the engine input is built from bumps it.
 INSERT INTO `input_revision` (`id`, `revision`) VALUES (1, 0);

@@ -1,0 +1,347 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { ApproveDiscountButton } from "@/components/proposals/quote-manager-form";
+import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
+import { ValueByMonthChart, ValueByStageChart } from "@/components/pipeline/pipeline-charts";
+import { buttonClass } from "@/components/ui/button";
+import { Input, Select } from "@/components/ui/field";
+import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
+import { Table, Td, Th } from "@/components/ui/table";
+import { pipeline, pipelineFilterOptions, pipelineWinRate } from "@/db/queries/pipeline";
+import { getSalesSettings } from "@/db/queries/sales-settings";
+import { requirePageUser } from "@/lib/auth";
+import { firstParam, type SearchParams } from "@/lib/pages";
+import { sum } from "@/lib/pipeline/figures";
+import { OPEN_STAGES, QUOTE_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
+import { formatMoney, formatPayback, formatPct } from "@/lib/results/format";
+import { pipelineFiltersSchema } from "@/lib/validations/pipeline";
+
+export const metadata: Metadata = { title: "Pipeline" };
+
+const monthLabel = (month: string) =>
+  new Date(`${month}-01T00:00:00Z`).toLocaleDateString("en-GB", {
+    month: "short",
+    year: "numeric",
+    timeZone: "UTC",
+  });
+
+function monthsBefore(month: string, n: number) {
+  const [y, m] = month.split("-").map(Number);
+  const d = new Date(Date.UTC(y, m - 1 - n, 1));
+  return d.toISOString().slice(0, 7);
+}
+
+export default async function PipelinePage({ searchParams }: { searchParams: SearchParams }) {
+  const user = await requirePageUser("manager", "engineer");
+  const raw = await searchParams;
+  const filters = pipelineFiltersSchema.parse(
+    Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, firstParam(v)])),
+  );
+  const thisMonth = new Date().toISOString().slice(0, 7);
+  const period = { to: filters.to ?? thisMonth, from: filters.from ?? monthsBefore(thisMonth, 11) };
+  if (period.from > period.to) [period.from, period.to] = [period.to, period.from];
+
+  const data = pipeline(user, filters);
+  const options = pipelineFilterOptions(user);
+  const rate = pipelineWinRate(user, period, { owner: filters.owner, account: filters.account });
+  const settings = getSalesSettings();
+  const isManager = user.role === "manager";
+  const awaitingApproval = isManager
+    ? data.quotes.filter(
+        (q) =>
+          q.maxDiscountPct > settings.discountThresholdPct &&
+          !q.discountApprovedAt &&
+          OPEN_STAGES.includes(q.stage),
+      )
+    : [];
+  const filtered = Boolean(filters.owner || filters.stage || filters.account || filters.closeMonth);
+
+  return (
+    <div className="space-y-6">
+      <PageHeader
+        title="Pipeline"
+        lead={
+          isManager
+            ? "Every frozen proposal as a quote: where it stands with the customer, what it is worth, and when it should close."
+            : "Your quotes: where each stands with the customer, what it is worth, and when it should close."
+        }
+      />
+
+      <Panel title="Filters">
+        <form
+          method="get"
+          action="/pipeline"
+          role="search"
+          className="flex flex-wrap items-end gap-3"
+        >
+          {isManager ? (
+            <FilterField id="f-owner" label="Owner">
+              <Select id="f-owner" name="owner" defaultValue={filters.owner ?? ""} className="w-52">
+                <option value="">Every owner</option>
+                {options.owners.map((o) => (
+                  <option key={o.id} value={o.id}>
+                    {o.name}
+                  </option>
+                ))}
+              </Select>
+            </FilterField>
+          ) : null}
+          <FilterField id="f-stage" label="Stage">
+            <Select id="f-stage" name="stage" defaultValue={filters.stage ?? ""} className="w-56">
+              <option value="">Every stage</option>
+              {QUOTE_STAGES.map((s) => (
+                <option key={s} value={s}>
+                  {STAGE_LABELS[s]}
+                </option>
+              ))}
+            </Select>
+          </FilterField>
+          <FilterField id="f-account" label="Account">
+            <Select
+              id="f-account"
+              name="account"
+              defaultValue={filters.account ?? ""}
+              className="w-64"
+            >
+              <option value="">Every account</option>
+              {options.accounts.map((a) => (
+                <option key={a.id} value={a.id}>
+                  {a.name}
+                </option>
+              ))}
+            </Select>
+          </FilterField>
+          <FilterField id="f-close" label="Close month">
+            <Input
+              id="f-close"
+              name="closeMonth"
+              type="month"
+              defaultValue={filters.closeMonth ?? ""}
+              className="w-44"
+            />
+          </FilterField>
+          <FilterField id="f-from" label="Win rate from">
+            <Input
+              id="f-from"
+              name="from"
+              type="month"
+              defaultValue={period.from}
+              className="w-44"
+            />
+          </FilterField>
+          <FilterField id="f-to" label="Win rate to">
+            <Input id="f-to" name="to" type="month" defaultValue={period.to} className="w-44" />
+          </FilterField>
+          <button type="submit" className={buttonClass("secondary")}>
+            Apply filters
+          </button>
+          {filtered ? (
+            <Link href="/pipeline" className={buttonClass("ghost")}>
+              Clear
+            </Link>
+          ) : null}
+        </form>
+      </Panel>
+
+      {data.totals.length === 0 ? (
+        <EmptyState title={filtered ? "No quote matches these filters" : "No quotes yet"}>
+          A quote appears here when a case is frozen as a proposal.
+        </EmptyState>
+      ) : (
+        data.totals.map((t) => {
+          const inCurrency = data.quotes.filter((q) => q.currency === t.currency);
+          const open = inCurrency.filter((q) => OPEN_STAGES.includes(q.stage));
+          const stageRows = data.stages
+            .filter((s) => s.currency === t.currency)
+            .map((s) => ({ key: s.stage, label: STAGE_LABELS[s.stage], ...s }));
+          const monthRows = data.byMonth
+            .filter((m) => m.currency === t.currency && m.count > 0)
+            .map((m) => ({ key: m.month, label: monthLabel(m.month), ...m }));
+          return (
+            <section key={t.currency} aria-label={`Totals in ${t.currency}`} className="space-y-6">
+              <div className="grid gap-4 sm:grid-cols-2 xl:grid-cols-4">
+                <Card
+                  label="Quotes shown"
+                  value={String(t.count)}
+                  note={`${open.length} still open`}
+                />
+                <Card
+                  label="Total value (capex)"
+                  value={formatMoney(t.value, t.currency)}
+                  note={`Open: ${formatMoney(sum(open.map((q) => q.value)), t.currency)}`}
+                />
+                <Card
+                  label="Weighted value"
+                  value={formatMoney(t.weighted, t.currency)}
+                  note="Each quote's value × the chance of its stage"
+                  testId="weighted-total"
+                />
+                <WinRateCard rate={rate} period={period} />
+              </div>
+              <div className="grid gap-6 xl:grid-cols-2">
+                <ValueByStageChart rows={stageRows} currency={t.currency} />
+                <ValueByMonthChart rows={monthRows} currency={t.currency} />
+              </div>
+            </section>
+          );
+        })
+      )}
+
+      {awaitingApproval.length ? (
+        <Panel title="Discounts waiting for your approval">
+          <ul className="space-y-3">
+            {awaitingApproval.map((q) => (
+              <li key={q.id} className="flex flex-wrap items-center justify-between gap-3">
+                <span>
+                  <Link
+                    href={`/proposals/${q.id}`}
+                    className="font-bold text-flux-700 hover:underline"
+                  >
+                    {q.caseName}, v{q.version}
+                  </Link>{" "}
+                  · {q.accountName} · {q.ownerName} · kit discount up to {q.maxDiscountPct} % (above{" "}
+                  {settings.discountThresholdPct} %)
+                </span>
+                <ApproveDiscountButton proposalId={q.id} />
+              </li>
+            ))}
+          </ul>
+        </Panel>
+      ) : null}
+
+      {data.quotes.length ? (
+        <Panel title={`Quotes (${data.quotes.length})`}>
+          <Table caption="Quotes">
+            <thead>
+              <tr>
+                <Th>Proposal</Th>
+                <Th>Account</Th>
+                <Th>Owner</Th>
+                <Th>Stage</Th>
+                <Th className="text-right">Value</Th>
+                <Th className="text-right">Chance</Th>
+                <Th className="text-right">Weighted</Th>
+                <Th>Expected close</Th>
+                <Th className="text-right">Payback</Th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-steel-100">
+              {data.quotes.map((q) => (
+                <tr key={q.id} data-testid={`quote-${q.id}`}>
+                  <Td className="font-bold">
+                    <Link href={`/proposals/${q.id}`} className="text-flux-700 hover:underline">
+                      {q.caseName}, v{q.version}
+                    </Link>
+                  </Td>
+                  <Td>{q.accountName}</Td>
+                  <Td>{q.ownerName}</Td>
+                  <Td>
+                    <QuoteStageBadge stage={q.stage} />
+                  </Td>
+                  <Td className="whitespace-nowrap text-right tabular-nums">
+                    {formatMoney(q.value, q.currency)}
+                  </Td>
+                  <Td className="text-right tabular-nums">{q.probabilityPct} %</Td>
+                  <Td className="whitespace-nowrap text-right tabular-nums">
+                    {formatMoney(q.weighted, q.currency)}
+                  </Td>
+                  <Td className="whitespace-nowrap tabular-nums">{q.expectedCloseOn}</Td>
+                  <Td className="whitespace-nowrap text-right tabular-nums">
+                    {formatPayback(q.paybackYears)}
+                  </Td>
+                </tr>
+              ))}
+            </tbody>
+            <tfoot>
+              {data.totals.map((t) => (
+                <tr key={t.currency} className="bg-steel-50 font-bold">
+                  <Td colSpan={4}>Total ({t.count} quotes)</Td>
+                  <Td className="whitespace-nowrap text-right tabular-nums">
+                    {formatMoney(t.value, t.currency)}
+                  </Td>
+                  <Td />
+                  <Td className="whitespace-nowrap text-right tabular-nums">
+                    {formatMoney(t.weighted, t.currency)}
+                  </Td>
+                  <Td colSpan={2} />
+                </tr>
+              ))}
+            </tfoot>
+          </Table>
+          <p className="mt-3 text-caption text-steel-600">
+            Chance of closing per stage as the administrator set it
+            {settings.isDefault
+              ? " (still the starting estimates: replace them with your own win history)"
+              : ""}
+            . Amounts in different currencies are never added together.
+          </p>
+        </Panel>
+      ) : null}
+    </div>
+  );
+}
+
+function FilterField({
+  id,
+  label,
+  children,
+}: {
+  id: string;
+  label: string;
+  children: React.ReactNode;
+}) {
+  return (
+    <div>
+      <label htmlFor={id} className="block text-small font-bold text-steel-800">
+        {label}
+      </label>
+      {children}
+    </div>
+  );
+}
+
+function Card({
+  label,
+  value,
+  note,
+  testId,
+}: {
+  label: string;
+  value: string;
+  note: string;
+  testId?: string;
+}) {
+  return (
+    <div className="rounded-panel border border-steel-200 bg-white p-5 shadow-panel">
+      <p className="text-caption font-bold uppercase tracking-wide text-steel-600">{label}</p>
+      <p className="mt-1 text-headline font-black tabular-nums text-flux-800" data-testid={testId}>
+        {value}
+      </p>
+      <p className="mt-1 text-small text-steel-700">{note}</p>
+    </div>
+  );
+}
+
+function WinRateCard({
+  rate,
+  period,
+}: {
+  rate: { won: number; lost: number; ratePct: number | null };
+  period: { from: string; to: string };
+}) {
+  return (
+    <div className="rounded-panel border border-steel-200 bg-white p-5 shadow-panel">
+      <p className="text-caption font-bold uppercase tracking-wide text-steel-600">Win rate</p>
+      <p
+        className="mt-1 text-headline font-black tabular-nums text-flux-800"
+        data-testid="win-rate"
+      >
+        {rate.ratePct === null ? "—" : formatPct(rate.ratePct, 0)}
+      </p>
+      <p className="mt-1 text-small text-steel-700">
+        {rate.won} accepted, {rate.lost} declined, decided {monthLabel(period.from)} –{" "}
+        {monthLabel(period.to)}; the period is set in the filters
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,27 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { addComment, decideProposal } from "@/db/queries/proposal-review";
+import { runAction } from "@/lib/actions/run";
+import { commentSchema, decisionSchema } from "@/lib/validations/pipeline";
+
+function refresh(proposalId: number) {
+  revalidatePath("/review");
+  revalidatePath(`/review/proposals/${proposalId}`);
+}
+
+export async function decideAction(proposalId: number, values: unknown) {
+  const result = await runAction(["reviewer"], decisionSchema, values, (caller, data) =>
+    decideProposal(caller, proposalId, data),
+  );
+  if (result.ok) refresh(proposalId);
+  return result;
+}
+
+export async function addReviewerCommentAction(proposalId: number, values: unknown) {
+  const result = await runAction(["reviewer"], commentSchema, values, (caller, data) =>
+    addComment(caller, proposalId, data.body),
+  );
+  if (result.ok) refresh(proposalId);
+  return result;
+}

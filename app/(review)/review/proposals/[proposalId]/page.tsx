@@ -1,0 +1,131 @@
+import type { Metadata } from "next";
+import { addReviewerCommentAction } from "@/app/(review)/review/actions";
+import { CommentThread } from "@/components/proposals/comment-thread";
+import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
+import { CashFlowChart } from "@/components/results/cash-flow-chart";
+import { CautionsPanel } from "@/components/results/cautions-panel";
+import { EnergyByMachineChart } from "@/components/results/energy-by-machine-chart";
+import { HeadlineCards } from "@/components/results/headline-cards";
+import { AssumptionsList } from "@/components/review/assumptions-list";
+import { DecisionForm } from "@/components/review/decision-form";
+import { MachineFiguresTable } from "@/components/review/machine-figures-table";
+import { WhatIfPanel } from "@/components/review/what-if-panel";
+import { Breadcrumbs } from "@/components/ui/breadcrumbs";
+import { buttonClass } from "@/components/ui/button";
+import { PageHeader, Panel } from "@/components/ui/panel";
+import { listComments } from "@/db/queries/proposal-review";
+import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
+import { requirePageUser } from "@/lib/auth";
+import { idParam } from "@/lib/pages";
+import { DECIDABLE_STAGES } from "@/lib/pipeline/stages";
+import { parseCaseInput } from "@/lib/results/case-view";
+import { formatMoney, formatPayback } from "@/lib/results/format";
+
+export const metadata: Metadata = { title: "Proposal" };
+
+const DECIDED_TEXT = {
+  accepted: "You accepted this proposal",
+  declined: "You declined this proposal",
+  replaced: "A newer version replaced this one",
+} as const;
+
+export default async function ReviewProposalPage({
+  params,
+}: {
+  params: Promise<{ proposalId: string }>;
+}) {
+  const user = await requirePageUser("reviewer");
+  const id = idParam((await params).proposalId);
+  const { quote, input: rawInput, result } = getProposalSnapshotOrThrow(user, id);
+  const input = parseCaseInput(rawInput);
+  const comments = listComments(user, id);
+  const physics = result.scenarios.physics;
+  const horizon = physics.cashFlows.length - 1;
+  const decidable = DECIDABLE_STAGES.includes(quote.stage);
+
+  return (
+    <div className="space-y-6">
+      <Breadcrumbs
+        items={[
+          { href: "/review", label: "Proposals for review" },
+          { label: `${quote.caseName}, v${quote.version}` },
+        ]}
+      />
+      <PageHeader
+        title={`${quote.caseName}, version ${quote.version}`}
+        lead={`${quote.siteName} · sent by ${quote.ownerName} on ${quote.sentAt?.slice(0, 10)} · investment ${formatMoney(quote.value, quote.currency)}, paid back in ${formatPayback(physics.paybackYears, horizon)} as modelled`}
+        actions={
+          <div className="flex flex-wrap items-center gap-3">
+            <QuoteStageBadge stage={quote.stage} />
+            <a href={`/api/v1/proposals/${id}/workbook`} className={buttonClass("secondary")}>
+              Download the workbook (.xlsx)
+            </a>
+            {decidable ? (
+              <a href="#decision" className={buttonClass("primary")}>
+                Decide
+              </a>
+            ) : null}
+          </div>
+        }
+      />
+
+      <HeadlineCards result={result} input={input} />
+
+      {input ? (
+        <WhatIfPanel
+          proposalId={id}
+          proposal={result}
+          finance={{
+            tariffPerKWh: input.finance.tariffPerKWh,
+            tariffEscalationPct: input.finance.tariffEscalationPct,
+            discountRatePct: input.finance.discountRatePct,
+            horizonYears: input.finance.horizonYears,
+          }}
+          band={input.band}
+        />
+      ) : null}
+
+      <div className="grid gap-6 xl:grid-cols-2">
+        <CashFlowChart result={result} input={input} />
+        <EnergyByMachineChart result={result} input={input} />
+      </div>
+      <MachineFiguresTable result={result} input={input} />
+      <div className="grid gap-6 xl:grid-cols-2">
+        {input ? <AssumptionsList input={input} /> : null}
+        <CautionsPanel result={result} input={input} />
+      </div>
+
+      <div id="decision" className="scroll-mt-6">
+        <Panel title="Your decision">
+          {decidable ? (
+            <>
+              {quote.stage === "changes" ? (
+                <p className="mb-3 text-small text-steel-700">
+                  You asked for changes to this version. You may still accept or decline it as it
+                  stands.
+                </p>
+              ) : null}
+              <DecisionForm proposalId={id} />
+            </>
+          ) : (
+            <p className="text-body font-bold text-steel-900">
+              {DECIDED_TEXT[quote.stage as keyof typeof DECIDED_TEXT] ?? ""}
+              {quote.decidedAt ? ` on ${quote.decidedAt.slice(0, 10)}` : ""}.
+              <span className="block font-normal text-steel-700">
+                Write to your supplier in the comments below if anything needs saying.
+              </span>
+            </p>
+          )}
+        </Panel>
+      </div>
+
+      <Panel title="Questions and comments">
+        <CommentThread
+          comments={comments}
+          post={addReviewerCommentAction.bind(null, id)}
+          placeholder="Ask your supplier a question about this proposal"
+        />
+      </Panel>
+    </div>
+  );
+}

@@ -1,0 +1,15 @@
+import { NextResponse } from "next/server";
+import { approveDiscount } from "@/db/queries/quotes";
+import { withApi } from "@/lib/api/handler";
+import { idFromRoute } from "@/lib/api/params";
+import { requireRole } from "@/lib/auth";
+
+// A sales manager approves a kit discount above the administrator's threshold.
+export const POST = withApi(
+  async (_request: Request, context: { params: Promise<{ proposalId: string }> }) => {
+    const caller = await requireRole("manager");
+    const id = idFromRoute((await context.params).proposalId);
+    approveDiscount(caller, id);
+    return NextResponse.json({ approved: true });
+  },
+);

@@ -1,0 +1,17 @@
+import { NextResponse } from "next/server";
+import { sendProposal } from "@/db/queries/quotes";
+import { readJsonBody, withApi } from "@/lib/api/handler";
+import { idFromRoute } from "@/lib/api/params";
+import { requireRole } from "@/lib/auth";
+import { sendProposalSchema } from "@/lib/validations/pipeline";
+
+// Sends the proposal to the customer's reviewer `{ email, name }`; `mail.status` is "queued"
+// with a notice when the mail server did not take the message yet (it is retried).
+export const POST = withApi(
+  async (request: Request, context: { params: Promise<{ proposalId: string }> }) => {
+    const caller = await requireRole("engineer", "manager", "admin");
+    const id = idFromRoute((await context.params).proposalId);
+    const body = sendProposalSchema.parse(await readJsonBody(request, 64 * 1024));
+    return NextResponse.json(await sendProposal(caller, id, body));
+  },
+);

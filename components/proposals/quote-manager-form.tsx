@@ -1,0 +1,130 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState, useTransition } from "react";
+import { approveDiscountAction, updateQuoteAction } from "@/app/(app)/proposals/actions";
+import { Button } from "@/components/ui/button";
+import { Field, Input, Select } from "@/components/ui/field";
+import { QUOTE_STAGES, STAGE_LABELS, type QuoteStage } from "@/lib/pipeline/stages";
+
+/** A manager's controls on a quote: stage, owner, expected close date. Every change is audited. */
+export function QuoteManagerForm({
+  proposalId,
+  stage,
+  ownerId,
+  expectedCloseOn,
+  owners,
+}: {
+  proposalId: number;
+  stage: QuoteStage;
+  ownerId: number;
+  expectedCloseOn: string;
+  owners: { id: number; name: string; role: string }[];
+}) {
+  const router = useRouter();
+  const [values, setValues] = useState({ stage, ownerId: String(ownerId), expectedCloseOn });
+  const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
+  const [pending, start] = useTransition();
+
+  function submit(event: React.FormEvent) {
+    event.preventDefault();
+    start(async () => {
+      const result = await updateQuoteAction(proposalId, {
+        stage: values.stage,
+        ownerId: Number(values.ownerId),
+        expectedCloseOn: values.expectedCloseOn,
+      });
+      if (!result.ok)
+        return setMessage({
+          tone: "error",
+          text: Object.values(result.fieldErrors)[0] ?? result.message,
+        });
+      setMessage({
+        tone: "ok",
+        text: result.data.changes.length
+          ? `Saved: ${result.data.changes.join("; ")}.`
+          : "Nothing changed.",
+      });
+      router.refresh();
+    });
+  }
+
+  return (
+    <form onSubmit={submit} aria-label="Manage the quote" className="space-y-4">
+      <div className="grid gap-4 md:grid-cols-3">
+        <Field id="quote-stage" label="Stage">
+          <Select
+            id="quote-stage"
+            value={values.stage}
+            onChange={(e) => setValues((v) => ({ ...v, stage: e.target.value as QuoteStage }))}
+          >
+            {QUOTE_STAGES.map((s) => (
+              <option key={s} value={s}>
+                {STAGE_LABELS[s]}
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field id="quote-owner" label="Owner">
+          <Select
+            id="quote-owner"
+            value={values.ownerId}
+            onChange={(e) => setValues((v) => ({ ...v, ownerId: e.target.value }))}
+          >
+            {owners.map((o) => (
+              <option key={o.id} value={o.id}>
+                {o.name} ({o.role})
+              </option>
+            ))}
+          </Select>
+        </Field>
+        <Field id="quote-close" label="Expected close">
+          <Input
+            id="quote-close"
+            type="date"
+            value={values.expectedCloseOn}
+            onChange={(e) => setValues((v) => ({ ...v, expectedCloseOn: e.target.value }))}
+          />
+        </Field>
+      </div>
+      <div className="flex flex-wrap items-center gap-3">
+        <Button type="submit" variant="secondary" disabled={pending}>
+          {pending ? "Saving…" : "Save quote"}
+        </Button>
+        <p
+          aria-live="polite"
+          role="status"
+          className={`text-small font-bold ${message?.tone === "error" ? "text-danger-700" : "text-success-700"}`}
+        >
+          {message?.text}
+        </p>
+      </div>
+    </form>
+  );
+}
+
+/** A manager approves a kit discount above the threshold, so the proposal may be sent. */
+export function ApproveDiscountButton({ proposalId }: { proposalId: number }) {
+  const router = useRouter();
+  const [message, setMessage] = useState<string | null>(null);
+  const [pending, start] = useTransition();
+  return (
+    <div className="flex flex-wrap items-center gap-3">
+      <Button
+        disabled={pending}
+        onClick={() =>
+          start(async () => {
+            const result = await approveDiscountAction(proposalId);
+            if (!result.ok) return setMessage(result.message);
+            router.refresh();
+          })
+        }
+      >
+        Approve the discount
+      </Button>
+      <p aria-live="polite" role="status" className="text-small font-bold text-danger-700">
+        {message}
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,106 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState, useTransition } from "react";
+import { decideAction } from "@/app/(review)/review/actions";
+import { Button } from "@/components/ui/button";
+
+const CHOICES = [
+  {
+    value: "accept",
+    label: "Accept the proposal",
+    hint: "Your supplier will plan the retrofit with you.",
+  },
+  {
+    value: "changes",
+    label: "Ask for changes",
+    hint: "Say what should change; a new version will follow.",
+  },
+  { value: "decline", label: "Decline", hint: "Nothing further happens with this version." },
+] as const;
+
+type Decision = (typeof CHOICES)[number]["value"];
+
+/** The reviewer's decision with a comment; the supplier's engineer is told by e-mail. */
+export function DecisionForm({ proposalId }: { proposalId: number }) {
+  const router = useRouter();
+  const [decision, setDecision] = useState<Decision | null>(null);
+  const [comment, setComment] = useState("");
+  const [message, setMessage] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
+  const [pending, start] = useTransition();
+
+  function submit(event: React.FormEvent) {
+    event.preventDefault();
+    if (!decision) return setMessage({ tone: "error", text: "Choose one of the three answers." });
+    start(async () => {
+      const result = await decideAction(proposalId, { decision, comment });
+      if (!result.ok)
+        return setMessage({
+          tone: "error",
+          text: result.fieldErrors.comment ?? result.message,
+        });
+      setMessage({
+        tone: "ok",
+        text:
+          result.data.mail.status === "queued"
+            ? `Your decision is recorded. ${result.data.mail.notice}`
+            : "Your decision is recorded and your supplier has been told.",
+      });
+      router.refresh();
+    });
+  }
+
+  return (
+    <form onSubmit={submit} aria-label="Decision" className="space-y-4">
+      <fieldset>
+        <legend className="mb-2 text-small font-bold text-steel-800">Your answer</legend>
+        <div className="grid gap-2 md:grid-cols-3">
+          {CHOICES.map((c) => (
+            <label
+              key={c.value}
+              className={`flex cursor-pointer gap-3 rounded-md border p-3 ${decision === c.value ? "border-flux-600 bg-flux-50" : "border-steel-300 bg-white hover:border-flux-400"}`}
+            >
+              <input
+                type="radio"
+                name="decision"
+                value={c.value}
+                checked={decision === c.value}
+                onChange={() => setDecision(c.value)}
+                className="mt-1"
+              />
+              <span>
+                <span className="block font-bold text-steel-900">{c.label}</span>
+                <span className="block text-small text-steel-700">{c.hint}</span>
+              </span>
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      <div className="space-y-1">
+        <label htmlFor="decision-comment" className="block text-small font-bold text-steel-800">
+          Comment {decision === "changes" ? "(required: what should change?)" : "(optional)"}
+        </label>
+        <textarea
+          id="decision-comment"
+          value={comment}
+          onChange={(e) => setComment(e.target.value)}
+          rows={3}
+          maxLength={4000}
+          className="block w-full rounded-md border border-steel-300 bg-white px-3 py-2 text-body"
+        />
+      </div>
+      <div className="flex flex-wrap items-center gap-3">
+        <Button type="submit" disabled={pending}>
+          {pending ? "Sending…" : "Send my decision"}
+        </Button>
+        <p
+          aria-live="polite"
+          role="status"
+          className={`text-small font-bold ${message?.tone === "error" ? "text-danger-700" : "text-success-700"}`}
+        >
+          {message?.text}
+        </p>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,201 @@
+"use client";
+
+import { useState } from "react";
+import { Badge } from "@/components/ui/badge";
+import { Button } from "@/components/ui/button";
+import { Field, Input } from "@/components/ui/field";
+import { Panel } from "@/components/ui/panel";
+import { Table, Td, Th } from "@/components/ui/table";
+import type { CaseResult } from "@/lib/engine";
+import { useWhatIf, WhatIfError } from "@/lib/hooks/use-what-if";
+import { formatIrr, formatMoney, formatMoneyChange, formatPayback } from "@/lib/results/format";
+import { SCENARIO_KEYS, scenarioLabel } from "@/lib/results/scenarios";
+import Decimal from "decimal.js";
+
+export type SandboxFinance = {
+  tariffPerKWh: string;
+  tariffEscalationPct: number;
+  discountRatePct: number;
+  horizonYears: number;
+};
+
+const FIELDS: {
+  key: keyof SandboxFinance;
+  label: string;
+  unit: (c: string) => string;
+  step: string;
+}[] = [
+  { key: "tariffPerKWh", label: "Electricity tariff", unit: (c) => `${c}/kWh`, step: "0.001" },
+  { key: "tariffEscalationPct", label: "Tariff escalation", unit: () => "% per year", step: "0.1" },
+  { key: "discountRatePct", label: "Discount rate", unit: () => "% per year", step: "0.1" },
+  { key: "horizonYears", label: "Horizon", unit: () => "years", step: "1" },
+];
+
+function toRequest(values: Record<keyof SandboxFinance, string>) {
+  const number = (v: string) => (v.trim() === "" ? undefined : Number(v));
+  return {
+    tariffPerKWh: values.tariffPerKWh.trim() || undefined,
+    tariffEscalationPct: number(values.tariffEscalationPct),
+    discountRatePct: number(values.discountRatePct),
+    horizonYears: number(values.horizonYears),
+  };
+}
+
+/**
+ * The sandbox: the reviewer's own tariff, escalation, discount rate and horizon run through the
+ * engine on the frozen proposal, shown beside the proposal's figures. Nothing is saved.
+ */
+export function WhatIfPanel({
+  proposalId,
+  proposal,
+  finance,
+  band,
+}: {
+  proposalId: number;
+  proposal: CaseResult;
+  finance: SandboxFinance;
+  band: { lowPct: number; highPct: number };
+}) {
+  const initial = Object.fromEntries(FIELDS.map((f) => [f.key, String(finance[f.key])])) as Record<
+    keyof SandboxFinance,
+    string
+  >;
+  const [values, setValues] = useState(initial);
+  const whatIf = useWhatIf(proposalId);
+  const error = whatIf.error instanceof WhatIfError ? whatIf.error : null;
+  const currency = proposal.currency;
+  const mine = whatIf.data;
+
+  return (
+    <Panel title="Try your own figures">
+      <p className="mb-4 text-small text-steel-700">
+        Change the finance figures to your own and see the payback move. This is a sandbox: the
+        proposal itself and its workbook stay exactly as sent.
+      </p>
+      <form
+        aria-label="What-if figures"
+        onSubmit={(e) => {
+          e.preventDefault();
+          whatIf.mutate(toRequest(values));
+        }}
+        className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4"
+        noValidate
+      >
+        {FIELDS.map((f) => (
+          <Field
+            key={f.key}
+            id={`what-if-${f.key}`}
+            label={`${f.label} [${f.unit(currency)}]`}
+            hint={`In the proposal: ${finance[f.key]}`}
+            error={error?.fields[f.key]}
+          >
+            <Input
+              id={`what-if-${f.key}`}
+              type="number"
+              inputMode="decimal"
+              step={f.step}
+              value={values[f.key]}
+              invalid={!!error?.fields[f.key]}
+              onChange={(e) => setValues((v) => ({ ...v, [f.key]: e.target.value }))}
+            />
+          </Field>
+        ))}
+        <div className="flex flex-wrap items-center gap-3 sm:col-span-2 lg:col-span-4">
+          <Button type="submit" disabled={whatIf.isPending}>
+            {whatIf.isPending ? "Computing…" : "Compute with these figures"}
+          </Button>
+          <Button
+            variant="ghost"
+            onClick={() => {
+              setValues(initial);
+              whatIf.reset();
+            }}
+          >
+            Back to the proposal&apos;s figures
+          </Button>
+          <p aria-live="polite" role="status" className="text-small font-bold text-danger-700">
+            {whatIf.isError
+              ? (error?.message ?? "The sandbox could not be reached. Try again.")
+              : null}
+          </p>
+        </div>
+      </form>
+
+      <div className="mt-5">
+        <Table caption="The proposal's figures beside your what-if">
+          <thead>
+            <tr>
+              <Th>Scenario</Th>
+              <Th>Figure</Th>
+              <Th className="text-right">Proposal</Th>
+              <Th className="text-right">Your figures</Th>
+              <Th className="text-right">Difference</Th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-steel-100">
+            {SCENARIO_KEYS.flatMap((key) => {
+              const a = proposal.scenarios[key];
+              const b = mine?.scenarios[key];
+              const horizonA = a.cashFlows.length - 1;
+              const horizonB = b ? b.cashFlows.length - 1 : horizonA;
+              const rows: [string, string, string, string][] = [
+                [
+                  "NPV",
+                  formatMoney(a.npv, currency),
+                  b ? formatMoney(b.npv, currency) : "—",
+                  b ? formatMoneyChange(new Decimal(b.npv).minus(a.npv).toFixed(), currency) : "",
+                ],
+                [
+                  "Payback",
+                  formatPayback(a.paybackYears, horizonA),
+                  b ? formatPayback(b.paybackYears, horizonB) : "—",
+                  "",
+                ],
+                [
+                  "Discounted payback",
+                  formatPayback(a.discountedPaybackYears, horizonA),
+                  b ? formatPayback(b.discountedPaybackYears, horizonB) : "—",
+                  "",
+                ],
+                ["IRR", formatIrr(a.irr), b ? formatIrr(b.irr) : "—", ""],
+              ];
+              return rows.map(([figure, before, after, change], i) => (
+                <tr
+                  key={`${key}-${figure}`}
+                  className={i === 0 ? "border-t-2 border-steel-200" : ""}
+                >
+                  {i === 0 ? (
+                    <Td rowSpan={rows.length} className="align-top font-bold">
+                      {scenarioLabel(key, band)}
+                      {key === "physics" ? (
+                        <span className="mt-1 block">
+                          <Badge tone="flux">Basis of the proposal</Badge>
+                        </span>
+                      ) : null}
+                    </Td>
+                  ) : null}
+                  <Td>{figure}</Td>
+                  <Td className="whitespace-nowrap text-right tabular-nums">{before}</Td>
+                  <Td
+                    className={`whitespace-nowrap text-right font-bold tabular-nums ${b ? "text-flux-800" : "text-steel-500"}`}
+                    data-testid={`what-if-${key}-${figure.toLowerCase().replace(/ /g, "-")}`}
+                  >
+                    {after}
+                  </Td>
+                  <Td className="whitespace-nowrap text-right tabular-nums text-steel-700">
+                    {change}
+                  </Td>
+                </tr>
+              ));
+            })}
+          </tbody>
+        </Table>
+        {!mine ? (
+          <p className="mt-2 text-small text-steel-600">
+            Your figures appear here after you compute them.
+          </p>
+        ) : null}
+      </div>
+    </Panel>
+  );
+}

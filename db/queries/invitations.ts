@@ -1,0 +1,156 @@
+import { createHash, randomBytes } from "node:crypto";
+import { and, eq, isNull, ne } from "drizzle-orm";
+import { db } from "@/db";
+import { accounts, invitations, users } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import { ConflictError, NotFoundError } from "@/lib/errors";
+import { recordAudit } from "./audit";
+
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+export const INVITATION_DAYS = 7;
+
+export const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
+
+/**
+ * A new single-use invitation for the user, replacing any open one; returns the token, which is
+ * only ever in the e-mail (the table keeps its hash).
+ */
+export function createInvitation(
+  tx: Tx,
+  args: { userId: number; proposalId: number | null; createdById: number; now?: Date },
+) {
+  const now = args.now ?? new Date();
+  tx.update(invitations)
+    .set({ revokedAt: now.toISOString() })
+    .where(
+      and(
+        eq(invitations.userId, args.userId),
+        isNull(invitations.usedAt),
+        isNull(invitations.revokedAt),
+      ),
+    )
+    .run();
+  const token = randomBytes(32).toString("base64url");
+  const expiresAt = new Date(now.getTime() + INVITATION_DAYS * 24 * 3600 * 1000).toISOString();
+  tx.insert(invitations)
+    .values({
+      userId: args.userId,
+      proposalId: args.proposalId,
+      tokenHash: hashToken(token),
+      expiresAt,
+      createdById: args.createdById,
+    })
+    .run();
+  return { token, expiresAt };
+}
+
+/** Whether the user came in by invitation and has not chosen a password through one yet. */
+export function awaitsFirstPassword(userId: number): boolean {
+  const rows = db
+    .select({ usedAt: invitations.usedAt })
+    .from(invitations)
+    .where(eq(invitations.userId, userId))
+    .all();
+  return rows.length > 0 && rows.every((r) => r.usedAt === null);
+}
+
+export type InvitationState =
+  | {
+      state: "open";
+      email: string;
+      name: string;
+      accountName: string | null;
+      expiresAt: string;
+      proposalId: number | null;
+    }
+  | { state: "invalid" | "used" | "replaced" }
+  | { state: "expired"; expiredAt: string };
+
+// The invitation page runs before anyone is signed in: the token itself is the credential.
+export function inspectInvitation(token: string, now = new Date()): InvitationState {
+  const row = db
+    .select({
+      invitation: invitations,
+      email: users.email,
+      name: users.name,
+      active: users.active,
+      accountName: accounts.name,
+    })
+    .from(invitations)
+    .innerJoin(users, eq(users.id, invitations.userId))
+    .leftJoin(accounts, eq(accounts.id, users.accountId))
+    .where(eq(invitations.tokenHash, hashToken(token)))
+    .get();
+  if (!row || !row.active) return { state: "invalid" };
+  if (row.invitation.usedAt) return { state: "used" };
+  if (row.invitation.revokedAt) return { state: "replaced" };
+  if (Date.parse(row.invitation.expiresAt) <= now.getTime())
+    return { state: "expired", expiredAt: row.invitation.expiresAt };
+  return {
+    state: "open",
+    email: row.email,
+    name: row.name,
+    accountName: row.accountName,
+    expiresAt: row.invitation.expiresAt,
+    proposalId: row.invitation.proposalId,
+  };
+}
+
+export const INVITATION_MESSAGES = {
+  invalid:
+    "This invitation link is not valid. Check that the whole address was copied from the e-mail.",
+  used: "This invitation link has already been used to choose a password; it works only once. Sign in with your e-mail address and that password.",
+  replaced:
+    "A newer invitation replaced this link. Use the link in the most recent e-mail you received.",
+  expired:
+    "This invitation link has expired. Ask your contact at the supplier to send the proposal again; you will receive a new link.",
+} as const;
+
+/** Sets the password once; the link (and any other open one of the user's) is dead afterwards. */
+export function acceptInvitation(token: string, password: string, now = new Date()) {
+  const state = inspectInvitation(token, now);
+  if (state.state === "invalid") throw new NotFoundError(INVITATION_MESSAGES.invalid);
+  if (state.state !== "open") throw new ConflictError(INVITATION_MESSAGES[state.state]);
+  const passwordHash = hashPassword(password);
+  const stamp = now.toISOString();
+  const user = db.transaction((tx) => {
+    const invitation = tx
+      .select()
+      .from(invitations)
+      .where(eq(invitations.tokenHash, hashToken(token)))
+      .get()!;
+    // Checked again inside the transaction: two tabs submitting at once set the password once.
+    const claimed = tx
+      .update(invitations)
+      .set({ usedAt: stamp })
+      .where(and(eq(invitations.id, invitation.id), isNull(invitations.usedAt)))
+      .run();
+    if (claimed.changes !== 1) throw new ConflictError(INVITATION_MESSAGES.used);
+    tx.update(invitations)
+      .set({ revokedAt: stamp })
+      .where(
+        and(
+          eq(invitations.userId, invitation.userId),
+          ne(invitations.id, invitation.id),
+          isNull(invitations.usedAt),
+          isNull(invitations.revokedAt),
+        ),
+      )
+      .run();
+    tx.update(users).set({ passwordHash }).where(eq(users.id, invitation.userId)).run();
+    return tx
+      .select({ id: users.id, email: users.email })
+      .from(users)
+      .where(eq(users.id, invitation.userId))
+      .get()!;
+  });
+  recordAudit({
+    actor: user,
+    action: "invitation.accept",
+    targetType: "user",
+    targetId: user.id,
+    detail: `${user.email} chose a password`,
+  });
+  return { email: user.email, proposalId: state.proposalId };
+}

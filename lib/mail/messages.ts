@@ -1,0 +1,149 @@
+import { formatMoney, formatPayback } from "../results/format";
+import { composeMail, type MailContent } from "./layout";
+
+// The messages Loopshift sends, in its own words. Links are absolute (they are opened from a
+// mail program); the caller passes them in so that these stay pure and testable.
+
+export type ProposalFacts = {
+  accountName: string;
+  caseName: string;
+  version: number;
+  capex: string;
+  currency: string;
+  paybackYears: number | null;
+  horizonYears: number;
+};
+
+function factRows(p: ProposalFacts): [string, string][] {
+  return [
+    ["Proposal", `${p.caseName}, version ${p.version}`],
+    ["For", p.accountName],
+    ["Investment (capex)", formatMoney(p.capex, p.currency)],
+    ["Payback, modelled physics", formatPayback(p.paybackYears, p.horizonYears)],
+  ];
+}
+
+const dateText = (iso: string) =>
+  new Date(iso).toLocaleDateString("en-GB", {
+    day: "numeric",
+    month: "long",
+    year: "numeric",
+    timeZone: "UTC",
+  });
+
+/** To a reviewer who has no password yet: set one through the single-use link, then review. */
+export function invitationMail(args: {
+  recipientName: string;
+  senderName: string;
+  proposal: ProposalFacts;
+  invitationUrl: string;
+  expiresAt: string;
+  email: string;
+}): MailContent {
+  const { proposal: p } = args;
+  return composeMail(
+    `Retrofit proposal for ${p.accountName}: ${p.caseName}, version ${p.version}`,
+    `A retrofit proposal is waiting for your review`,
+    [
+      { kind: "paragraph", text: `Hello ${args.recipientName},` },
+      {
+        kind: "paragraph",
+        text: `${args.senderName} has sent you a proposal to convert open-loop stepper axes to closed-loop control. You can check the payback, try your own tariff, discount rate and horizon, download the workbook, and accept, ask for changes or decline.`,
+      },
+      { kind: "facts", rows: factRows(p) },
+      {
+        kind: "paragraph",
+        text: `First choose a password for your reviewer account (${args.email}). The link works once and until ${dateText(args.expiresAt)}.`,
+      },
+      {
+        kind: "button",
+        label: "Choose a password and open the proposal",
+        href: args.invitationUrl,
+      },
+      {
+        kind: "note",
+        text: "If you did not expect this message, ignore it: nothing happens until the link is used.",
+      },
+    ],
+  );
+}
+
+/** To a reviewer who already has a password: a new proposal is in their portal. */
+export function proposalSentMail(args: {
+  recipientName: string;
+  senderName: string;
+  proposal: ProposalFacts;
+  proposalUrl: string;
+}): MailContent {
+  const { proposal: p } = args;
+  return composeMail(
+    `Retrofit proposal for ${p.accountName}: ${p.caseName}, version ${p.version}`,
+    `A retrofit proposal is waiting for your review`,
+    [
+      { kind: "paragraph", text: `Hello ${args.recipientName},` },
+      {
+        kind: "paragraph",
+        text: `${args.senderName} has sent you a proposal to convert open-loop stepper axes to closed-loop control. Sign in to check the payback, try your own figures and decide.`,
+      },
+      { kind: "facts", rows: factRows(p) },
+      { kind: "button", label: "Open the proposal", href: args.proposalUrl },
+    ],
+  );
+}
+
+export type Decision = "accept" | "changes" | "decline";
+
+const DECISION_WORDS: Record<Decision, string> = {
+  accept: "accepted",
+  changes: "asked for changes to",
+  decline: "declined",
+};
+
+/** To the quote's owner at the vendor: the reviewer's decision and comment. */
+export function decisionMail(args: {
+  recipientName: string;
+  reviewerName: string;
+  decision: Decision;
+  comment: string;
+  proposal: ProposalFacts;
+  proposalUrl: string;
+}): MailContent {
+  const { proposal: p } = args;
+  const verb = DECISION_WORDS[args.decision];
+  return composeMail(
+    `${args.reviewerName} ${verb} ${p.caseName}, version ${p.version}`,
+    `${args.reviewerName} ${verb} the proposal`,
+    [
+      { kind: "paragraph", text: `Hello ${args.recipientName},` },
+      {
+        kind: "paragraph",
+        text: `${args.reviewerName} of ${p.accountName} ${verb} version ${p.version} of "${p.caseName}".`,
+      },
+      ...(args.comment.trim()
+        ? [{ kind: "quote" as const, text: args.comment.trim() }]
+        : [{ kind: "note" as const, text: "No comment was given." }]),
+      { kind: "facts", rows: factRows(p) },
+      { kind: "button", label: "Open the proposal", href: args.proposalUrl },
+    ],
+  );
+}
+
+/** To the other side of a proposal's conversation: a new comment. */
+export function commentMail(args: {
+  recipientName: string;
+  authorName: string;
+  body: string;
+  proposal: ProposalFacts;
+  proposalUrl: string;
+}): MailContent {
+  const { proposal: p } = args;
+  return composeMail(
+    `New comment on ${p.caseName}, version ${p.version}`,
+    `${args.authorName} commented on the proposal`,
+    [
+      { kind: "paragraph", text: `Hello ${args.recipientName},` },
+      { kind: "quote", text: args.body.trim() },
+      { kind: "button", label: "Reply in Loopshift", href: args.proposalUrl },
+    ],
+  );
+}

@@ -1,0 +1,61 @@
+import Decimal from "decimal.js";
+import type { CaseInput, CaseResult } from "../engine";
+import { roundMoney } from "../engine/money";
+import type { QuoteStage } from "./stages";
+
+/** What a quote copies from its frozen proposal once: value, currency, payback, top discount. */
+export function quoteFigures(input: CaseInput, result: CaseResult) {
+  return {
+    value: result.totals.capex,
+    currency: result.currency,
+    paybackYears: result.scenarios.physics.paybackYears,
+    maxDiscountPct: Math.max(0, ...input.axes.map((a) => a.retrofit.discountPct ?? 0)),
+  };
+}
+
+/** Value × the stage's probability, rounded half-even to the currency's minor unit. */
+export function weightedValue(value: string, probabilityPct: number, currency: string): string {
+  return roundMoney(new Decimal(value).times(probabilityPct).dividedBy(100).toFixed(), currency);
+}
+
+export type StageTotal = {
+  stage: QuoteStage;
+  currency: string;
+  count: number;
+  value: string;
+  weighted: string;
+};
+
+/**
+ * Sums per stage and currency of the quotes given, in Decimal: the totals are exactly the sum
+ * of the rows shown (amounts in different currencies are never added together).
+ */
+export function stageTotals(
+  quotes: { stage: QuoteStage; currency: string; value: string; weighted: string }[],
+  stages: readonly QuoteStage[],
+): StageTotal[] {
+  const currencies = [...new Set(quotes.map((q) => q.currency))].sort();
+  return currencies.flatMap((currency) =>
+    stages.map((stage) => {
+      const rows = quotes.filter((q) => q.currency === currency && q.stage === stage);
+      return {
+        stage,
+        currency,
+        count: rows.length,
+        value: sum(rows.map((r) => r.value)),
+        weighted: sum(rows.map((r) => r.weighted)),
+      };
+    }),
+  );
+}
+
+export function sum(values: string[]): string {
+  return values.reduce((s, v) => s.plus(v), new Decimal(0)).toFixed();
+}
+
+/** Win rate of decided quotes: accepted over accepted plus declined, by count; null when none. */
+export function winRate(decided: { stage: QuoteStage }[]) {
+  const won = decided.filter((q) => q.stage === "accepted").length;
+  const lost = decided.filter((q) => q.stage === "declined").length;
+  return { won, lost, ratePct: won + lost === 0 ? null : (100 * won) / (won + lost) };
+}

@@ -1,0 +1,109 @@
+import { z } from "zod";
+import { QUOTE_STAGES } from "@/db/schema/quotes";
+import { int, money, num } from "@/lib/engine/schema-fields";
+
+const stageField = z.enum(QUOTE_STAGES, {
+  error: `Choose one of the stages: ${QUOTE_STAGES.join(", ")}`,
+});
+const probability = z.coerce
+  .number({ error: "Enter a percentage" })
+  .min(0, "Use 0 to 100 %")
+  .max(100, "Use 0 to 100 %");
+
+export const salesSettingsSchema = z.object({
+  discountThresholdPct: z.coerce
+    .number({ error: "Enter a percentage" })
+    .min(0, "Use 0 to 100 %")
+    .max(100, "Use 0 to 100 %"),
+  stageProbabilities: z.object(
+    Object.fromEntries(QUOTE_STAGES.map((s) => [s, probability])) as Record<
+      (typeof QUOTE_STAGES)[number],
+      typeof probability
+    >,
+  ),
+});
+
+export const sendProposalSchema = z.object({
+  email: z.string().trim().toLowerCase().email("Enter the reviewer's e-mail address"),
+  name: z
+    .string()
+    .trim()
+    .min(1, "Enter the reviewer's name")
+    .max(120, "Keep the name under 120 characters"),
+});
+
+export const DECISIONS = ["accept", "changes", "decline"] as const;
+
+export const decisionSchema = z
+  .object({
+    decision: z.enum(DECISIONS, { error: 'Choose "accept", "changes" or "decline"' }),
+    comment: z.string().trim().max(4000, "Keep the comment under 4000 characters").default(""),
+  })
+  .superRefine((value, ctx) => {
+    if (value.decision === "changes" && !value.comment)
+      ctx.addIssue({
+        code: "custom",
+        path: ["comment"],
+        message: "Say what should change, so the engineer can prepare a new version",
+      });
+  });
+
+export const commentSchema = z.object({
+  body: z
+    .string()
+    .trim()
+    .min(1, "Write a comment first")
+    .max(4000, "Keep the comment under 4000 characters"),
+});
+
+// The finance figures a reviewer may try in the sandbox, checked as the engine checks them
+// (ENGINE.md §2): absent ones keep the proposal's own value.
+export const whatIfSchema = z
+  .object({
+    tariffPerKWh: money().optional(),
+    tariffEscalationPct: num()
+      .gt(-100, "must be greater than -100")
+      .max(100, "must be at most 100")
+      .optional(),
+    discountRatePct: num()
+      .gt(-100, "must be greater than -100")
+      .max(100, "must be at most 100")
+      .optional(),
+    horizonYears: int(1, 30).optional(),
+  })
+  .strict();
+
+const dateOnly = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, "Use a date such as 2026-09-30")
+  .refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)), "Not a calendar date");
+
+export const quoteUpdateSchema = z
+  .object({
+    stage: stageField.optional(),
+    ownerId: z.coerce.number().int().positive("Choose an owner").optional(),
+    expectedCloseOn: dateOnly.optional(),
+  })
+  .strict()
+  .refine((v) => Object.values(v).some((x) => x !== undefined), {
+    message: "Give a stage, an owner or an expected close date to change",
+  });
+
+const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, "Use a month such as 2026-09");
+
+// The pipeline's filters as they arrive in the URL; a malformed one is simply ignored.
+export const pipelineFiltersSchema = z.object({
+  owner: z.coerce.number().int().positive().optional().catch(undefined),
+  stage: stageField.optional().catch(undefined),
+  account: z.coerce.number().int().positive().optional().catch(undefined),
+  closeMonth: month.optional().catch(undefined),
+  from: month.optional().catch(undefined),
+  to: month.optional().catch(undefined),
+});
+
+export type SalesSettingsInput = z.infer<typeof salesSettingsSchema>;
+export type SendProposalInput = z.infer<typeof sendProposalSchema>;
+export type DecisionInput = z.infer<typeof decisionSchema>;
+export type WhatIfInput = z.infer<typeof whatIfSchema>;
+export type QuoteUpdateInput = z.infer<typeof quoteUpdateSchema>;
+export type PipelineFilters = z.infer<typeof pipelineFiltersSchema>;

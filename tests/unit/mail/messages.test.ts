@@ -1,0 +1,57 @@
+import { describe, expect, it } from "vitest";
+import { composeMail, escapeHtml } from "@/lib/mail/layout";
+import { decisionMail, invitationMail } from "@/lib/mail/messages";
+
+const proposal = {
+  accountName: "Invented <Plant> & Co",
+  caseName: "Line 3",
+  version: 2,
+  capex: "12345.675",
+  currency: "EUR",
+  paybackYears: 1.5,
+  horizonYears: 5,
+};
+
+describe("Loopshift's messages", () => {
+  it("carry a plain-text and an HTML part with the same absolute link", () => {
+    const url = "https://app.example.com/invitation/abc_DEF-123";
+    const mail = invitationMail({
+      recipientName: "Pat",
+      senderName: "Sam",
+      proposal,
+      invitationUrl: url,
+      expiresAt: "2027-01-08T10:00:00.000Z",
+      email: "pat@example.com",
+    });
+    expect(mail.text).toContain(url);
+    expect(mail.html).toContain(`href="${url}"`);
+    expect(mail.text).toContain("until 8 January 2027");
+    // Money as the screen shows it: rounded half-even to the cent (ENGINE.md §1).
+    expect(mail.text).toContain("€12,345.68");
+    expect(mail.text).toContain("18 months");
+  });
+
+  it("escape what users typed in the HTML part, and keep it verbatim in the text part", () => {
+    const mail = decisionMail({
+      recipientName: "Sam",
+      reviewerName: "<script>alert(1)</script>",
+      decision: "changes",
+      comment: 'Use "our" tariff & <b>six</b> years',
+      proposal,
+      proposalUrl: "https://app.example.com/proposals/7",
+    });
+    expect(mail.html).not.toContain("<script>");
+    expect(mail.html).not.toContain("<b>six</b>");
+    expect(mail.html).toContain("&lt;b&gt;six&lt;/b&gt;");
+    expect(mail.html).toContain("Invented &lt;Plant&gt; &amp; Co");
+    expect(mail.text).toContain('> Use "our" tariff & <b>six</b> years');
+    expect(mail.subject).toBe("<script>alert(1)</script> asked for changes to Line 3, version 2");
+  });
+
+  it("end with the safety line in both parts", () => {
+    const mail = composeMail("S", "H", [{ kind: "paragraph", text: "x" }]);
+    expect(mail.text).toMatch(/qualified persons only/);
+    expect(mail.html).toMatch(/qualified persons only/);
+    expect(escapeHtml(`'"&<>`)).toBe("&#39;&quot;&amp;&lt;&gt;");
+  });
+});
