@@ -7,10 +7,14 @@ import {
   dossierGrants,
   paymentEvents,
   proposals,
+  users,
   type CheckoutSession,
 } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { NotFoundError } from "@/lib/errors";
+import { appUrl } from "@/lib/mail/app-url";
+import { dossierReceiptMail } from "@/lib/mail/messages";
+import { enqueueMail } from "@/lib/mail/queue";
 import { recordAudit } from "./audit";
 import { getProposalOrThrow } from "./cases";
 
@@ -106,15 +110,18 @@ export type EventOutcome =
 export interface RecordedEvent {
   duplicate: boolean;
   outcome: EventOutcome;
-  /** Set when this event unlocked a dossier: what the receipt needs. */
+  /** Set when this event unlocked a dossier. */
   granted: (CheckoutSession & { caseName: string; version: number; accountName: string }) | null;
+  /** The buyer's receipt, queued with the grant; delivered once the transaction is committed. */
+  receiptMailId: number | null;
 }
 
 /**
  * Records a webhook event whose signature the caller verified, once: the event id is the key,
  * and a replay answers "duplicate" without touching anything. A checkout.session.completed for
  * a paid session of ours, at the amount and currency we asked, grants the proposal's dossier
- * to its account — in the same transaction, so an event is never half applied. The caller here
+ * to its account and queues the buyer's receipt — in the same transaction, so an event is never
+ * half applied and a replay, already recorded, can never queue a second receipt. The caller here
  * is the payment provider, proved by the signature; there is no user.
  */
 export function recordPaymentEvent(event: VerifiedEvent): RecordedEvent {
@@ -124,7 +131,13 @@ export function recordPaymentEvent(event: VerifiedEvent): RecordedEvent {
       .from(paymentEvents)
       .where(eq(paymentEvents.id, event.id))
       .get();
-    if (seen) return { duplicate: true, outcome: seen.outcome as EventOutcome, granted: null };
+    if (seen)
+      return {
+        duplicate: true,
+        outcome: seen.outcome as EventOutcome,
+        granted: null,
+        receiptMailId: null,
+      };
 
     const decide = (): { outcome: EventOutcome; checkout: CheckoutSession | null } => {
       if (event.type !== "checkout.session.completed" || !event.session)
@@ -150,14 +163,15 @@ export function recordPaymentEvent(event: VerifiedEvent): RecordedEvent {
     tx.insert(paymentEvents)
       .values({ id: event.id, type: event.type, sessionId: event.session?.id ?? null, outcome })
       .run();
-    if (!checkout) return { duplicate: false, outcome, granted: null };
+    if (!checkout) return { duplicate: false, outcome, granted: null, receiptMailId: null };
 
     const completedAt = new Date().toISOString();
     tx.update(checkoutSessions)
       .set({ status: "complete", completedAt })
       .where(eq(checkoutSessions.id, checkout.id))
       .run();
-    if (outcome !== "granted") return { duplicate: false, outcome, granted: null };
+    if (outcome !== "granted")
+      return { duplicate: false, outcome, granted: null, receiptMailId: null };
     tx.insert(dossierGrants)
       .values({
         proposalId: checkout.proposalId,
@@ -180,10 +194,29 @@ export function recordPaymentEvent(event: VerifiedEvent): RecordedEvent {
       targetId: checkout.proposalId,
       detail: `${about.caseName} v${about.version}: ${checkout.amount} ${checkout.currency}, event ${event.id}`,
     });
+    const buyer = checkout.buyerId
+      ? tx.select({ name: users.name }).from(users).where(eq(users.id, checkout.buyerId)).get()
+      : undefined;
+    const receiptMailId = enqueueMail(
+      tx,
+      { email: checkout.buyerEmail, name: buyer?.name },
+      dossierReceiptMail({
+        recipientName: buyer?.name ?? null,
+        accountName: about.accountName,
+        caseName: about.caseName,
+        version: about.version,
+        amount: checkout.amount,
+        currency: checkout.currency,
+        paidAt: completedAt,
+        reference: checkout.id,
+        dossierUrl: appUrl(`/dossiers/${checkout.proposalId}`),
+      }),
+    );
     return {
       duplicate: false,
       outcome,
       granted: { ...checkout, status: "complete" as const, completedAt, ...about },
+      receiptMailId,
     };
   });
 }

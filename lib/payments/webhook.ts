@@ -1,16 +1,16 @@
 import "server-only";
 import Stripe from "stripe";
 import { recordPaymentEvent, type RecordedEvent } from "@/db/queries/payments";
-import { appOrigin } from "./checkout";
+import { deliverMail } from "@/lib/mail/queue";
 import { paymentConfig } from "./config";
-import { sendDossierReceipt } from "./receipt";
 
 export class BadSignatureError extends Error {}
 
 /**
- * Verifies a webhook with the SDK's constructEvent against the raw body, records it once, and
- * mails the receipt when this event unlocked a dossier. A body whose signature does not verify
- * throws BadSignatureError before anything is read from it.
+ * Verifies a webhook with the SDK's constructEvent against the raw body, records it once (the
+ * receipt is queued in the same transaction when this event unlocked a dossier), then hands the
+ * receipt to the mail server. A body whose signature does not verify throws BadSignatureError
+ * before anything is read from it.
  */
 export async function handlePaymentWebhook(
   rawBody: string,
@@ -38,21 +38,13 @@ export async function handlePaymentWebhook(
         }
       : null,
   });
-  const g = recorded.granted;
-  if (g) {
-    // The grant is committed; a mail that fails must not undo it or make the provider retry.
-    await sendDossierReceipt({
-      to: g.buyerEmail,
-      accountName: g.accountName,
-      caseName: g.caseName,
-      version: g.version,
-      proposalId: g.proposalId,
-      amount: g.amount,
-      currency: g.currency,
-      sessionId: g.id,
-      paidAt: g.completedAt ?? new Date().toISOString(),
-      reportUrl: `${appOrigin()}/dossiers/${g.proposalId}`,
-    }).catch((error: unknown) => console.error("the dossier receipt could not be mailed", error));
+  if (recorded.receiptMailId !== null) {
+    // The grant and its queued receipt are committed. A mail server that does not answer leaves
+    // the receipt in the queue for the retry; it must not fail the webhook, or the provider
+    // would send the event again for nothing.
+    await deliverMail([recorded.receiptMailId]).catch((error: unknown) =>
+      console.error("the dossier receipt could not be handed to the mail server", error),
+    );
   }
   return recorded;
 }

@@ -1,4 +1,4 @@
-import { eq } from "drizzle-orm";
+import { eq, like } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
 import {
@@ -10,7 +10,7 @@ import {
 } from "@/db/queries/dossiers";
 import { listProposals, listCases } from "@/db/queries/cases";
 import { recordCheckoutSession, recordPaymentEvent } from "@/db/queries/payments";
-import { dossierGrants, paymentEvents } from "@/db/schema";
+import { dossierGrants, mailQueue, paymentEvents } from "@/db/schema";
 import { NotFoundError, ForbiddenError } from "@/lib/errors";
 import { minorUnits as minorUnitsOf } from "@/lib/payments/minor-units";
 import { caller } from "../support/callers";
@@ -42,13 +42,20 @@ describe("dossier grants from verified payment events", () => {
     const first = recordPaymentEvent(completed("evt_once", "cs_test_once"));
     expect(first).toMatchObject({ duplicate: false, outcome: "granted" });
     expect(first.granted?.buyerEmail).toBe("engineer@example.com");
+    // The receipt is queued in the grant's transaction: one message, to the buyer.
+    expect(first.receiptMailId).toEqual(expect.any(Number));
     expect(grantsOf(proposal.id)).toHaveLength(1);
 
     const replay = recordPaymentEvent(completed("evt_once", "cs_test_once"));
     expect(replay).toMatchObject({ duplicate: true, granted: null });
     const another = recordPaymentEvent(completed("evt_twice", "cs_test_once"));
     expect(another).toMatchObject({ duplicate: false, outcome: "already granted", granted: null });
+    expect(replay.receiptMailId).toBeNull();
+    expect(another.receiptMailId).toBeNull();
     expect(grantsOf(proposal.id)).toHaveLength(1);
+    expect(
+      db.select().from(mailQueue).where(like(mailQueue.subject, "Receipt for the dossier%")).all(),
+    ).toMatchObject([{ id: first.receiptMailId, toAddress: "engineer@example.com" }]);
     expect(
       db.select().from(paymentEvents).where(eq(paymentEvents.id, "evt_once")).all(),
     ).toHaveLength(1);
