@@ -1,7 +1,8 @@
 import "server-only";
 import { getDossierAccess, readDossierPrice } from "@/db/queries/dossiers";
 import { recordCheckoutSession } from "@/db/queries/payments";
-import type { SessionUser } from "@/lib/auth/session-user";
+import { VENDOR_ROLES } from "@/db/queries/proposals";
+import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError } from "@/lib/errors";
 import { stripeClient } from "./client";
 import { minorUnits } from "./minor-units";
@@ -16,6 +17,8 @@ export function appOrigin(): string {
  * client names only the proposal), records it, and answers the hosted page's URL.
  */
 export async function createDossierCheckout(caller: SessionUser, proposalId: number) {
+  // The vendor's team buys; the customer's reviewer only reads what was bought.
+  assertRole(caller, ...VENDOR_ROLES);
   const { proposal, grant } = getDossierAccess(caller, proposalId);
   if (grant) throw new ConflictError("This proposal's dossier is already paid for");
   const price = readDossierPrice();

@@ -3,11 +3,13 @@ import ExcelJS from "exceljs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { SCREENSHOT_DIR, launchBrowser, screenshot, signInWithForm } from "./support/browser";
-import { baseUrl } from "./support/http";
+import { baseUrl, request, signInOverHttp } from "./support/http";
 
 let browser: Browser;
 let page: Page;
+let reviewerPage: Page;
 let dossierUrl: string;
+let proposalId: number;
 
 beforeAll(async () => {
   browser = await launchBrowser();
@@ -23,8 +25,18 @@ async function signedIn(email: string) {
   });
   const p = await context.newPage();
   await signInWithForm(p, email);
-  await p.waitForURL(/\/(accounts|admin)$/);
+  await p.waitForURL(/\/(accounts|admin|review)$/);
   return p;
+}
+
+async function downloadedSheetNames(p: Page) {
+  const download = p.waitForEvent("download");
+  await p.getByRole("link", { name: "Download the workbook (.xlsx)" }).click();
+  const file = await download;
+  expect(file.suggestedFilename()).toMatch(/-dossier\.xlsx$/);
+  const workbook = new ExcelJS.Workbook();
+  await workbook.xlsx.load(fs.readFileSync((await file.path())!) as unknown as ArrayBuffer);
+  return workbook.worksheets.map((w) => w.name);
 }
 
 describe("the paid dossier in Chromium", () => {
@@ -61,9 +73,31 @@ describe("the paid dossier in Chromium", () => {
     await page.getByRole("link", { name: "Dossier", exact: true }).click();
     await page.waitForURL(/\/dossiers\/\d+$/);
     dossierUrl = page.url();
+    proposalId = Number(new URL(dossierUrl).pathname.split("/").at(-1));
     await page.getByRole("heading", { name: "This dossier is locked" }).waitFor();
     await page.getByText("€390.00").waitFor();
     await screenshot(page, "dossier-locked");
+  });
+
+  it("the customer's reviewer, sent the proposal, finds its dossier not available yet and nothing to buy", async () => {
+    const { jar } = await signInOverHttp("engineer@example.com", "loopshift-demo");
+    const sent = await request(jar, `/api/v1/proposals/${proposalId}/send`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ email: "reviewer@example.com", name: "Demo Finance Reviewer" }),
+    });
+    expect(sent.status).toBe(200);
+    reviewerPage = await signedIn("reviewer@example.com");
+    await reviewerPage.goto(`${baseUrl()}/review/proposals/${proposalId}`);
+    await reviewerPage
+      .getByRole("heading", { name: "Invented infeed dossier, version 1" })
+      .waitFor();
+    expect(await reviewerPage.getByRole("link", { name: "Open the dossier" }).count()).toBe(0);
+    await reviewerPage.goto(`${baseUrl()}/review/proposals/${proposalId}/dossier`);
+    await reviewerPage.getByRole("heading", { name: "The dossier is not available yet" }).waitFor();
+    expect(await reviewerPage.getByRole("button", { name: /Buy/ }).count()).toBe(0);
+    expect(await reviewerPage.getByText("€390.00").count()).toBe(0);
+    await screenshot(reviewerPage, "review-dossier-locked");
   });
 
   it("a declined card leaves the dossier locked with a clear message", async () => {
@@ -110,16 +144,46 @@ describe("the paid dossier in Chromium", () => {
       await page.screenshot({ path: `${SCREENSHOT_DIR}/dossier-report-${name}.png` });
     }
 
-    const download = page.waitForEvent("download");
-    await page.getByRole("link", { name: "Download the workbook (.xlsx)" }).click();
-    const file = await download;
-    expect(file.suggestedFilename()).toMatch(/-dossier\.xlsx$/);
-    const workbook = new ExcelJS.Workbook();
-    await workbook.xlsx.load(fs.readFileSync((await file.path())!) as unknown as ArrayBuffer);
-    expect(workbook.worksheets.map((w) => w.name)).toContain("Uncertainty");
+    expect(await downloadedSheetNames(page)).toContain("Uncertainty");
 
     await page.emulateMedia({ media: "print" });
     await screenshot(page, "dossier-report-print");
     await page.emulateMedia({ media: "screen" });
+  });
+
+  it("the buyer's receipt is in the administrators' outbox, once, with the link to the dossier", async () => {
+    const admin = await signedIn("admin@example.com");
+    await admin.goto(`${baseUrl()}/admin/outbox`);
+    const receipts = admin
+      .getByTestId("outbox-message")
+      .filter({ hasText: "Receipt for the dossier of Invented infeed dossier, version 1" });
+    await receipts.first().waitFor();
+    expect(await receipts.count()).toBe(1);
+    const receipt = receipts.first();
+    expect(await receipt.textContent()).toContain("to engineer@example.com");
+    // Only the newest message starts open; open this one whatever came after it.
+    await receipt.evaluate((el) => ((el as HTMLDetailsElement).open = true));
+    const button = receipt.frameLocator("iframe").getByRole("link", { name: "Open the dossier" });
+    await button.waitFor();
+    expect(await button.getAttribute("href")).toBe(dossierUrl);
+    await receipt.scrollIntoViewIfNeeded();
+    await admin.screenshot({ path: `${SCREENSHOT_DIR}/dossier-receipt-outbox.png` });
+    await admin.context().close();
+  });
+
+  it("the customer's reviewer opens the paid dossier from their proposal and downloads its workbook", async () => {
+    await reviewerPage.goto(`${baseUrl()}/review/proposals/${proposalId}`);
+    await reviewerPage.getByRole("link", { name: "Open the dossier" }).waitFor();
+    await reviewerPage.screenshot({ path: `${SCREENSHOT_DIR}/review-proposal-dossier-link.png` });
+    await reviewerPage.getByRole("link", { name: "Open the dossier" }).click();
+    await reviewerPage.waitForURL(`**/review/proposals/${proposalId}/dossier`);
+    await reviewerPage.getByRole("heading", { name: "Uncertainty: P10, P50 and P90" }).waitFor();
+    await reviewerPage.getByText("NPV over 1,000 draws").waitFor();
+    // Ranges and seed are shown, not edited: the supplier sets them.
+    expect(await reviewerPage.getByRole("button", { name: "Save and rebuild" }).count()).toBe(0);
+    await screenshot(reviewerPage, "review-dossier-report");
+    await reviewerPage.screenshot({ path: `${SCREENSHOT_DIR}/review-dossier-report-top.png` });
+    expect(await downloadedSheetNames(reviewerPage)).toContain("Uncertainty");
+    await reviewerPage.context().close();
   });
 });

@@ -3,7 +3,7 @@ import ExcelJS from "exceljs";
 import Stripe from "stripe";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { z } from "zod";
-import { request, signInOverHttp, type CookieJar } from "./support/http";
+import { baseUrl, request, signInOverHttp, type CookieJar } from "./support/http";
 
 // The payment path over real HTTP: the app's routes, the local fake payment API driven by the
 // stripe SDK, the signed webhook, and what the SQLite file records.
@@ -27,6 +27,18 @@ const webhookSchema = z.object({
   duplicate: z.boolean(),
   outcome: z.string(),
 });
+// What a reviewer is told before payment: no price and no way to buy; their supplier buys.
+const reviewerLockedSchema = z.object({ error: z.string() }).strict();
+const outboxSchema = z.array(
+  z.object({
+    id: z.number(),
+    to: z.string(),
+    subject: z.string(),
+    text: z.string(),
+    html: z.string(),
+    createdAt: z.string(),
+  }),
+);
 const deliveriesSchema = z.object({
   deliveries: z.array(
     z.object({ eventId: z.string(), payload: z.string(), signature: z.string() }),
@@ -35,7 +47,11 @@ const deliveriesSchema = z.object({
 
 let engineer: CookieJar;
 let engineer2: CookieJar;
+// The seeded finance reviewer of Cartonia Packaging Plant, to whom the seeded proposal was sent.
+let reviewer: CookieJar;
+let admin: CookieJar;
 let proposalId: number;
+let caseIds: Map<string, number>;
 
 const count = (sql: string, ...args: unknown[]) =>
   (database.prepare(sql).get(...args) as { n: number }).n;
@@ -73,26 +89,54 @@ const postWebhook = (payload: string, signature?: string) =>
 beforeAll(async () => {
   ({ jar: engineer } = await signInOverHttp("engineer@example.com", "loopshift-demo"));
   ({ jar: engineer2 } = await signInOverHttp("engineer2@example.com", "loopshift-demo"));
+  ({ jar: reviewer } = await signInOverHttp("reviewer@example.com", "loopshift-demo"));
+  ({ jar: admin } = await signInOverHttp("admin@example.com", "loopshift-demo"));
   const cases = z
     .object({ cases: z.array(z.object({ id: z.number(), name: z.string() })) })
     .parse(await (await request(engineer, "/api/v1/cases")).json()).cases;
-  const seeded = cases.find((c) => c.name === "North hall cartoners, phase 1")!;
+  caseIds = new Map(cases.map((c) => [c.name, c.id]));
+  proposalId = await firstProposalOf("North hall cartoners, phase 1");
+});
+
+async function firstProposalOf(caseName: string) {
   const list = z
     .object({ proposals: z.array(z.object({ id: z.number(), version: z.number() })) })
-    .parse(await (await request(engineer, `/api/v1/cases/${seeded.id}/proposals`)).json());
-  proposalId = list.proposals.find((p) => p.version === 1)!.id;
-});
+    .parse(
+      await (await request(engineer, `/api/v1/cases/${caseIds.get(caseName)}/proposals`)).json(),
+    );
+  return list.proposals.find((p) => p.version === 1)!.id;
+}
 afterAll(() => database.close());
 
 describe("buying a dossier over HTTP", () => {
   let price: z.infer<typeof lockedSchema>["price"];
   let openSessionId: string;
+  let paidSessionId: string;
 
   it("answers 402 with the price until the dossier is paid for", async () => {
     const res = await request(engineer, `/api/v1/proposals/${proposalId}/dossier`);
     expect(res.status).toBe(402);
     ({ price } = lockedSchema.parse(await res.json()));
     expect(grants()).toBe(0);
+  });
+
+  it("answers the customer's reviewer 402 too, without a price or a way to buy", async () => {
+    const res = await request(reviewer, `/api/v1/proposals/${proposalId}/dossier`);
+    expect(res.status).toBe(402);
+    expect(reviewerLockedSchema.parse(await res.json()).error).toMatch(/your supplier/);
+    const buy = await request(reviewer, "/api/v1/payments/checkout", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ proposalId }),
+    });
+    expect(buy.status).toBe(403);
+    const page = await request(reviewer, `/review/proposals/${proposalId}/dossier`);
+    expect(page.status).toBe(200);
+    const html = await page.text();
+    expect(html).toContain("The dossier is not available yet");
+    expect(html).not.toContain("Buy the dossier");
+    const proposalPage = await (await request(reviewer, `/review/proposals/${proposalId}`)).text();
+    expect(proposalPage).not.toContain("Open the dossier");
   });
 
   it("prices the checkout on the server, whatever the client sends", async () => {
@@ -158,6 +202,7 @@ describe("buying a dossier over HTTP", () => {
     const back = new URL(res.headers.get("location")!);
     expect(back.pathname).toBe(`/dossiers/${proposalId}/paid`);
     expect(back.searchParams.get("session_id")).toBe(sessionId);
+    paidSessionId = sessionId;
     expect(grants()).toBe(1);
 
     const paidPage = await request(engineer, `${back.pathname}${back.search}`);
@@ -203,6 +248,52 @@ describe("buying a dossier over HTTP", () => {
       body: JSON.stringify({ proposalId }),
     });
     expect(again.status).toBe(409);
+  });
+
+  it("after paying and a replay, the outbox holds exactly one receipt to the buyer, with the dossier link", async () => {
+    const messages = outboxSchema.parse(
+      await (await request(admin, "/api/v1/admin/outbox")).json(),
+    );
+    const receipts = messages.filter(
+      (m) => m.subject === "Receipt for the dossier of North hall cartoners, phase 1, version 1",
+    );
+    expect(receipts).toHaveLength(1);
+    expect(receipts[0].to).toBe("engineer@example.com");
+    const link = `${baseUrl()}/dossiers/${proposalId}`;
+    expect(receipts[0].text).toContain(link);
+    expect(receipts[0].html).toContain(`href="${link}"`);
+    expect(receipts[0].text).toContain(`Payment reference: ${paidSessionId}`);
+  });
+
+  it("opens the paid dossier to the customer's reviewer: the report page and the workbook", async () => {
+    const proposalPage = await request(reviewer, `/review/proposals/${proposalId}`);
+    expect(await proposalPage.text()).toContain(`href="/review/proposals/${proposalId}/dossier"`);
+    const page = await request(reviewer, `/review/proposals/${proposalId}/dossier`);
+    expect(page.status).toBe(200);
+    const html = await page.text();
+    expect(html).toContain("Uncertainty: P10, P50 and P90");
+    expect(html).not.toContain("Save and rebuild");
+    const file = await request(reviewer, `/api/v1/proposals/${proposalId}/dossier`);
+    expect(file.status).toBe(200);
+    expect(file.headers.get("content-type")).toContain("spreadsheetml");
+    // The same recorded seed as the buyer's download: the same dossier.
+    const buyers = await request(engineer, `/api/v1/proposals/${proposalId}/dossier`);
+    expect(file.headers.get("x-dossier-seed")).toBe(buyers.headers.get("x-dossier-seed"));
+  });
+
+  it("hides from the reviewer another account's paid dossier, and their own account's proposal not sent to them: 404", async () => {
+    // Webline Print Finishing's proposal, sent to its own customer, paid for by the engineer.
+    const otherId = await firstProposalOf("Web press register and infeed");
+    const { url } = await checkout(engineer, { proposalId: otherId });
+    expect((await payWith(url, "4242 4242 4242 4242")).status).toBe(303);
+    expect((await request(engineer, `/api/v1/proposals/${otherId}/dossier`)).status).toBe(200);
+    // Cartonia's own proposal that is ready but not sent yet.
+    const unsentId = await firstProposalOf("South hall cartoners");
+    for (const id of [otherId, unsentId, 999_999]) {
+      expect((await request(reviewer, `/api/v1/proposals/${id}/dossier`)).status).toBe(404);
+      expect((await request(reviewer, `/review/proposals/${id}/dossier`)).status).toBe(404);
+      expect((await request(reviewer, `/review/proposals/${id}`)).status).toBe(404);
+    }
   });
 
   it("another account cannot read, buy or open this dossier: 404", async () => {

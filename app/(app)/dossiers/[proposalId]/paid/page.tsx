@@ -40,8 +40,9 @@ export default async function PaidPage({
               Payment received: the dossier is unlocked
             </h2>
             <p className="text-steel-800">
-              {amount} paid. A receipt goes to {checkout.buyerEmail}. Everyone who works on{" "}
-              {proposal.accountName} can now open the report and download the workbook.
+              {amount} paid. The receipt is on its way to {checkout.buyerEmail}. Everyone who works
+              on {proposal.accountName} can now open the report and download the workbook, and so
+              can the customer&apos;s reviewer the proposal is sent to.
             </p>
             <div className="flex flex-wrap gap-2">
               <Link href={`/dossiers/${id}`} className={buttonClass("primary")}>

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { addReviewerCommentAction } from "@/app/(review)/review/actions";
 import { CommentThread } from "@/components/proposals/comment-thread";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
@@ -13,6 +14,7 @@ import { WhatIfPanel } from "@/components/review/what-if-panel";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
+import { isDossierPaid } from "@/db/queries/dossiers";
 import { listComments } from "@/db/queries/proposal-review";
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { requirePageUser } from "@/lib/auth";
@@ -42,6 +44,8 @@ export default async function ReviewProposalPage({
   const physics = result.scenarios.physics;
   const horizon = physics.cashFlows.length - 1;
   const decidable = DECIDABLE_STAGES.includes(quote.stage);
+  // The supplier's paid dossier; the link shows only once it is paid for (reviewers never buy).
+  const dossierPaid = isDossierPaid(user, id);
 
   return (
     <div className="space-y-6">
@@ -60,6 +64,11 @@ export default async function ReviewProposalPage({
             <a href={`/api/v1/proposals/${id}/workbook`} className={buttonClass("secondary")}>
               Download the workbook (.xlsx)
             </a>
+            {dossierPaid ? (
+              <Link href={`/review/proposals/${id}/dossier`} className={buttonClass("secondary")}>
+                Open the dossier
+              </Link>
+            ) : null}
             {decidable ? (
               <a href="#decision" className={buttonClass("primary")}>
                 Decide

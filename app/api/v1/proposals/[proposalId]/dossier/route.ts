@@ -6,13 +6,20 @@ import { buildDossier } from "@/lib/dossier";
 import { caseInputSchema } from "@/lib/engine";
 import { buildDossierWorkbook } from "@/lib/workbook";
 
-// The dossier workbook of a proposal: 402 with the price until its account has paid, then the
-// .xlsx, built from the frozen input with the recorded seed and ranges.
+// The dossier workbook of a proposal: 402 until its account has paid (with the price, for the
+// vendor's people who may buy it), then the .xlsx, built from the frozen input with the recorded
+// seed and ranges. The customer's reviewer reads it too, for a proposal sent to their account.
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ proposalId: string }> }) => {
-    const caller = await requireRole("engineer", "manager", "admin");
+    const caller = await requireRole("engineer", "manager", "admin", "reviewer");
     const id = idFromRoute((await context.params).proposalId);
     const { proposal, grant, price } = getDossierAccess(caller, id);
+    if (!grant && caller.role === "reviewer") {
+      return jsonError(
+        402,
+        "This proposal's dossier has not been bought yet; your supplier can add it to the proposal",
+      );
+    }
     if (!grant) {
       return jsonError(402, "This proposal's dossier is not paid for yet", {
         price: { amount: price.amount, currency: price.currency },
