@@ -11,14 +11,14 @@ import { requirePageUser } from "@/lib/auth";
 import { buildDossier } from "@/lib/dossier";
 import { caseInputSchema } from "@/lib/engine";
 import { formatMoney } from "@/lib/results/format";
-import { idParam } from "@/lib/pages";
+import { idParam, orNotFound } from "@/lib/pages";
 
 export const metadata: Metadata = { title: "Dossier" };
 
 export default async function DossierPage({ params }: { params: Promise<{ proposalId: string }> }) {
   const user = await requirePageUser("engineer", "manager", "admin");
   const id = idParam((await params).proposalId);
-  const { proposal, grant, price } = getDossierAccess(user, id);
+  const { proposal, grant, price } = orNotFound(() => getDossierAccess(user, id));
   const settings = getDossierSettings(user, id);
   const title = `Dossier: ${proposal.caseName}, proposal v${proposal.version}`;
   const crumbs = (

@@ -5,7 +5,7 @@ import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess } from "@/db/queries/dossiers";
 import { latestOpenCheckout, markCheckoutExpired } from "@/db/queries/payments";
 import { requirePageUser } from "@/lib/auth";
-import { idParam } from "@/lib/pages";
+import { idParam, orNotFound } from "@/lib/pages";
 import { stripeClient } from "@/lib/payments/client";
 
 export const metadata: Metadata = { title: "Checkout cancelled" };
@@ -19,7 +19,7 @@ export default async function CancelledPage({
 }) {
   const user = await requirePageUser("engineer", "manager", "admin");
   const id = idParam((await params).proposalId);
-  const { proposal, grant } = getDossierAccess(user, id);
+  const { proposal, grant } = orNotFound(() => getDossierAccess(user, id));
   const open = latestOpenCheckout(user, id);
   if (open) {
     try {

@@ -18,7 +18,7 @@ import { isDossierPaid } from "@/db/queries/dossiers";
 import { listComments } from "@/db/queries/proposal-review";
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { requirePageUser } from "@/lib/auth";
-import { idParam } from "@/lib/pages";
+import { idParam, orNotFound } from "@/lib/pages";
 import { DECIDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { formatMoney, formatPayback } from "@/lib/results/format";
@@ -38,7 +38,7 @@ export default async function ReviewProposalPage({
 }) {
   const user = await requirePageUser("reviewer");
   const id = idParam((await params).proposalId);
-  const { quote, input: rawInput, result } = getProposalSnapshotOrThrow(user, id);
+  const { quote, input: rawInput, result } = orNotFound(() => getProposalSnapshotOrThrow(user, id));
   const input = parseCaseInput(rawInput);
   const comments = listComments(user, id);
   const physics = result.scenarios.physics;

@@ -9,7 +9,7 @@ import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
 import { requirePageUser } from "@/lib/auth";
 import { buildDossier } from "@/lib/dossier";
 import { caseInputSchema } from "@/lib/engine";
-import { idParam } from "@/lib/pages";
+import { idParam, orNotFound } from "@/lib/pages";
 
 export const metadata: Metadata = { title: "Dossier" };
 
@@ -23,7 +23,7 @@ export default async function ReviewDossierPage({
 }) {
   const user = await requirePageUser("reviewer");
   const id = idParam((await params).proposalId);
-  const { proposal, grant } = getDossierAccess(user, id);
+  const { proposal, grant } = orNotFound(() => getDossierAccess(user, id));
   const title = `Dossier: ${proposal.caseName}, version ${proposal.version}`;
   const proposalHref = `/review/proposals/${id}`;
   const crumbs = (
