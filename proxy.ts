@@ -7,6 +7,8 @@ const PUBLIC_PREFIXES = [
   "/invitation",
   "/api/auth",
   "/api/v1/webhooks",
+  // The payment provider signs its webhooks; the handler checks the signature, not a session.
+  "/api/webhooks",
   "/_next",
   "/favicon",
   "/brand",

@@ -26,6 +26,7 @@ export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
           <Th className="text-right">Payback</Th>
           <Th>What changed</Th>
           <Th>Workbook</Th>
+          <Th>Dossier</Th>
         </tr>
       </thead>
       <tbody className="divide-y divide-steel-100">
@@ -59,6 +60,11 @@ export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
                 className="font-bold text-flux-700 hover:underline"
               >
                 .xlsx
+              </a>
+            </Td>
+            <Td>
+              <a href={`/dossiers/${p.id}`} className="font-bold text-flux-700 hover:underline">
+                Dossier
               </a>
             </Td>
           </tr>

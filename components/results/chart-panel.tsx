@@ -42,7 +42,12 @@ export function ChartPanel({
     <Panel
       title={title}
       actions={
-        <Button variant="secondary" size="sm" onClick={() => setAsTable((v) => !v)}>
+        <Button
+          variant="secondary"
+          size="sm"
+          className="print:hidden"
+          onClick={() => setAsTable((v) => !v)}
+        >
           {asTable ? "Show as chart" : "Show as table"}
         </Button>
       }

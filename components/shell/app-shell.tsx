@@ -1,5 +1,6 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
+import { TestModeBanner } from "@/components/payments/test-mode-banner";
 import { ROLE_LABELS, homeFor } from "@/lib/auth/roles";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { Wordmark } from "./brand-mark";
@@ -54,19 +55,19 @@ export function AppShell({
   children: ReactNode;
 }) {
   return (
-    <div className="min-h-screen md:grid md:grid-cols-[15.5rem_1fr]">
+    <div className="min-h-screen md:grid md:grid-cols-[15.5rem_1fr] print:block">
       <a
         href="#main"
         className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2"
       >
         Skip to content
       </a>
-      <aside className="hidden bg-flux-900 md:block">
+      <aside className="hidden bg-flux-900 md:block print:hidden">
         <div className="sticky top-0 h-screen">
           <Sidebar user={user} context={context} />
         </div>
       </aside>
-      <details className="bg-flux-900 md:hidden">
+      <details className="bg-flux-900 md:hidden print:hidden">
         <summary className="flex cursor-pointer list-none items-center justify-between px-4 py-3 text-white">
           <Wordmark />
           <span className="rounded border border-flux-600 px-2 py-1 text-small font-bold">
@@ -76,6 +77,7 @@ export function AppShell({
         <Sidebar user={user} context={context} brand={false} />
       </details>
       <div className="flex min-h-screen min-w-0 flex-col">
+        <TestModeBanner />
         <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6 md:px-8 md:py-8">
           {children}
         </main>

@@ -11,6 +11,7 @@ export function navItemsFor(role: Role): NavItem[] {
         { href: "/admin/outbox", label: "Outbox" },
         { href: "/accounts", label: "Accounts" },
         { href: "/catalogue", label: "Catalogue" },
+        { href: "/admin/payments", label: "Dossier price and payments" },
       ];
     case "reviewer":
       return [{ href: "/review", label: "Proposals for review" }];

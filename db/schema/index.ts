@@ -9,3 +9,4 @@ export * from "./quotes";
 export * from "./review";
 export * from "./mail";
 export * from "./revisions";
+export * from "./dossiers";

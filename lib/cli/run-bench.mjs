@@ -13,6 +13,7 @@ for (const [name, title] of [
   ["bench", "Engine"],
   ["bench-installed-base", "Installed base and import"],
   ["bench-cases", "Cases: workbook and result route"],
+  ["bench-dossier", "Dossier: 500 axes, 1,000 draws, workbook"],
 ]) {
   // `npm run bench -- bench-cases` runs one of them.
   if (process.argv[2] && process.argv[2] !== name) continue;

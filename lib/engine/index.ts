@@ -37,3 +37,11 @@ export type {
   SensitivityDriver,
   SensitivityRow,
 } from "./types";
+export {
+  prepareCase,
+  type PreparedCase,
+  type DriverFactors,
+  type DriverOutcome,
+} from "./prepared-case";
+export { resultOf, sensitivityOf } from "./evaluate";
+export { SENSITIVITY_DRIVERS } from "./sensitivity";

@@ -147,3 +147,54 @@ export function commentMail(args: {
     ],
   );
 }
+
+const dateTimeText = (iso: string) =>
+  `${new Date(iso).toLocaleString("en-GB", {
+    day: "numeric",
+    month: "long",
+    year: "numeric",
+    hour: "2-digit",
+    minute: "2-digit",
+    hour12: false,
+    timeZone: "UTC",
+  })} UTC`;
+
+/** To whoever paid for a proposal's dossier: what was paid, when, its reference and the link. */
+export function dossierReceiptMail(args: {
+  recipientName: string | null;
+  accountName: string;
+  caseName: string;
+  version: number;
+  amount: string;
+  currency: string;
+  paidAt: string;
+  reference: string;
+  dossierUrl: string;
+}): MailContent {
+  return composeMail(
+    `Receipt for the dossier of ${args.caseName}, version ${args.version}`,
+    "Payment received: the dossier is unlocked",
+    [
+      { kind: "paragraph", text: args.recipientName ? `Hello ${args.recipientName},` : "Hello," },
+      {
+        kind: "paragraph",
+        text: `Thank you for your payment. The dossier of this proposal is now open to everyone on your side who works on ${args.accountName}, and to the customer's reviewer the proposal is sent to.`,
+      },
+      {
+        kind: "facts",
+        rows: [
+          ["Dossier", `${args.caseName}, proposal version ${args.version}`],
+          ["For", args.accountName],
+          ["Amount paid", formatMoney(args.amount, args.currency)],
+          ["Paid", dateTimeText(args.paidAt)],
+          ["Payment reference", args.reference],
+        ],
+      },
+      { kind: "button", label: "Open the dossier", href: args.dossierUrl },
+      {
+        kind: "note",
+        text: "Keep this message as your receipt. Savings, payback and the uncertainty ranges in the dossier are estimates from the stated assumptions; the dossier lists them all.",
+      },
+    ],
+  );
+}

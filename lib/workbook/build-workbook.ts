@@ -16,14 +16,24 @@ import type { WorkbookMeta } from "./types";
  * formulas that reproduce the engine's figures from the inputs written beside them. Every
  * formula cell carries the engine's value as its cached result, for viewers that do not
  * calculate; spreadsheets recalculate dependants as soon as an input changes.
- *
- * exceljs's streaming writer: the Axes sheet's rows are serialised as they are added, so a
- * 2,000-axis case never holds the whole sheet model in memory (issue 5: < 3 s, < 300 MB).
  */
 export async function buildProposalWorkbook(
   input: ParsedCase,
   result: CaseResult,
   meta: WorkbookMeta,
+): Promise<Buffer> {
+  return streamWorkbook(meta, (workbook) => writeProposalSheets(workbook, input, result, meta));
+}
+
+export type SheetWriter = ExcelJS.stream.xlsx.WorkbookWriter;
+
+/**
+ * exceljs's streaming writer: rows are serialised as they are added, so a 2,000-axis case never
+ * holds the whole sheet model in memory (issue 5: < 3 s, < 300 MB). `fill` adds the sheets.
+ */
+export async function streamWorkbook(
+  meta: WorkbookMeta,
+  fill: (workbook: SheetWriter) => void | Promise<void>,
 ): Promise<Buffer> {
   const chunks: Buffer[] = [];
   const stream = new PassThrough();
@@ -43,9 +53,28 @@ export async function buildProposalWorkbook(
   } as Partial<ExcelJS.stream.xlsx.WorkbookStreamWriterOptions>);
   workbook.title = meta.title;
   workbook.subject = `${meta.accountName} — ${meta.siteName} — ${meta.caseName}`;
+  await fill(workbook);
 
-  // Sheets are created in reading order and filled in the order their formulas depend on.
-  const footer = `&L${headerFooterText(meta.title)}&RPage &P of &N`;
+  const finished = new Promise<void>((resolve, reject) => {
+    stream.on("end", resolve);
+    stream.on("error", reject);
+  });
+  await workbook.commit();
+  await finished;
+  return Buffer.concat(chunks);
+}
+
+/** The footer every sheet prints: the title and the page number. */
+export const footerOf = (meta: WorkbookMeta) => `&L${headerFooterText(meta.title)}&RPage &P of &N`;
+
+/** The five sheets of the proposal workbook, in reading order, filled in dependency order. */
+export function writeProposalSheets(
+  workbook: SheetWriter,
+  input: ParsedCase,
+  result: CaseResult,
+  meta: WorkbookMeta,
+): void {
+  const footer = footerOf(meta);
   const add = (name: (typeof SHEET)[keyof typeof SHEET]) => {
     const sheet = workbook.addWorksheet(
       name,
@@ -65,12 +94,4 @@ export async function buildProposalWorkbook(
   writeCashFlowSheet(workbook, cashFlow, input, result, axesRanges, machineRanges);
   writeSummarySheet(summary, input, result, meta);
   writeCautionsSheet(cautions, input, result);
-
-  const finished = new Promise<void>((resolve, reject) => {
-    stream.on("end", resolve);
-    stream.on("error", reject);
-  });
-  await workbook.commit();
-  await finished;
-  return Buffer.concat(chunks);
 }

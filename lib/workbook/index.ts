@@ -7,3 +7,4 @@ export {
 } from "./layout";
 export { BEYOND_HORIZON, NO_RATE_FOUND, NO_SIGN_CHANGE, NOT_APPLICABLE } from "./cash-flow-values";
 export { safeText, looksLikeFormula, MAX_CELL_TEXT } from "./safe-text";
+export { buildDossierWorkbook, DOSSIER_SHEET } from "./dossier/build-dossier-workbook";

@@ -4,11 +4,16 @@ import os from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { ensureBuild, prepareDatabase, spawnNext, startLocalMail } from "../../lib/cli/app-server";
+import { startLocalPayments } from "../../lib/cli/payment-fake";
 import { prepareRuntimeEnv } from "../../lib/cli/runtime-env";
 
 declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
+    /** The SQLite file the server uses, for checks of what a request changed. */
+    databasePath: string;
+    /** The local fake payment API and the keys the server was given for it. */
+    payments: { host: string; port: number; secretKey: string; webhookSecret: string };
   }
 }
 
@@ -38,7 +43,8 @@ async function waitForServer(url: string, timeoutMs: number) {
 }
 
 // Builds the app when needed and serves it on a free port over a fresh, seeded database file,
-// with the local fake SMTP server catching its mail into the outbox table.
+// with the local fake SMTP server catching its mail into the outbox table and the local fake
+// payment API taking its checkouts.
 export default async function setup(project: TestProject) {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), "loopshift-e2e-"));
   const port = await freePort();
@@ -49,10 +55,12 @@ export default async function setup(project: TestProject) {
     NEXTAUTH_URL: `http://localhost:${port}`,
     LOOPSHIFT_DEMO: "on",
     SMTP_URL: "",
+    STRIPE_FAKE: "on",
   });
   ensureBuild(env);
   prepareDatabase(env.DATABASE_PATH!);
   const mail = await startLocalMail(env);
+  const payments = (await startLocalPayments(env))!;
   const server = spawnNext(env, "start", "pipe");
   let log = "";
   server.stdout?.on("data", (d) => (log += d));
@@ -61,13 +69,22 @@ export default async function setup(project: TestProject) {
     await waitForServer(`${env.NEXTAUTH_URL}/sign-in`, 60_000);
   } catch (error) {
     server.kill();
+    await payments.close();
     await mail.close();
     console.error(log);
     throw error;
   }
   project.provide("baseUrl", env.NEXTAUTH_URL!);
+  project.provide("databasePath", env.DATABASE_PATH!);
+  project.provide("payments", {
+    host: payments.host,
+    port: payments.port,
+    secretKey: env.STRIPE_SECRET_KEY!,
+    webhookSecret: env.STRIPE_WEBHOOK_SECRET!,
+  });
   return async () => {
     server.kill();
+    await payments.close();
     await mail.close();
     if (process.env.E2E_SERVER_LOG) fs.writeFileSync(process.env.E2E_SERVER_LOG, log);
   };

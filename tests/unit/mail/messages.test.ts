@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { composeMail, escapeHtml } from "@/lib/mail/layout";
-import { decisionMail, invitationMail } from "@/lib/mail/messages";
+import { decisionMail, dossierReceiptMail, invitationMail } from "@/lib/mail/messages";
 
 const proposal = {
   accountName: "Invented <Plant> & Co",
@@ -53,5 +53,30 @@ describe("Loopshift's messages", () => {
     expect(mail.text).toMatch(/qualified persons only/);
     expect(mail.html).toMatch(/qualified persons only/);
     expect(escapeHtml(`'"&<>`)).toBe("&#39;&quot;&amp;&lt;&gt;");
+  });
+
+  it("give the dossier's buyer a receipt: amount, UTC time, reference and the absolute link", () => {
+    const url = "https://app.example.com/dossiers/42";
+    const mail = dossierReceiptMail({
+      recipientName: "Sam",
+      accountName: "Invented <Plant> & Co",
+      caseName: "Line 3",
+      version: 2,
+      amount: "1490.5",
+      currency: "CHF",
+      paidAt: "2027-03-04T23:59:30.000Z",
+      reference: "cs_test_abc123",
+      dossierUrl: url,
+    });
+    expect(mail.subject).toBe("Receipt for the dossier of Line 3, version 2");
+    expect(mail.text).toContain(`Open the dossier:\n${url}`);
+    expect(mail.html).toContain(`href="${url}"`);
+    // Money as the screen shows it, never through a float: CHF has two minor digits (ISO 4217).
+    expect(mail.text).toContain("Amount paid: CHF");
+    expect(mail.text).toContain("1,490.50");
+    // The time in UTC, whatever the server's zone.
+    expect(mail.text).toContain("Paid: 4 March 2027 at 23:59 UTC");
+    expect(mail.text).toContain("Payment reference: cs_test_abc123");
+    expect(mail.html).toContain("Invented &lt;Plant&gt; &amp; Co");
   });
 });

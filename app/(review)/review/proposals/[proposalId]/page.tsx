@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { addReviewerCommentAction } from "@/app/(review)/review/actions";
 import { CommentThread } from "@/components/proposals/comment-thread";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
@@ -13,11 +14,12 @@ import { WhatIfPanel } from "@/components/review/what-if-panel";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
+import { isDossierPaid } from "@/db/queries/dossiers";
 import { listComments } from "@/db/queries/proposal-review";
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { requirePageUser } from "@/lib/auth";
 import { QUEUED_NOTICE } from "@/lib/mail/delivery";
-import { idParam } from "@/lib/pages";
+import { idParam, orNotFound } from "@/lib/pages";
 import { DECIDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { formatMoney, formatPayback } from "@/lib/results/format";
@@ -41,12 +43,14 @@ export default async function ReviewProposalPage({
   const id = idParam((await params).proposalId);
   // Set by the decision form once a decision is saved: the form itself is gone from the page then.
   const { recorded } = await searchParams;
-  const { quote, input: rawInput, result } = getProposalSnapshotOrThrow(user, id);
+  const { quote, input: rawInput, result } = orNotFound(() => getProposalSnapshotOrThrow(user, id));
   const input = parseCaseInput(rawInput);
   const comments = listComments(user, id);
   const physics = result.scenarios.physics;
   const horizon = physics.cashFlows.length - 1;
   const decidable = DECIDABLE_STAGES.includes(quote.stage);
+  // The supplier's paid dossier; the link shows only once it is paid for (reviewers never buy).
+  const dossierPaid = isDossierPaid(user, id);
 
   return (
     <div className="space-y-6">
@@ -65,6 +69,11 @@ export default async function ReviewProposalPage({
             <a href={`/api/v1/proposals/${id}/workbook`} className={buttonClass("secondary")}>
               Download the workbook (.xlsx)
             </a>
+            {dossierPaid ? (
+              <Link href={`/review/proposals/${id}/dossier`} className={buttonClass("secondary")}>
+                Open the dossier
+              </Link>
+            ) : null}
             {decidable ? (
               <a href="#decision" className={buttonClass("primary")}>
                 Decide

@@ -1,0 +1,18 @@
+import type { ReactNode } from "react";
+import { getProposalOrThrow } from "@/db/queries/cases";
+import { requirePageUser } from "@/lib/auth";
+import { idParam, orNotFound } from "@/lib/pages";
+
+// A proposal outside the caller's accounts answers a real 404, the same as a missing one.
+export default async function DossierLayout({
+  children,
+  params,
+}: {
+  children: ReactNode;
+  params: Promise<{ proposalId: string }>;
+}) {
+  const user = await requirePageUser("engineer", "manager", "admin");
+  const id = idParam((await params).proposalId);
+  orNotFound(() => getProposalOrThrow(user, id));
+  return children;
+}

@@ -1,0 +1,50 @@
+import "server-only";
+import Stripe from "stripe";
+import { recordPaymentEvent, type RecordedEvent } from "@/db/queries/payments";
+import { deliverMail } from "@/lib/mail/queue";
+import { paymentConfig } from "./config";
+
+export class BadSignatureError extends Error {}
+
+/**
+ * Verifies a webhook with the SDK's constructEvent against the raw body, records it once (the
+ * receipt is queued in the same transaction when this event unlocked a dossier), then hands the
+ * receipt to the mail server. A body whose signature does not verify throws BadSignatureError
+ * before anything is read from it.
+ */
+export async function handlePaymentWebhook(
+  rawBody: string,
+  signature: string | null,
+): Promise<RecordedEvent> {
+  let event: Stripe.Event;
+  try {
+    event = Stripe.webhooks.constructEvent(rawBody, signature ?? "", paymentConfig().webhookSecret);
+  } catch (error) {
+    throw new BadSignatureError(error instanceof Error ? error.message : "bad signature");
+  }
+  const session =
+    event.type === "checkout.session.completed"
+      ? (event.data.object as Stripe.Checkout.Session)
+      : null;
+  const recorded = recordPaymentEvent({
+    id: event.id,
+    type: event.type,
+    session: session
+      ? {
+          id: session.id,
+          paymentStatus: session.payment_status ?? null,
+          amountTotal: session.amount_total ?? null,
+          currency: session.currency ?? null,
+        }
+      : null,
+  });
+  if (recorded.receiptMailId !== null) {
+    // The grant and its queued receipt are committed. A mail server that does not answer leaves
+    // the receipt in the queue for the retry; it must not fail the webhook, or the provider
+    // would send the event again for nothing.
+    await deliverMail([recorded.receiptMailId]).catch((error: unknown) =>
+      console.error("the dossier receipt could not be handed to the mail server", error),
+    );
+  }
+  return recorded;
+}
