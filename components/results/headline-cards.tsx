@@ -74,7 +74,7 @@ function ScenarioCard({
           term="Discounted payback"
           value={formatPayback(h.discountedPaybackYears, horizonYears)}
         />
-        <Row term="IRR" value={formatIrr(h.irr)} />
+        <Row term="IRR" value={formatIrr(h)} />
         <Row term="Return on investment" value={formatPct(h.roiPct, 0)} />
         <Row term="Energy saved" value={formatKWh(h.energySavedKWhPerYear)} />
         <Row

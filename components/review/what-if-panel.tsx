@@ -157,7 +157,7 @@ export function WhatIfPanel({
                   b ? formatPayback(b.discountedPaybackYears, horizonB) : "—",
                   "",
                 ],
-                ["IRR", formatIrr(a.irr), b ? formatIrr(b.irr) : "—", ""],
+                ["IRR", formatIrr(a), b ? formatIrr(b) : "—", ""],
               ];
               return rows.map(([figure, before, after, change], i) => (
                 <tr

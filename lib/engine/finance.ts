@@ -33,7 +33,9 @@ function npvNumber(rate: number, flows: readonly number[]): number {
 }
 
 const IRR_LOW = -0.99;
-const IRR_HIGH = 10;
+/** The highest rate the IRR is sought at: 10 = 1,000 % (ENGINE.md §8). */
+export const IRR_HIGHEST_RATE = 10;
+const IRR_HIGH = IRR_HIGHEST_RATE;
 const IRR_SCAN_STEPS = 2000;
 const IRR_TOLERANCE = 1e-13;
 

@@ -1,4 +1,5 @@
-import { roundMoney } from "@/lib/engine/money";
+import { IRR_HIGHEST_RATE, npv } from "@/lib/engine/finance";
+import { Money, roundMoney } from "@/lib/engine/money";
 
 /**
  * Display formatting for the results view. Money arrives as decimal strings (ENGINE.md §1) and is
@@ -73,9 +74,17 @@ export function formatPct(value: number | null, fractionDigits = 1): string {
   return value === null ? "—" : `${formatNumber(value, fractionDigits)} %`;
 }
 
-/** The engine's IRR is a rate (0.12 = 12 %). */
-export function formatIrr(irr: number | null): string {
-  return irr === null ? "no rate of return" : formatPct(irr * 100, 1);
+/**
+ * The engine's IRR is a rate (0.12 = 12 %), sought between −99 % and 1,000 % (ENGINE.md §8). A
+ * null there can mean a return beyond 1,000 %: an outlay repaid within weeks still has NPV > 0
+ * at that rate, which reads very differently from flows that never repay.
+ */
+export function formatIrr(scenario: { irr: number | null; cashFlows: readonly string[] }): string {
+  if (scenario.irr !== null) return formatPct(scenario.irr * 100, 1);
+  const flows = scenario.cashFlows.map((f) => new Money(f));
+  const outlayFirst = flows.length > 1 && flows[0].isNegative() && !flows[0].isZero();
+  if (outlayFirst && npv(new Money(IRR_HIGHEST_RATE), flows).greaterThan(0)) return "over 1,000 %";
+  return "no rate of return";
 }
 
 /** Payback in years and months, or why there is none within the horizon. */

@@ -55,6 +55,7 @@ export interface ScenarioHeadline {
   capex: string;
   npv: string;
   irr: number | null;
+  cashFlows: string[];
   paybackYears: number | null;
   discountedPaybackYears: number | null;
   roiPct: number | null;
@@ -105,6 +106,7 @@ export function scenarioHeadlines(
       capex: result.totals.capex,
       npv: scenario.npv,
       irr: scenario.irr,
+      cashFlows: scenario.cashFlows,
       paybackYears: scenario.paybackYears,
       discountedPaybackYears: scenario.discountedPaybackYears,
       roiPct: scenario.roiPct,

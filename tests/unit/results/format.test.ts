@@ -1,4 +1,6 @@
+import Decimal from "decimal.js";
 import { describe, expect, it } from "vitest";
+import { irr } from "@/lib/engine/finance";
 import {
   formatIrr,
   formatMoney,
@@ -38,7 +40,17 @@ describe("money and figures on screen", () => {
   });
 
   it("shows the IRR, a rate, in percent", () => {
-    expect(formatIrr(0.1234)).toBe("12.3 %");
-    expect(formatIrr(null)).toBe("no rate of return");
+    expect(formatIrr({ irr: 0.1234, cashFlows: ["-100", "60", "60"] })).toBe("12.3 %");
+  });
+
+  it("tells an IRR beyond the 1,000 % searched from flows that never repay (ENGINE.md §8)", () => {
+    // Repaid fifty times over in a year: the engine finds no root up to 1,000 % and says null.
+    const fast = ["-100", "5000", "5000"];
+    expect(irr(fast.map((f) => new Decimal(f)))).toBeNull();
+    expect(formatIrr({ irr: null, cashFlows: fast })).toBe("over 1,000 %");
+    // Costs every year and no income: no rate makes them worth anything.
+    const never = ["-100", "-5", "-5"];
+    expect(irr(never.map((f) => new Decimal(f)))).toBeNull();
+    expect(formatIrr({ irr: null, cashFlows: never })).toBe("no rate of return");
   });
 });
