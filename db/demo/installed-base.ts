@@ -261,7 +261,7 @@ export const DEMO_SITES: DemoSite[] = [
     ambientC: 35,
     hoursPerYear: 6000,
     machines: [
-      { kind: CARTONER, count: 14, throughputGainPct: 6, marginPerOutputHour: "42" },
+      { kind: CARTONER, count: 14, throughputGainPct: 2, marginPerOutputHour: "30" },
       { kind: LABELER, count: 10 },
     ],
   },
@@ -275,7 +275,7 @@ export const DEMO_SITES: DemoSite[] = [
     hoursPerYear: 4200,
     machines: [
       { kind: CARTONER, count: 6 },
-      { kind: LABELER, count: 8, throughputGainPct: 4, marginPerOutputHour: "18" },
+      { kind: LABELER, count: 8, throughputGainPct: 1.5, marginPerOutputHour: "18" },
     ],
   },
   {
@@ -297,7 +297,7 @@ export const DEMO_SITES: DemoSite[] = [
     ambientC: 40,
     hoursPerYear: 6500,
     machines: [
-      { kind: WEB_PRESS, count: 4, throughputGainPct: 5, marginPerOutputHour: "120" },
+      { kind: WEB_PRESS, count: 4, throughputGainPct: 2, marginPerOutputHour: "90" },
       { kind: SLITTER, count: 10 },
     ],
   },
