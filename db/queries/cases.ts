@@ -480,8 +480,9 @@ export function listProposals(caller: SessionUser, caseId: number): ProposalSumm
   }));
 }
 
-export function getProposalOrThrow(caller: SessionUser, id: number) {
-  const row = db
+/** Proposals with the names of their case, account and site; the caller adds the scope. */
+export function proposalWithCaseQuery() {
+  return db
     .select({
       ...getTableColumns(proposals),
       caseName: cases.name,
@@ -494,6 +495,11 @@ export function getProposalOrThrow(caller: SessionUser, id: number) {
     .innerJoin(cases, eq(cases.id, proposals.caseId))
     .innerJoin(accounts, eq(accounts.id, cases.accountId))
     .innerJoin(sites, eq(sites.id, cases.siteId))
+    .$dynamic();
+}
+
+export function getProposalOrThrow(caller: SessionUser, id: number) {
+  const row = proposalWithCaseQuery()
     .where(and(eq(proposals.id, id), scoped(caller)))
     .get();
   if (!row) throw new NotFoundError("No such proposal");

@@ -1,5 +1,5 @@
 import crypto from "node:crypto";
-import { and, eq, getTableColumns } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
 import {
   accounts,
@@ -9,7 +9,6 @@ import {
   dossierSettings,
   proposals,
   quotes,
-  sites,
 } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { NotFoundError } from "@/lib/errors";
@@ -22,7 +21,7 @@ import {
   type UncertaintySettings,
 } from "@/lib/validations/dossier";
 import { recordAudit } from "./audit";
-import { getProposalOrThrow } from "./cases";
+import { getProposalOrThrow, proposalWithCaseQuery } from "./cases";
 import { proposalScope } from "./proposals";
 
 const PRICE_KEY = "dossier.price";
@@ -69,20 +68,8 @@ export function setDossierPrice(caller: SessionUser, price: DossierPrice) {
  */
 function dossierProposalOrThrow(caller: SessionUser, proposalId: number) {
   if (caller.role !== "reviewer") return getProposalOrThrow(caller, proposalId);
-  const row = db
-    .select({
-      ...getTableColumns(proposals),
-      caseName: cases.name,
-      accountId: cases.accountId,
-      accountName: accounts.name,
-      siteId: cases.siteId,
-      siteName: sites.name,
-    })
-    .from(proposals)
+  const row = proposalWithCaseQuery()
     .innerJoin(quotes, eq(quotes.proposalId, proposals.id))
-    .innerJoin(cases, eq(cases.id, proposals.caseId))
-    .innerJoin(accounts, eq(accounts.id, cases.accountId))
-    .innerJoin(sites, eq(sites.id, cases.siteId))
     .where(and(eq(proposals.id, proposalId), proposalScope(caller)))
     .get();
   if (!row) throw new NotFoundError("No such proposal");

@@ -1,15 +1,12 @@
 import type { Metadata } from "next";
 import { BuyDossierButton } from "@/components/dossiers/buy-dossier-button";
-import { DossierContentsList, DossierReport } from "@/components/dossiers/dossier-report";
-import { PrintButton } from "@/components/dossiers/print-button";
+import { DossierContentsList } from "@/components/dossiers/dossier-report";
+import { PaidDossierView } from "@/components/dossiers/paid-dossier-view";
 import { UncertaintyForm } from "@/components/dossiers/uncertainty-form";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
-import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
 import { requirePageUser } from "@/lib/auth";
-import { buildDossier } from "@/lib/dossier";
-import { caseInputSchema } from "@/lib/engine";
 import { formatMoney } from "@/lib/results/format";
 import { idParam, orNotFound } from "@/lib/pages";
 
@@ -71,26 +68,15 @@ export default async function DossierPage({ params }: { params: Promise<{ propos
     );
   }
 
-  const input = caseInputSchema.parse(proposal.input);
-  const dossier = buildDossier(input, settings);
-  const { result } = dossier;
   return (
-    <div className="space-y-6 dossier-report">
-      <div className="print:hidden">{crumbs}</div>
-      <PageHeader
-        title={title}
-        lead={`${proposal.accountName} · ${proposal.siteName} · engine ${result.engineVersion} · seed ${settings.seed} · amounts in ${result.currency}`}
-        actions={
-          <div className="flex flex-wrap gap-2 print:hidden">
-            <a href={`/api/v1/proposals/${id}/dossier`} className={buttonClass("primary")}>
-              Download the workbook (.xlsx)
-            </a>
-            <PrintButton />
-          </div>
-        }
-      />
-      <DossierReport dossier={dossier} input={input} />
+    <PaidDossierView
+      proposalId={id}
+      title={title}
+      crumbs={crumbs}
+      proposal={proposal}
+      settings={settings}
+    >
       {rangesPanel}
-    </div>
+    </PaidDossierView>
   );
 }

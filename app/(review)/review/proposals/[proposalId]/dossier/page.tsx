@@ -1,14 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { DossierContentsList, DossierReport } from "@/components/dossiers/dossier-report";
-import { PrintButton } from "@/components/dossiers/print-button";
+import { DossierContentsList } from "@/components/dossiers/dossier-report";
+import { PaidDossierView } from "@/components/dossiers/paid-dossier-view";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
 import { requirePageUser } from "@/lib/auth";
-import { buildDossier } from "@/lib/dossier";
-import { caseInputSchema } from "@/lib/engine";
 import { idParam, orNotFound } from "@/lib/pages";
 
 export const metadata: Metadata = { title: "Dossier" };
@@ -58,26 +56,13 @@ export default async function ReviewDossierPage({
     );
   }
 
-  const input = caseInputSchema.parse(proposal.input);
-  const settings = getDossierSettings(user, id);
-  const dossier = buildDossier(input, settings);
-  const { result } = dossier;
   return (
-    <div className="space-y-6 dossier-report">
-      <div className="print:hidden">{crumbs}</div>
-      <PageHeader
-        title={title}
-        lead={`${proposal.accountName} · ${proposal.siteName} · engine ${result.engineVersion} · seed ${settings.seed} · amounts in ${result.currency}`}
-        actions={
-          <div className="flex flex-wrap gap-2 print:hidden">
-            <a href={`/api/v1/proposals/${id}/dossier`} className={buttonClass("primary")}>
-              Download the workbook (.xlsx)
-            </a>
-            <PrintButton />
-          </div>
-        }
-      />
-      <DossierReport dossier={dossier} input={input} />
-    </div>
+    <PaidDossierView
+      proposalId={id}
+      title={title}
+      crumbs={crumbs}
+      proposal={proposal}
+      settings={getDossierSettings(user, id)}
+    />
   );
 }
