@@ -5,8 +5,9 @@ import { useState, useTransition } from "react";
 import { approveDiscountAction, updateQuoteAction } from "@/app/(app)/proposals/actions";
 import { Button } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";
-import { QUOTE_STAGES, STAGE_LABELS, type QuoteStage } from "@/lib/pipeline/stages";
+import type { QuoteStage } from "@/lib/pipeline/stages";
 import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
+import { QuoteStageOptions } from "@/components/proposals/quote-stage-options";
 
 /** A manager's controls on a quote: stage, owner, expected close date. Every change is audited. */
 export function QuoteManagerForm({
@@ -59,11 +60,7 @@ export function QuoteManagerForm({
             value={values.stage}
             onChange={(e) => setValues((v) => ({ ...v, stage: e.target.value as QuoteStage }))}
           >
-            {QUOTE_STAGES.map((s) => (
-              <option key={s} value={s}>
-                {STAGE_LABELS[s]}
-              </option>
-            ))}
+            <QuoteStageOptions />
           </Select>
         </Field>
         <Field id="quote-owner" label="Owner">

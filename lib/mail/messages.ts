@@ -1,5 +1,5 @@
 import { formatMoney, formatPayback } from "../results/format";
-import { composeMail, type MailContent } from "./layout";
+import { composeMail, type MailBlock, type MailContent } from "./layout";
 
 // The messages Loopshift sends, in its own words. Links are absolute (they are opened from a
 // mail program); the caller passes them in so that these stay pure and testable.
@@ -31,15 +31,10 @@ const dateText = (iso: string) =>
     timeZone: "UTC",
   });
 
-/** To a reviewer who has no password yet: set one through the single-use link, then review. */
-export function invitationMail(args: {
-  recipientName: string;
-  senderName: string;
-  proposal: ProposalFacts;
-  invitationUrl: string;
-  expiresAt: string;
-  email: string;
-}): MailContent {
+type SentArgs = { recipientName: string; senderName: string; proposal: ProposalFacts };
+
+/** A proposal sent to the customer's reviewer: the same subject, greeting and facts for both. */
+function proposalSent(args: SentArgs, invitation: string, rest: MailBlock[]): MailContent {
   const { proposal: p } = args;
   return composeMail(
     `Retrofit proposal for ${p.accountName}: ${p.caseName}, version ${p.version}`,
@@ -48,9 +43,22 @@ export function invitationMail(args: {
       { kind: "paragraph", text: `Hello ${args.recipientName},` },
       {
         kind: "paragraph",
-        text: `${args.senderName} has sent you a proposal to convert open-loop stepper axes to closed-loop control. You can check the payback, try your own tariff, discount rate and horizon, download the workbook, and accept, ask for changes or decline.`,
+        text: `${args.senderName} has sent you a proposal to convert open-loop stepper axes to closed-loop control. ${invitation}`,
       },
       { kind: "facts", rows: factRows(p) },
+      ...rest,
+    ],
+  );
+}
+
+/** To a reviewer who has no password yet: set one through the single-use link, then review. */
+export function invitationMail(
+  args: SentArgs & { invitationUrl: string; expiresAt: string; email: string },
+): MailContent {
+  return proposalSent(
+    args,
+    "You can check the payback, try your own tariff, discount rate and horizon, download the workbook, and accept, ask for changes or decline.",
+    [
       {
         kind: "paragraph",
         text: `First choose a password for your reviewer account (${args.email}). The link works once and until ${dateText(args.expiresAt)}.`,
@@ -69,26 +77,10 @@ export function invitationMail(args: {
 }
 
 /** To a reviewer who already has a password: a new proposal is in their portal. */
-export function proposalSentMail(args: {
-  recipientName: string;
-  senderName: string;
-  proposal: ProposalFacts;
-  proposalUrl: string;
-}): MailContent {
-  const { proposal: p } = args;
-  return composeMail(
-    `Retrofit proposal for ${p.accountName}: ${p.caseName}, version ${p.version}`,
-    `A retrofit proposal is waiting for your review`,
-    [
-      { kind: "paragraph", text: `Hello ${args.recipientName},` },
-      {
-        kind: "paragraph",
-        text: `${args.senderName} has sent you a proposal to convert open-loop stepper axes to closed-loop control. Sign in to check the payback, try your own figures and decide.`,
-      },
-      { kind: "facts", rows: factRows(p) },
-      { kind: "button", label: "Open the proposal", href: args.proposalUrl },
-    ],
-  );
+export function proposalSentMail(args: SentArgs & { proposalUrl: string }): MailContent {
+  return proposalSent(args, "Sign in to check the payback, try your own figures and decide.", [
+    { kind: "button", label: "Open the proposal", href: args.proposalUrl },
+  ]);
 }
 
 export type Decision = "accept" | "changes" | "decline";

@@ -12,9 +12,10 @@ import { getSalesSettings } from "@/db/queries/sales-settings";
 import { requirePageUser } from "@/lib/auth";
 import { firstParam, type SearchParams } from "@/lib/pages";
 import { sum } from "@/lib/pipeline/figures";
-import { OPEN_STAGES, QUOTE_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
+import { OPEN_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import { formatMoney, formatPayback, formatPct } from "@/lib/results/format";
 import { pipelineFiltersSchema } from "@/lib/validations/pipeline";
+import { QuoteStageOptions } from "@/components/proposals/quote-stage-options";
 
 export const metadata: Metadata = { title: "Pipeline" };
 
@@ -89,11 +90,7 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
           <FilterField id="f-stage" label="Stage">
             <Select id="f-stage" name="stage" defaultValue={filters.stage ?? ""} className="w-56">
               <option value="">Every stage</option>
-              {QUOTE_STAGES.map((s) => (
-                <option key={s} value={s}>
-                  {STAGE_LABELS[s]}
-                </option>
-              ))}
+              <QuoteStageOptions />
             </Select>
           </FilterField>
           <FilterField id="f-account" label="Account">
