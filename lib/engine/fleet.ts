@@ -118,6 +118,8 @@ export interface AxisEconomics {
   coolingOpenLoopKWh: number;
   coolingClosedLoopKWh: number;
   undersized: boolean;
+  /** Not undersized and not a sensorless kit below its minimum speed (ENGINE.md §4, §8). */
+  avoidsEvents: boolean;
   speedHeadroomPct: number | null;
 }
 
@@ -162,7 +164,7 @@ export function fleetTotals(
     energyClosed += q * e.energyClosedLoopKWh;
     coolingOpen += q * e.coolingOpenLoopKWh;
     coolingClosed += q * e.coolingClosedLoopKWh;
-    if (!e.undersized) served.push(money[i].reliabilityIfServed);
+    if (e.avoidsEvents) served.push(money[i].reliabilityIfServed);
 
     const m = perMachine[machineIndex.get(axis.machineId) as number];
     m.axes++;

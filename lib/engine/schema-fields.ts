@@ -1,6 +1,13 @@
 import Decimal from "decimal.js";
 import { z } from "zod";
-import { canonicalTorqueUnit, torqueToNm, TORQUE_UNIT_NAMES } from "./units";
+import {
+  canonicalInertiaUnit,
+  canonicalTorqueUnit,
+  inertiaToKgM2,
+  INERTIA_UNIT_NAMES,
+  torqueToNm,
+  TORQUE_UNIT_NAMES,
+} from "./units";
 
 /** How a wrong value reads in a message: "received string", "received an array". */
 export function describeInput(input: unknown): string {
@@ -124,3 +131,37 @@ export const torque = (options: { positive?: boolean } = {}) =>
   z.union([options.positive ? positive() : atLeast(0), torqueWithUnit(options.positive === true)], {
     error: typeError(TORQUE_EXPECTED),
   });
+
+const INERTIA_EXPECTED = `an inertia: a number in kg·m² or { value, unit } with unit one of ${INERTIA_UNIT_NAMES.map((u) => `"${u}"`).join(", ")}`;
+
+/** { value, unit } in kg·m²; issues do not abort, for the same reason as torqueWithUnit. */
+const inertiaWithUnit = z.object({ value: num(), unit: text() }).transform((v, ctx): number => {
+  const unit = canonicalInertiaUnit(v.unit);
+  if (unit === undefined) {
+    ctx.addIssue({
+      code: "custom",
+      path: ["unit"],
+      message: `must be one of ${INERTIA_UNIT_NAMES.map((u) => `"${u}"`).join(", ")}, received ${JSON.stringify(v.unit)}`,
+      input: v.unit,
+      ...notAborting,
+    });
+    return z.NEVER;
+  }
+  const kgM2 = inertiaToKgM2(v.value, unit);
+  if (kgM2 < 0) {
+    ctx.addIssue({
+      code: "custom",
+      path: ["value"],
+      message: "must be at least 0",
+      input: v.value,
+      ...notAborting,
+    });
+  }
+  return kgM2;
+});
+
+/** A moment of inertia in kg·m², or { value, unit } converted by the NIST SP 811 factors (units.ts). */
+export const inertia = () =>
+  z.union([atLeast(0), inertiaWithUnit], { error: typeError(INERTIA_EXPECTED) });
+
+export const bool = () => z.boolean({ error: typeError("true or false") });

@@ -1,7 +1,9 @@
 import { z } from "zod";
 import {
   atLeast,
+  bool,
   choice,
+  inertia,
   id,
   int,
   list,
@@ -64,6 +66,16 @@ export const kitInputSchema = obj({
   sensorlessMinRpm: atLeast(0).default(60),
 });
 
+/** ENGINE.md §3: an open-loop mid-band dip, a model rather than a measured curve. */
+const resonanceSchema = obj({
+  fromRpm: atLeast(0),
+  toRpm: atLeast(0),
+  deratePct: pct(),
+}).superRefine((r, ctx) => {
+  if (r.toRpm < r.fromRpm)
+    ctx.addIssue({ code: "custom", path: ["toRpm"], message: `must be at least fromRpm (${r.fromRpm})` });
+});
+
 const driveSchema = obj({
   busVoltageV: positive(),
   currentSettingA: atLeast(0),
@@ -73,23 +85,91 @@ const driveSchema = obj({
   idleCurrentPct: pct().default(50),
   efficiencyPct: positive().max(100, "must be at most 100").default(90),
   standbyW: atLeast(0).default(2),
+  resonance: resonanceSchema.optional(),
 });
+
+export const MECHANISMS = ["belt", "rack", "screw", "rotary"] as const;
+export type Mechanism = (typeof MECHANISMS)[number];
+
+const efficiency = () => positive().max(100, "must be at most 100");
+
+/** ENGINE.md §3a: one axis's mechanism and move profile. */
+export const motionInputSchema = obj({
+  mechanism: choice(MECHANISMS),
+  radiusMm: positive().optional(),
+  leadMm: positive().optional(),
+  // absent = belt 95, rack 90, screw 90, rotary 100 (common practice)
+  efficiencyPct: efficiency().optional(),
+  gearRatio: positive().default(1),
+  gearEfficiencyPct: efficiency().default(100),
+  massKg: atLeast(0).default(0),
+  loadInertiaKgM2: inertia().default(0),
+  motorInertiaKgM2: inertia().default(0),
+  inclineDeg: num().min(-90, "must be at least -90").max(90, "must be at most 90").default(0),
+  frictionCoeff: atLeast(0).default(0),
+  externalForceN: atLeast(0).default(0),
+  externalTorqueNm: torque().default(0),
+  stroke: positive(),
+  moveTimeS: positive(),
+  accelSharePct: positive().max(50, "must be at most 50").default(25),
+  dwellTimeS: atLeast(0).default(0),
+  returnMove: bool().default(true),
+  energizedPct: pct().default(100),
+  maxInertiaRatio: positive().default(10), // common practice for open-loop steppers
+});
+
+/** The radius or lead each mechanism needs; checks the types it relies on. */
+function checkMotion(motion: unknown, ctx: z.RefinementCtx): void {
+  if (typeof motion !== "object" || motion === null) return;
+  const m = motion as Record<string, unknown>;
+  if ((m.mechanism === "belt" || m.mechanism === "rack") && m.radiusMm === undefined)
+    ctx.addIssue({
+      code: "custom",
+      path: ["radiusMm"],
+      message: `required for a ${m.mechanism}: the pitch radius of the ${m.mechanism === "belt" ? "pulley" : "pinion"} in mm`,
+    });
+  if (m.mechanism === "screw" && m.leadMm === undefined)
+    ctx.addIssue({
+      code: "custom",
+      path: ["leadMm"],
+      message: "required for a screw: the lead in mm per screw turn",
+    });
+}
 
 const dutySchema = obj({
   hoursPerYear: atLeast(0).max(8784, "must be at most 8784 (the hours of a leap year)"),
-  movePct: pct(),
-  holdPct: pct(),
-  speedRpm: atLeast(0),
-  loadTorqueNm: torque(),
-  peakTorqueNm: torque(),
+  // Required unless motion supplies them (checkAxisDuty); ignored when motion is given.
+  movePct: pct().optional(),
+  holdPct: pct().optional(),
+  speedRpm: atLeast(0).optional(),
+  loadTorqueNm: torque().optional(),
+  peakTorqueNm: torque().optional(),
   holdTorqueNm: torque().default(0),
   ambientC: num().min(-273.15, "must be at least -273.15").default(40),
+  motion: motionInputSchema.superRefine(checkMotion, { when: () => true }).optional(),
+});
+
+/** ENGINE.md §8: the cost of one step-loss event, built up from what it causes. */
+export const stepLossEventSchema = obj({
+  downtimeMinutes: atLeast(0).default(0),
+  scrapParts: atLeast(0).default(0),
+  scrapCostPerPart: money().default("0"),
+  restartLaborHours: atLeast(0).default(0),
 });
 
 const reliabilitySchema = obj({
   stepLossEventsPerYear: atLeast(0).default(0),
-  costPerEvent: money().default("0"),
+  // Absent = 0, or built from `event`; giving both is refused (checkReliability).
+  costPerEvent: money().optional(),
   avoidedPct: pct().default(90),
+  event: stepLossEventSchema.optional(),
+}).superRefine((r, ctx) => {
+  if (r.costPerEvent !== undefined && r.event !== undefined)
+    ctx.addIssue({
+      code: "custom",
+      path: ["event"],
+      message: "give either costPerEvent or event (the cost built from downtime, scrap and labour), not both",
+    });
 });
 
 const retrofitSchema = obj({
@@ -116,10 +196,21 @@ const axisObject = obj({
  * The cross-field checks of one axis. They also run when other fields failed (see
  * reportEveryProblem), so they check the types they rely on.
  */
+const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peakTorqueNm"] as const;
+
 function checkAxisDuty(axis: unknown, ctx: z.RefinementCtx): void {
   if (typeof axis !== "object" || axis === null) return;
   const duty = (axis as { duty?: Record<string, unknown> }).duty;
   if (typeof duty !== "object" || duty === null) return;
+  // With motion, §3a derives these figures and any sent are ignored.
+  if (duty.motion !== undefined) return;
+  for (const field of MOTION_SUPPLIED)
+    if (duty[field] === undefined)
+      ctx.addIssue({
+        code: "custom",
+        path: ["duty", field],
+        message: "required: expected a number (or give duty.motion to derive it)",
+      });
   const { movePct, holdPct, loadTorqueNm, peakTorqueNm } = duty;
   if (typeof movePct === "number" && typeof holdPct === "number" && movePct + holdPct > 100) {
     ctx.addIssue({
@@ -157,6 +248,9 @@ const financeSchema = obj({
   annualServiceCost: money().default("0"),
   coolingCop: positive().nullable().default(null),
   gridKgCo2PerKWh: atLeast(0).default(0),
+  inflationPct: num().gt(-100, "must be greater than -100").default(0),
+  taxRatePct: num().min(0, "must be at least 0").lt(100, "must be less than 100").default(0),
+  depreciationYears: int(1, 30).default(5),
 });
 
 const requiredMargin = () => atLeast(0).lt(100, "must be less than 100");
@@ -290,3 +384,6 @@ export type KitInput = z.input<typeof kitInputSchema>;
 export type ParsedKit = z.output<typeof kitInputSchema>;
 export type MarginsInput = z.input<typeof marginsSchema>;
 export type ParsedMargins = z.output<typeof marginsSchema>;
+export type MotionInput = z.input<typeof motionInputSchema>;
+export type ParsedMotion = z.output<typeof motionInputSchema>;
+export type StepLossEventInput = z.input<typeof stepLossEventSchema>;

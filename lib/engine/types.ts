@@ -25,6 +25,21 @@ export interface LoopResult<S extends string = string> {
 export interface OpenLoopResult extends LoopResult<OpenLoopStatus> {
   loadAngleElecDeg: number | null;
   loadAngleMechDeg: number | null;
+  /** ENGINE.md §7: what today's drive holds at standstill, k1·vf_hold·I_set·idle. */
+  holdingCapabilityNm: number;
+}
+
+/** ENGINE.md §3a: the duty figures derived from the mechanism and the move, as used. */
+export interface MotionResult {
+  speedRpm: number;
+  loadTorqueNm: number;
+  peakTorqueNm: number;
+  holdTorqueNm: number;
+  meanMechPowerW: number;
+  movePct: number;
+  holdPct: number;
+  reflectedInertiaKgM2: number;
+  inertiaRatio: number | null;
 }
 
 export type ClosedLoopResult = LoopResult<ClosedLoopStatus>;
@@ -44,6 +59,7 @@ export interface AxisResult {
   };
   openLoop: OpenLoopResult;
   closedLoop: ClosedLoopResult;
+  motion: MotionResult | null;
   savings: {
     energyKWhPerYear: number;
     energyPct: number | null;
@@ -74,7 +90,24 @@ export interface Scenario {
   paybackYears: number | null;
   discountedPaybackYears: number | null;
   roiPct: number | null;
+  /** "reached" within the horizon; "beyond-horizon" when the last flow is still positive; else "never". */
+  paybackStatus: PaybackStatus;
+  /** Value by source for years 1..N; the seven add up to cashFlows[t] exactly (ENGINE.md §8). */
+  bySource: Record<ValueSource, string[]>;
 }
+
+export type PaybackStatus = "reached" | "beyond-horizon" | "never";
+
+export const VALUE_SOURCES = [
+  "energy",
+  "cooling",
+  "reliability",
+  "maintenance",
+  "throughput",
+  "service",
+  "tax",
+] as const;
+export type ValueSource = (typeof VALUE_SOURCES)[number];
 
 export type SensitivityDriver =
   | "tariff"
@@ -83,7 +116,9 @@ export type SensitivityDriver =
   | "kitPrice"
   | "laborRate"
   | "stepLossEvents"
-  | "discountRate";
+  | "discountRate"
+  | "throughputGain"
+  | "idleCurrent";
 
 export interface SensitivityRow {
   driver: SensitivityDriver;
@@ -109,4 +144,6 @@ export interface CaseResult {
   };
   scenarios: { physics: Scenario; bandLow: Scenario; bandHigh: Scenario };
   sensitivity: SensitivityRow[];
+  /** ENGINE.md §8, physics scenario: where NPV crosses 0; null when it never does. */
+  breakEven: { tariffPerKWh: string | null; stepLossFactor: number | null };
 }

@@ -62,3 +62,52 @@ export function torqueToNm(value: number, unit: TorqueUnit): number {
 }
 
 export const rpmToRadPerS = (rpm: number): number => (2 * Math.PI * rpm) / 60;
+
+/**
+ * Moment-of-inertia units accepted at the input boundary, with their factor to kg·m².
+ * NIST SP 811 (2008), Appendix B.9: lb·in² 2.926 397 E−04, lb·ft² 4.214 011 E−02,
+ * ozf·in·s² 7.061 552 E−03; oz·in² 1.828 997 E−05 (from the definitions of the ounce-mass and
+ * the inch); kg·cm² 1 E−04 and g·cm² 1 E−07 exactly.
+ */
+export const INERTIA_FACTORS_TO_KG_M2 = {
+  "kg·m²": 1,
+  "kg·cm²": 1e-4,
+  "g·cm²": 1e-7,
+  "ozf·in·s²": 7.061552e-3,
+  "lb·in²": 2.926397e-4,
+  "lb·ft²": 4.214011e-2,
+  "oz·in²": 1.828997e-5,
+} as const;
+
+export type InertiaUnit = keyof typeof INERTIA_FACTORS_TO_KG_M2;
+export const INERTIA_UNIT_NAMES = Object.keys(INERTIA_FACTORS_TO_KG_M2) as InertiaUnit[];
+
+/** Spellings with ASCII stand-ins ("kg.cm^2", "kgcm2", "oz-in-s^2") mapped to the canonical unit. */
+export function canonicalInertiaUnit(unit: string): InertiaUnit | undefined {
+  const key = unit
+    .trim()
+    .toLowerCase()
+    .replace(/[·⋅*.\-\s]/g, "")
+    .replace(/\^?2|²/g, "2");
+  const byKey: Record<string, InertiaUnit> = {
+    kgm2: "kg·m²",
+    kgcm2: "kg·cm²",
+    gcm2: "g·cm²",
+    ozfins2: "ozf·in·s²",
+    ozins2: "ozf·in·s²",
+    lbin2: "lb·in²",
+    lbmin2: "lb·in²",
+    lbft2: "lb·ft²",
+    lbmft2: "lb·ft²",
+    ozin2: "oz·in²",
+    ozmin2: "oz·in²",
+  };
+  return byKey[key];
+}
+
+export function inertiaToKgM2(value: number, unit: InertiaUnit): number {
+  return value * INERTIA_FACTORS_TO_KG_M2[unit];
+}
+
+/** Standard acceleration of gravity, m/s² (exact by definition: CGPM 1901, NIST SP 330). */
+export const STANDARD_GRAVITY = 9.80665;

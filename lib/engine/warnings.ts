@@ -9,6 +9,11 @@ export const AXIS_WARNINGS = [
   "SAVING_OUTSIDE_BAND",
   "CURRENT_ABOVE_RATING",
   "HOLDING_LOAD",
+  "OL_HOLD_SLIPS",
+  "SENSORLESS_LOW_SPEED",
+  "SENSORLESS_HOLDING_LOAD",
+  "INERTIA_RATIO_HIGH",
+  "MOTOR_INERTIA_UNKNOWN",
 ] as const;
 
 export type AxisWarning = (typeof AXIS_WARNINGS)[number];
