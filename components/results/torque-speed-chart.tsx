@@ -6,6 +6,7 @@ import { Field, Select } from "@/components/ui/field";
 import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { formatNumber } from "@/lib/results/format";
+import { axisMotion } from "@/lib/results/engine-v2";
 import {
   torqueSpeedTable,
   torqueSpeedView,
@@ -79,9 +80,10 @@ export function TorqueSpeedChart({ result, input }: { result: CaseResult; input:
     picked !== null && input.axes.some((a) => a.id === picked) ? picked : (input.axes[0]?.id ?? "");
   const axis = input.axes.find((a) => a.id === axisId);
   const axisResult = result.axes.find((a) => a.id === axisId);
+  const motion = axisResult ? axisMotion(axisResult) : null;
   const view = useMemo(
-    () => (axis ? torqueSpeedView(axis, input.margins) : null),
-    [axis, input.margins],
+    () => (axis ? torqueSpeedView(axis, input.margins, motion) : null),
+    [axis, input.margins, motion],
   );
   const data = useMemo(() => (view ? seriesOf(view) : []), [view]);
   const layers = useMemo(
