@@ -78,6 +78,30 @@ export function paybackSentence(scenario: Scenario, horizonYears: number): strin
   return formatPayback(null, horizonYears);
 }
 
+/** The payback for a headline figure: "14 months", "after the 5-year horizon", "never". */
+export function paybackShort(scenario: Scenario, horizonYears: number): string {
+  if (scenario.paybackYears !== null) return formatPayback(scenario.paybackYears);
+  const status = (scenario as Stored<Scenario>).paybackStatus;
+  if (status === "beyond-horizon") return `after the ${horizonYears}-year horizon`;
+  if (status === "never") return "never";
+  return formatPayback(null, horizonYears);
+}
+
+/** A clause for a page's lead line: "paid back in 14 months as modelled". */
+export function paybackLead(scenario: Scenario, horizonYears: number): string {
+  if (scenario.paybackYears !== null) {
+    const when = formatPayback(scenario.paybackYears);
+    return when === "immediate"
+      ? "paid back at once as modelled"
+      : `paid back in ${when} as modelled`;
+  }
+  const status = (scenario as Stored<Scenario>).paybackStatus;
+  if (status === "beyond-horizon")
+    return `paid back after the ${horizonYears}-year horizon as modelled`;
+  if (status === "never") return "never paid back as modelled";
+  return `not paid back within ${horizonYears} years as modelled`;
+}
+
 // ---------------------------------------------------------------- break-even
 
 /** A tariff to four decimals, enough for cents per kWh to read as a price. */
@@ -149,7 +173,7 @@ export function breakEvenLines(
   if (stepLossFactor !== null && stepLossFactor > 0) {
     events = {
       term: "Lost-step events",
-      value: `breaks even at ${formatFactor(stepLossFactor)} the events entered`,
+      value: `breaks even at ${formatFactor(stepLossFactor)} the step-loss events entered`,
       note:
         stepLossFactor <= 1
           ? "The case pays back as long as at least this share of the step-loss events entered is really avoided."
