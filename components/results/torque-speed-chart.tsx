@@ -80,10 +80,12 @@ export function TorqueSpeedChart({ result, input }: { result: CaseResult; input:
     picked !== null && input.axes.some((a) => a.id === picked) ? picked : (input.axes[0]?.id ?? "");
   const axis = input.axes.find((a) => a.id === axisId);
   const axisResult = result.axes.find((a) => a.id === axisId);
-  const motion = axisResult ? axisMotion(axisResult) : null;
   const view = useMemo(
-    () => (axis ? torqueSpeedView(axis, input.margins, motion) : null),
-    [axis, input.margins, motion],
+    () =>
+      axis
+        ? torqueSpeedView(axis, input.margins, axisResult ? axisMotion(axisResult) : null)
+        : null,
+    [axis, input.margins, axisResult],
   );
   const data = useMemo(() => (view ? seriesOf(view) : []), [view]);
   const layers = useMemo(
