@@ -68,28 +68,13 @@ function withV2(overrides: {
 }
 
 /** A result as engine 1.0.0 stored it: none of the engine-2 fields exist. */
+const V2_KEYS = ["breakEven", "paybackStatus", "bySource", "motion", "holdingCapabilityNm"];
 function storedV1(): CaseResult {
-  const strip = (s: Scenario) => {
-    const copy: Partial<Scenario> = { ...s };
-    delete copy.paybackStatus;
-    delete copy.bySource;
-    return copy as Scenario;
-  };
-  const copy = structuredClone(result) as Partial<CaseResult> & CaseResult;
-  delete copy.breakEven;
-  copy.engineVersion = "1.0.0";
-  copy.scenarios = {
-    physics: strip(copy.scenarios.physics),
-    bandLow: strip(copy.scenarios.bandLow),
-    bandHigh: strip(copy.scenarios.bandHigh),
-  };
-  copy.axes = copy.axes.map((a) => {
-    const axis = { ...a, openLoop: { ...a.openLoop } } as Partial<typeof a> & typeof a;
-    delete axis.motion;
-    delete (axis.openLoop as Partial<typeof axis.openLoop>).holdingCapabilityNm;
-    return axis;
-  });
-  return copy;
+  // A reviver that answers undefined drops the key, as the stored JSON of 1.0.0 never had it.
+  const json = JSON.parse(JSON.stringify(result), (key: string, value: unknown) =>
+    V2_KEYS.includes(key) ? undefined : value,
+  ) as CaseResult;
+  return { ...json, engineVersion: "1.0.0" };
 }
 
 describe("payback in plain words (ENGINE.md §8 payback status)", () => {
