@@ -50,7 +50,7 @@ export function DossierReport({ dossier, input }: { dossier: Dossier; input: Par
       <HeadlineCards result={result} input={input} />
       <BreakEvenPanel result={result} input={input} />
       <UncertaintySummary dossier={dossier} />
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         <DrawsHistogram
           bins={npvHistogram(dossier.uncertainty.draws)}
           currency={result.currency}
@@ -60,7 +60,7 @@ export function DossierReport({ dossier, input }: { dossier: Dossier; input: Par
       </div>
       <PaybackGridPanel dossier={dossier} />
       <SensitivitySwingsPanel dossier={dossier} />
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         <TornadoChart
           result={{ ...result, sensitivity: swing30.rows }}
           input={{ ...input, sensitivity: { swingPct: 30 } }}

@@ -97,7 +97,7 @@ export function CaseResultsView({
       <HeadlineCards result={result} input={input} />
       <BreakEvenPanel result={result} input={input} />
 
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         {input ? (
           <TorqueSpeedChart result={result} input={input} />
         ) : (
@@ -182,7 +182,7 @@ export function CaseResultsSkeleton() {
           </div>
         ))}
       </div>
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         {[0, 1, 2, 3].map((i) => (
           <div key={i} className="space-y-3 rounded-panel border border-steel-200 bg-white p-5">
             <Skeleton className="h-5 w-56" />

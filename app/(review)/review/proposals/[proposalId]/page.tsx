@@ -110,13 +110,13 @@ export default async function ReviewProposalPage({
         />
       ) : null}
 
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         <CashFlowChart result={result} input={input} />
         <EnergyByMachineChart result={result} input={input} />
       </div>
       <ValueBySourceTable result={result} />
       <MachineFiguresTable result={result} input={input} />
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         {input ? <AssumptionsList input={input} /> : null}
         <CautionsPanel result={result} input={input} />
       </div>
