@@ -46,7 +46,7 @@ function Block({ block }: { block: MethodBlock }) {
             const { formula, gloss } = equationParts(line);
             return (
               <p key={line}>
-                <span className="block font-mono text-small break-words whitespace-pre-wrap text-steel-900">
+                <span className="block break-words whitespace-pre-wrap text-steel-900 tabular-nums">
                   <Inline text={formula} />
                 </span>
                 {gloss ? (
