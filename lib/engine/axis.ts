@@ -182,7 +182,13 @@ export function evaluateAxisPhysics(
   const axis = withIdleScaled(input, scale.idleCurrent);
   const duty = axisDuty(axis, scale.loadTorque);
   const { margins, coolingCop } = ctx;
-  const open = evaluateOpenLoop(axis, duty, margins.openLoopRequiredPct, coolingCop, searchMaxSpeed);
+  const open = evaluateOpenLoop(
+    axis,
+    duty,
+    margins.openLoopRequiredPct,
+    coolingCop,
+    searchMaxSpeed,
+  );
   const closed = evaluateClosedLoop(axis, duty, margins, coolingCop, searchMaxSpeed);
   const ol = open.result;
   const cl = closed.outcome.result;

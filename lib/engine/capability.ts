@@ -163,7 +163,8 @@ export function capabilityNm(capability: Capability, rpm: number): number {
     torque = Math.min(torque, (1 - dip.derate) * inBand);
   }
   const floor = capability.floor;
-  if (floor !== undefined) torque = Math.max(torque, interpolateCurve(floor.curve, rpm) * floor.scale);
+  if (floor !== undefined)
+    torque = Math.max(torque, interpolateCurve(floor.curve, rpm) * floor.scale);
   return torque;
 }
 

@@ -68,7 +68,10 @@ describe("physical invariants (ENGINE.md §3–§6)", () => {
         fc.double({ min: 0, max: 0.5, noNaN: true }),
         (d, a, b) => {
           const [x, y] = [a, b].map((share) => {
-            const input = caseFor({ ...d, speedRpm: Math.min(d.speedRpm, 60), busVoltageV: 72 }, d.holdingTorqueNm * share);
+            const input = caseFor(
+              { ...d, speedRpm: Math.min(d.speedRpm, 60), busVoltageV: 72 },
+              d.holdingTorqueNm * share,
+            );
             const open = evaluateCase(input).axes[0].openLoop;
             const duty = input.axes[0].duty;
             const mechanicalKWh =
