@@ -13,6 +13,7 @@ import { MotionTable } from "@/components/results/motion-table";
 import { TornadoChart } from "@/components/results/tornado-chart";
 import { TorqueSpeedChart } from "@/components/results/torque-speed-chart";
 import { ValueBySourceTable } from "@/components/results/value-by-source-table";
+import { WarningsPanel } from "@/components/results/warnings-panel";
 import { WindingTemperatureChart } from "@/components/results/winding-temperature-chart";
 import type { Dossier } from "@/lib/dossier";
 import type { ParsedCase } from "@/lib/engine";
@@ -71,6 +72,7 @@ export function DossierReport({ dossier, input }: { dossier: Dossier; input: Par
       </div>
       <ValueBySourceTable result={result} />
       <MotionTable result={result} input={input} />
+      <WarningsPanel result={result} input={input} />
       <AxisStatesPanel dossier={dossier} />
     </>
   );

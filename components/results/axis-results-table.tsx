@@ -31,7 +31,7 @@ export function AxisResultsTable({
       <p className="mb-3 text-small text-steel-700">
         Torque, speed and temperature are per unit; energy counts every unit of the axis.
       </p>
-      <Table caption="Results of each axis: loop status, torque freed, speed headroom, energy saved, temperature drop, what today's drive holds at standstill, and warnings with what to do">
+      <Table caption="Results of each axis: loop status, torque freed, speed headroom, energy saved, temperature drop, what today's drive holds at standstill, and warnings (explained under Warnings and what to do)">
         <thead>
           <tr>
             <Th>Axis</Th>
@@ -42,7 +42,7 @@ export function AxisResultsTable({
             <Th className="text-right">Energy saved</Th>
             <Th className="text-right">Temperature drop [K]</Th>
             {showHolding ? <Th className="text-right">Holds today [N·m]</Th> : null}
-            <Th>Warnings and what to do</Th>
+            <Th>Warnings</Th>
           </tr>
         </thead>
         <tbody className="divide-y divide-steel-100">
@@ -100,24 +100,14 @@ function AxisResultRow({ row, showHolding }: { row: AxisRow; showHolding: boolea
         {row.tempDropK === null ? "—" : formatNumber(row.tempDropK, 0)}
       </Td>
       {showHolding ? <HoldingCell row={row} /> : null}
-      <Td className="min-w-56 align-top">
+      <Td className="min-w-44 align-top">
         {row.warnings.length === 0 ? (
           <span className="text-steel-600">None</span>
         ) : (
-          <ul className="space-y-1.5">
+          <ul className="flex flex-col items-start gap-1">
             {row.warnings.map((w) => (
               <li key={w.code}>
-                <span className={w.safety ? "font-bold text-danger-700" : "text-steel-900"}>
-                  {w.safety ? "Safety: " : ""}
-                  {w.sentence}
-                </span>
-                <span className="block text-caption text-steel-800">
-                  <span className="font-bold">To do: </span>
-                  {w.advice}
-                </span>
-                {w.caution ? (
-                  <span className="block text-caption text-steel-700">{w.caution}</span>
-                ) : null}
+                <Badge tone={w.safety ? "danger" : "caution"}>{w.title}</Badge>
               </li>
             ))}
           </ul>
@@ -136,11 +126,15 @@ function HoldingCell({ row }: { row: AxisRow }) {
       <span
         className={`block text-caption ${holding.slips ? "font-bold text-danger-700" : "text-steel-600"}`}
       >
-        {holding.loadNm === null
-          ? "no load at rest"
-          : holding.slips
-            ? `load ${formatNumber(holding.loadNm, 3)}: slips`
-            : `load ${formatNumber(holding.loadNm, 3)}: held`}
+        {!holding.loadKnown
+          ? holding.slips
+            ? "slips under its load"
+            : ""
+          : holding.loadNm === null
+            ? "no load at rest"
+            : holding.slips
+              ? `load ${formatNumber(holding.loadNm, 3)}: slips`
+              : `load ${formatNumber(holding.loadNm, 3)}: held`}
       </span>
     </Td>
   );

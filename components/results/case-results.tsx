@@ -18,6 +18,7 @@ import { MotionTable } from "./motion-table";
 import { TornadoChart } from "./tornado-chart";
 import { TorqueSpeedChart } from "./torque-speed-chart";
 import { ValueBySourceTable } from "./value-by-source-table";
+import { WarningsPanel } from "./warnings-panel";
 import { WindingTemperatureChart } from "./winding-temperature-chart";
 
 /**
@@ -112,6 +113,7 @@ export function CaseResultsView({
 
       <ValueBySourceTable result={result} />
       <MotionTable result={result} input={input} />
+      <WarningsPanel result={result} input={input} />
       <AxisResultsTable result={result} input={input} />
     </div>
   );

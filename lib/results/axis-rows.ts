@@ -3,7 +3,7 @@ import { axisBandText } from "./band";
 import { namesById } from "./case-view";
 import { holdingView, type HoldingView } from "./engine-v2";
 import { loopStatus, type LoopStatusView } from "./status";
-import { explainAnyWarning, type ExplainedWarning } from "./warnings";
+import { explainAnyWarning, WARNING_CODES, type ExplainedWarning } from "./warnings";
 
 export interface AxisRow {
   axisId: string;
@@ -46,6 +46,33 @@ export function axisRows(result: CaseResult, input: ParsedCase | null): AxisRow[
     holding: holdingView(axis, enteredHold.get(axis.id) ?? null),
     warnings: axis.warnings.map(explainAnyWarning),
   }));
+}
+
+export interface WarningGroup extends ExplainedWarning {
+  /** Names of the axes (or machines) it concerns, in the order of the result. */
+  concerns: string[];
+}
+
+/**
+ * Each warning of the case once, with what it means, what to do and which axes or machines it
+ * concerns: the axis table then needs only the warning's title. Safety warnings come first.
+ */
+export function warningGroups(result: CaseResult, input: ParsedCase | null): WarningGroup[] {
+  const names = namesById(input);
+  const groups = new Map<string, WarningGroup>();
+  const add = (code: string, name: string) => {
+    const group = groups.get(code) ?? { ...explainAnyWarning(code), concerns: [] };
+    group.concerns.push(name);
+    groups.set(code, group);
+  };
+  for (const axis of result.axes) for (const w of axis.warnings) add(w, names.axis(axis.id));
+  for (const machine of result.machines)
+    for (const w of machine.warnings) add(w, names.machine(machine.id));
+  const order = (g: WarningGroup) => {
+    const i = WARNING_CODES.indexOf(g.code);
+    return (g.safety ? 0 : 1000) + (i < 0 ? 999 : i);
+  };
+  return [...groups.values()].sort((a, b) => order(a) - order(b));
 }
 
 export interface MachineWarningRow {

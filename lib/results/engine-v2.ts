@@ -322,8 +322,10 @@ export function formatInertia(value: number): string {
 export interface HoldingView {
   /** What today's drive holds at its idle current (ENGINE.md §7). */
   capabilityNm: number;
-  /** The load at standstill, when the axis carries one. */
+  /** The load at standstill, when the axis carries one (null also while the input is unknown). */
   loadNm: number | null;
+  /** Whether the load is known: from the motion block or the entered duty. */
+  loadKnown: boolean;
   slips: boolean;
 }
 
@@ -338,6 +340,7 @@ export function holdingView(axis: AxisResult, enteredHoldNm: number | null): Hol
   return {
     capabilityNm,
     loadNm: load !== null && load > 0 ? load : null,
+    loadKnown: load !== null,
     slips: axis.warnings.includes("OL_HOLD_SLIPS"),
   };
 }

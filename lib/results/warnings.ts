@@ -41,6 +41,25 @@ export const WARNING_SENTENCES: Record<WarningCode, string> = {
     "The throughput gain of this machine is limited to the speed headroom its axes actually have.",
 };
 
+/** A few words per warning, for the axis table; the sentence and advice stand in the warnings panel. */
+export const WARNING_TITLES: Record<WarningCode, string> = {
+  OL_THERMAL_RUNAWAY: "No steady temperature today",
+  CL_THERMAL_RUNAWAY: "No steady temperature closed loop",
+  OL_WINDING_OVER_CLASS: "Over its insulation class today",
+  CL_WINDING_OVER_CLASS: "Over its insulation class closed loop",
+  SPEED_BEYOND_CURVE: "Speed beyond the pull-out curve",
+  CL_KIT_UNDERSIZED: "Kit too small",
+  SAVING_OUTSIDE_BAND: "Saving outside the claimed band",
+  CURRENT_ABOVE_RATING: "Current above the motor's rating",
+  HOLDING_LOAD: "Holds a load at rest",
+  OL_HOLD_SLIPS: "Cannot hold its load today",
+  SENSORLESS_LOW_SPEED: "Too slow for sensorless",
+  SENSORLESS_HOLDING_LOAD: "Sensorless kit on a held load",
+  INERTIA_RATIO_HIGH: "High inertia ratio",
+  MOTOR_INERTIA_UNKNOWN: "Rotor inertia unknown",
+  THROUGHPUT_CAPPED: "Throughput gain capped",
+};
+
 /** What to do about each warning, one short instruction, shown under its sentence. */
 export const WARNING_ADVICE: Record<WarningCode, string> = {
   OL_THERMAL_RUNAWAY:
@@ -106,6 +125,7 @@ export function warningCaution(code: WarningCode): string | null {
 
 export interface ExplainedWarning {
   code: WarningCode;
+  title: string;
   sentence: string;
   /** What to do about it. */
   advice: string;
@@ -118,6 +138,7 @@ export function explainWarning(code: WarningCode): ExplainedWarning {
   const caution = warningCaution(code);
   return {
     code,
+    title: WARNING_TITLES[code],
     sentence: WARNING_SENTENCES[code],
     advice: WARNING_ADVICE[code],
     caution,
@@ -131,6 +152,7 @@ export function explainAnyWarning(code: string): ExplainedWarning {
     return explainWarning(code as WarningCode);
   return {
     code: code as WarningCode,
+    title: "Flagged by the engine",
     sentence: "The engine flagged this axis; see the workbook for details.",
     advice: "Ask the application engineer who prepared the case.",
     caution: null,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { AXIS_WARNINGS, MACHINE_WARNINGS, type CaseResult, type Scenario } from "@/lib/engine";
 import type { MotionResult } from "@/lib/engine/types";
-import { axisRows } from "@/lib/results/axis-rows";
+import { axisRows, warningGroups } from "@/lib/results/axis-rows";
 import {
   breakEvenLines,
   formatFactor,
@@ -16,7 +16,7 @@ import {
   paybackStatusWords,
   valueBySource,
 } from "@/lib/results/engine-v2";
-import { WARNING_ADVICE, explainWarning } from "@/lib/results/warnings";
+import { WARNING_ADVICE, WARNING_TITLES, explainWarning } from "@/lib/results/warnings";
 import { input, result } from "./fixture";
 
 // The fixture is evaluated by whatever engine is on the branch; these tests set the engine-2
@@ -243,12 +243,20 @@ describe("motion and holding (ENGINE.md §3a, §7)", () => {
       openLoop: { ...result.axes[0].openLoop, holdingCapabilityNm: 0.2 },
       motion,
     };
-    expect(holdingView(axis, 0)).toEqual({ capabilityNm: 0.2, loadNm: 0.35, slips: true });
+    expect(holdingView(axis, 0)).toEqual({
+      capabilityNm: 0.2,
+      loadNm: 0.35,
+      loadKnown: true,
+      slips: true,
+    });
     expect(holdingView({ ...axis, motion: null, warnings: [] }, 0)).toEqual({
       capabilityNm: 0.2,
       loadNm: null,
+      loadKnown: true,
       slips: false,
     });
+    // While the case's input is still loading, the load is not known rather than zero.
+    expect(holdingView({ ...axis, motion: null }, null)?.loadKnown).toBe(false);
   });
 });
 
@@ -274,6 +282,26 @@ describe("every warning says what to do", () => {
     expect(Object.keys(WARNING_ADVICE).sort()).toEqual(
       [...AXIS_WARNINGS, ...MACHINE_WARNINGS].sort(),
     );
+  });
+
+  it("has a short title for each code, for the axis table", () => {
+    for (const code of [...AXIS_WARNINGS, ...MACHINE_WARNINGS]) {
+      expect(WARNING_TITLES[code], code).toMatch(/^[A-Z][^.]{3,40}$/);
+    }
+  });
+
+  it("lists each warning of a case once, safety first, with the axes it concerns", () => {
+    const r: CaseResult = {
+      ...result,
+      axes: result.axes.map((a, i) => ({
+        ...a,
+        warnings: i === 0 ? ["SAVING_OUTSIDE_BAND", "HOLDING_LOAD"] : ["SAVING_OUTSIDE_BAND"],
+      })),
+    };
+    const groups = warningGroups(r, input);
+    expect(groups.map((g) => g.code).slice(0, 2)).toEqual(["HOLDING_LOAD", "SAVING_OUTSIDE_BAND"]);
+    expect(groups[1].concerns).toHaveLength(result.axes.length);
+    expect(groups[0].advice).toMatch(/brake/);
   });
 
   it("load-at-rest warnings carry the brake and safe-stop caution", () => {

@@ -10,6 +10,7 @@ import { EnergyByMachineChart } from "@/components/results/energy-by-machine-cha
 import { HeadlineCards } from "@/components/results/headline-cards";
 import { MethodLink } from "@/components/results/method-link";
 import { ValueBySourceTable } from "@/components/results/value-by-source-table";
+import { WarningsPanel } from "@/components/results/warnings-panel";
 import { AssumptionsList } from "@/components/review/assumptions-list";
 import { DecisionForm } from "@/components/review/decision-form";
 import { MachineFiguresTable } from "@/components/review/machine-figures-table";
@@ -116,6 +117,7 @@ export default async function ReviewProposalPage({
       </div>
       <ValueBySourceTable result={result} />
       <MachineFiguresTable result={result} input={input} />
+      <WarningsPanel result={result} input={input} />
       <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         {input ? <AssumptionsList input={input} /> : null}
         <CautionsPanel result={result} input={input} />
