@@ -31,7 +31,7 @@ export function AxisResultsTable({
       <p className="mb-3 text-small text-steel-700">
         Torque, speed and temperature are per unit; energy counts every unit of the axis.
       </p>
-      <Table caption="Results of each axis: loop status, torque freed, speed headroom, energy saved, temperature drop, what today's drive holds at standstill, and warnings (explained under Warnings and what to do)">
+      <Table caption="Results of each axis with its warnings: loop status, torque freed, speed headroom, energy saved, temperature drop and what today's drive holds at standstill">
         <thead>
           <tr>
             <Th>Axis</Th>
@@ -42,7 +42,6 @@ export function AxisResultsTable({
             <Th className="text-right">Energy saved</Th>
             <Th className="text-right">Temperature drop [K]</Th>
             {showHolding ? <Th className="text-right">Holds today [N·m]</Th> : null}
-            <Th>Warnings</Th>
           </tr>
         </thead>
         <tbody className="divide-y divide-steel-100">
@@ -65,12 +64,21 @@ export function AxisResultsTable({
 function AxisResultRow({ row, showHolding }: { row: AxisRow; showHolding: boolean }) {
   return (
     <tr className="align-top">
-      <Td className="min-w-40 align-top">
+      <Td className="min-w-44 align-top">
         <span className="font-bold">{row.label}</span>
         <span className="block text-caption text-steel-600">
           {row.machineName} · {row.axisId}
           {row.quantity > 1 ? ` · ${row.quantity} units` : ""}
         </span>
+        {row.warnings.length > 0 ? (
+          <ul aria-label="Warnings" className="mt-1.5 flex flex-col items-start gap-1">
+            {row.warnings.map((w) => (
+              <li key={w.code}>
+                <Badge tone={w.safety ? "danger" : "caution"}>{w.title}</Badge>
+              </li>
+            ))}
+          </ul>
+        ) : null}
       </Td>
       <Td className="align-top">
         <LoopStatus status={row.openLoop} />
@@ -100,19 +108,6 @@ function AxisResultRow({ row, showHolding }: { row: AxisRow; showHolding: boolea
         {row.tempDropK === null ? "—" : formatNumber(row.tempDropK, 0)}
       </Td>
       {showHolding ? <HoldingCell row={row} /> : null}
-      <Td className="min-w-44 align-top">
-        {row.warnings.length === 0 ? (
-          <span className="text-steel-600">None</span>
-        ) : (
-          <ul className="flex flex-col items-start gap-1">
-            {row.warnings.map((w) => (
-              <li key={w.code}>
-                <Badge tone={w.safety ? "danger" : "caution"}>{w.title}</Badge>
-              </li>
-            ))}
-          </ul>
-        )}
-      </Td>
     </tr>
   );
 }
@@ -121,7 +116,7 @@ function HoldingCell({ row }: { row: AxisRow }) {
   const holding = row.holding;
   if (!holding) return <Td className="text-right align-top">—</Td>;
   return (
-    <Td className="min-w-32 text-right align-top tabular-nums">
+    <Td className="min-w-28 text-right align-top tabular-nums">
       {formatNumber(holding.capabilityNm, 3)}
       <span
         className={`block text-caption ${holding.slips ? "font-bold text-danger-700" : "text-steel-600"}`}

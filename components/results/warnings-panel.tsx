@@ -5,6 +5,7 @@ import { warningGroups } from "@/lib/results/axis-rows";
 
 // More names than this make a wall of text; the axis table marks every one.
 const NAMED = 8;
+const PLURAL = { axis: ["axis", "axes"], machine: ["machine", "machines"] } as const;
 
 /**
  * Every warning of the case once: what it means, what to do, and where it applies. The axis
@@ -27,7 +28,7 @@ export function WarningsPanel({ result, input }: { result: CaseResult; input: Pa
                 <span className="font-bold text-steel-900">{g.title}</span>
                 {g.safety ? <Badge tone="danger">Safety</Badge> : null}
                 <span className="text-caption text-steel-600">
-                  {g.concerns.length} {g.concerns.length === 1 ? "place" : "places"}
+                  {g.concerns.length} {PLURAL[g.scope][g.concerns.length === 1 ? 0 : 1]}
                 </span>
               </p>
               <p className="mt-1 max-w-3xl text-small text-steel-900">{g.sentence}</p>

@@ -49,8 +49,10 @@ export function axisRows(result: CaseResult, input: ParsedCase | null): AxisRow[
 }
 
 export interface WarningGroup extends ExplainedWarning {
-  /** Names of the axes (or machines) it concerns, in the order of the result. */
+  /** Names of the axes (with their machine) or machines it concerns, in the result's order. */
   concerns: string[];
+  /** "axis" or "machine": what `concerns` names. */
+  scope: "axis" | "machine";
 }
 
 /**
@@ -60,14 +62,18 @@ export interface WarningGroup extends ExplainedWarning {
 export function warningGroups(result: CaseResult, input: ParsedCase | null): WarningGroup[] {
   const names = namesById(input);
   const groups = new Map<string, WarningGroup>();
-  const add = (code: string, name: string) => {
-    const group = groups.get(code) ?? { ...explainAnyWarning(code), concerns: [] };
+  const add = (code: string, name: string, scope: WarningGroup["scope"]) => {
+    const group = groups.get(code) ?? { ...explainAnyWarning(code), concerns: [], scope };
     group.concerns.push(name);
     groups.set(code, group);
   };
-  for (const axis of result.axes) for (const w of axis.warnings) add(w, names.axis(axis.id));
+  for (const axis of result.axes) {
+    // Axis labels repeat from machine to machine ("Backing rewind"); the machine tells them apart.
+    const name = `${names.axis(axis.id)} (${names.machine(axis.machineId)})`;
+    for (const w of axis.warnings) add(w, name, "axis");
+  }
   for (const machine of result.machines)
-    for (const w of machine.warnings) add(w, names.machine(machine.id));
+    for (const w of machine.warnings) add(w, names.machine(machine.id), "machine");
   const order = (g: WarningGroup) => {
     const i = WARNING_CODES.indexOf(g.code);
     return (g.safety ? 0 : 1000) + (i < 0 ? 999 : i);
