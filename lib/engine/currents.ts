@@ -118,5 +118,7 @@ export function closedLoopMovingA(
   if (w2 < 0) return { magnitudeA: Math.min(iq, maxA), short: true };
   const id = Math.min(0, disc.cd + Math.sqrt(w2));
   const magnitude = Math.hypot(id, iq);
-  return magnitude > maxA ? { magnitudeA: maxA, short: true } : { magnitudeA: magnitude, short: false };
+  return magnitude > maxA
+    ? { magnitudeA: maxA, short: true }
+    : { magnitudeA: magnitude, short: false };
 }

@@ -41,9 +41,7 @@ export function derivedMotion(motion: ParsedMotion, loadFactor = 1): MotionResul
   const sin = Math.sin(incline);
   const cos = Math.cos(incline);
 
-  const theta = rotary
-    ? (gear * motion.stroke * Math.PI) / 180
-    : (gear * motion.stroke) / 1000 / k;
+  const theta = rotary ? (gear * motion.stroke * Math.PI) / 180 : (gear * motion.stroke) / 1000 / k;
   const moveTime = motion.moveTimeS;
   const tA = (motion.accelSharePct / 100) * moveTime;
   const tC = moveTime - 2 * tA;
@@ -88,8 +86,7 @@ export function derivedMotion(motion: ParsedMotion, loadFactor = 1): MotionResul
   const movingTime = moveTime * moves.length;
   const dwellTime = motion.dwellTimeS * moves.length;
   const cycle = movingTime + dwellTime;
-  const holdTorque =
-    rotary || selfLocking ? 0 : (mass * STANDARD_GRAVITY * sin * k) / gear;
+  const holdTorque = rotary || selfLocking ? 0 : (mass * STANDARD_GRAVITY * sin * k) / gear;
 
   return {
     speedRpm: (omegaPeak * 60) / (2 * Math.PI),

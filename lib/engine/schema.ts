@@ -73,7 +73,11 @@ const resonanceSchema = obj({
   deratePct: pct(),
 }).superRefine((r, ctx) => {
   if (r.toRpm < r.fromRpm)
-    ctx.addIssue({ code: "custom", path: ["toRpm"], message: `must be at least fromRpm (${r.fromRpm})` });
+    ctx.addIssue({
+      code: "custom",
+      path: ["toRpm"],
+      message: `must be at least fromRpm (${r.fromRpm})`,
+    });
 });
 
 const driveSchema = obj({
@@ -168,7 +172,8 @@ const reliabilitySchema = obj({
     ctx.addIssue({
       code: "custom",
       path: ["event"],
-      message: "give either costPerEvent or event (the cost built from downtime, scrap and labour), not both",
+      message:
+        "give either costPerEvent or event (the cost built from downtime, scrap and labour), not both",
     });
 });
 
