@@ -1,12 +1,13 @@
 import Decimal from "decimal.js";
-import type { AxisResult, CaseResult, Scenario } from "@/lib/engine";
-// Not re-exported by the engine's index yet; the types file is the contract (ENGINE.md §9).
 import {
   VALUE_SOURCES,
+  type AxisResult,
+  type CaseResult,
   type MotionResult,
   type PaybackStatus,
+  type Scenario,
   type ValueSource,
-} from "@/lib/engine/types";
+} from "@/lib/engine";
 import { Money, roundMoney } from "@/lib/engine/money";
 import { formatNumber, formatPayback } from "./format";
 

@@ -1,6 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { AXIS_WARNINGS, MACHINE_WARNINGS, type CaseResult, type Scenario } from "@/lib/engine";
-import type { MotionResult } from "@/lib/engine/types";
+import {
+  AXIS_WARNINGS,
+  MACHINE_WARNINGS,
+  type CaseResult,
+  type MotionResult,
+  type Scenario,
+} from "@/lib/engine";
 import { axisRows, warningGroups } from "@/lib/results/axis-rows";
 import {
   breakEvenLines,
