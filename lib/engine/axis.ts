@@ -1,10 +1,20 @@
-import { closedLoopCurrents, kitEncoderW, kitMotor, openLoopCurrents } from "./currents";
-import { monotoneCurve, isBeyondCurve } from "./curves";
-import { averageOverDuty, coolingKWhPerYear, kWhPerYear, type DutyMix } from "./energy";
+import type { Capability } from "./capability";
+import {
+  closedLoopDemand,
+  closedLoopMovingA,
+  holdingCapabilityNm,
+  kitEncoderW,
+  kitMaxCurrentA,
+  kitMotor,
+  openLoopMovingMagnitudeA,
+  openLoopSettingA,
+} from "./currents";
+import { isBeyondCurve, monotoneCurve } from "./curves";
+import { axisDuty, type AxisDuty } from "./duty";
 import type { AxisEconomics } from "./fleet";
-import { evaluateLoop, type LoopOutcome, type OperatingPoint } from "./loop";
+import { evaluateLoop, type LoopOutcome } from "./loop";
 import { headroomForGain, loadAngle, speedHeadroomPct, type OpenLoopStatus } from "./margin";
-import { stepGeometry } from "./motor";
+import { copperFactor, dragTorqueNm, runVectorFactor, stepGeometry, torqueConstant } from "./motor";
 import type { ParsedAxis, ParsedCase, ParsedMargins } from "./schema";
 import { insulationLifeFactor } from "./thermal";
 import type { AxisResult, Band, OpenLoopResult } from "./types";
@@ -21,100 +31,170 @@ export interface AxisContext {
 /** Everything per unit of one axis that does not involve money. */
 export type AxisPhysics = Omit<AxisResult, "capex" | "totals"> & {
   undersized: boolean;
+  /** Not undersized, and not a sensorless kit below its minimum speed (docs/model.md §8). */
+  avoidsEvents: boolean;
+  /** Share of running hours at standstill, energized. */
+  holdShare: number;
+  /** The closed loop's capability and required margin, for the throughput cap's headroom. */
+  closedCapability: Capability;
+  closedRequiredPct: number;
+  /** The duty the physics used (typed, or derived from the motion). */
+  duty: AxisDuty;
 };
 
-/** Factors applied to the axis inputs, for the sensitivity runs (ENGINE.md §8). */
+/** Factors applied to the axis inputs, for the sensitivity runs (docs/model.md §8). */
 export interface PhysicsScale {
   loadTorque: number;
+  idleCurrent: number;
 }
 
-const NO_SCALE: PhysicsScale = { loadTorque: 1 };
+export const NO_SCALE: PhysicsScale = { loadTorque: 1, idleCurrent: 1 };
 
 /** Relative tolerance so that a setting exactly at the rating (e.g. √2·I_rms) is not flagged. */
 const RATING_TOLERANCE = 1e-9;
 
-export function operatingPoint(
-  axis: ParsedAxis,
-  coolingCop: number | null,
-  scale: PhysicsScale = NO_SCALE,
-): OperatingPoint {
-  const duty: DutyMix = {
-    hoursPerYear: axis.duty.hoursPerYear,
-    move: axis.duty.movePct / 100,
-    hold: axis.duty.holdPct / 100,
-  };
-  return {
-    duty,
-    speedRpm: axis.duty.speedRpm,
-    loadTorqueNm: axis.duty.loadTorqueNm * scale.loadTorque,
-    peakTorqueNm: axis.duty.peakTorqueNm,
-    ambientC: axis.duty.ambientC,
-    coolingCop,
-  };
+/** The axis with every idle current scaled, capped at 100 % (the idle-current driver). */
+function withIdleScaled(axis: ParsedAxis, factor: number): ParsedAxis {
+  if (factor === 1) return axis;
+  const idleCurrentPct = Math.min(100, axis.drive.idleCurrentPct * factor);
+  return { ...axis, drive: { ...axis.drive, idleCurrentPct } };
 }
 
-export function evaluateOpenLoop(axis: ParsedAxis, op: OperatingPoint, requiredPct: number) {
-  const currents = openLoopCurrents(axis);
+export function evaluateOpenLoop(
+  axis: ParsedAxis,
+  duty: AxisDuty,
+  requiredPct: number,
+  coolingCop: number | null,
+  searchMaxSpeed = true,
+) {
+  const { motor, drive } = axis;
+  const setting = openLoopSettingA(drive);
+  const limitA = runVectorFactor(drive.stepMode) * setting;
+  const torqueCurrentA =
+    (duty.loadTorqueNm + dragTorqueNm(motor, duty.speedRpm)) / torqueConstant(motor);
+  const curve = motor.pullOutCurve ? monotoneCurve(motor.pullOutCurve) : undefined;
   const outcome: LoopOutcome<OpenLoopStatus> = evaluateLoop(
     {
-      motor: axis.motor,
-      currents,
-      busVoltageV: axis.drive.busVoltageV,
-      drive: { efficiencyPct: axis.drive.efficiencyPct, fixedW: axis.drive.standbyW },
-      curve: axis.motor.pullOutCurve ? monotoneCurve(axis.motor.pullOutCurve) : undefined,
+      motor,
+      busVoltageV: drive.busVoltageV,
+      currentLimitA: limitA,
+      copperFactor: copperFactor(drive.stepMode),
+      moveA: setting,
+      holdA: (setting * drive.idleCurrentPct) / 100,
+      // The chopper's setting, scaled by the share of I_lim it still reaches at speed.
+      movingAtSpeed: (disc) =>
+        limitA === 0
+          ? 0
+          : (setting * openLoopMovingMagnitudeA(limitA, torqueCurrentA, disc)) / limitA,
+      drive: { efficiencyPct: drive.efficiencyPct, fixedW: drive.standbyW },
+      // A measured curve already holds whatever resonance the axis has; the dip shapes the model.
+      shape: curve
+        ? { curve }
+        : drive.resonance
+          ? {
+              resonance: {
+                fromRpm: drive.resonance.fromRpm,
+                toRpm: drive.resonance.toRpm,
+                derate: drive.resonance.deratePct / 100,
+              },
+            }
+          : {},
       requiredPct,
       shortStatus: "step-loss",
+      searchMaxSpeed,
     },
-    op,
+    duty,
+    coolingCop,
   );
-  return {
-    result: outcome.result,
-    thermal: outcome.thermal,
-    capability: outcome.capability,
-    short: outcome.short,
-    currents,
-  };
+  return { ...outcome, curve };
 }
 
 export function evaluateClosedLoop(
   axis: ParsedAxis,
-  op: OperatingPoint,
-  requiredPct: number,
+  duty: AxisDuty,
+  margins: ParsedMargins,
+  coolingCop: number | null,
   searchMaxSpeed = true,
 ) {
   const kit = axis.retrofit.kit;
-  const currents = closedLoopCurrents(axis, op.loadTorqueNm);
+  const motor = kitMotor(axis);
+  const demand = closedLoopDemand(axis, duty);
+  const maxA = kitMaxCurrentA(kit, motor);
+  const busVoltageV = kit.busVoltageV ?? axis.drive.busVoltageV;
+  let shortOfVoltage = false;
+
+  // The motor and bus of today with a measured curve: what it did open loop at today's current
+  // it does closed loop too, scaled by the kit's current against today's.
+  const keepsMotorAndBus = kit.motor === undefined && busVoltageV === axis.drive.busVoltageV;
+  const curve = axis.motor.pullOutCurve;
+  const todayLimitA = runVectorFactor(axis.drive.stepMode) * openLoopSettingA(axis.drive);
+  const floor =
+    keepsMotorAndBus && curve
+      ? {
+          curve: monotoneCurve(curve),
+          scale: todayLimitA > 0 ? Math.min(1, maxA / todayLimitA) : 1,
+        }
+      : undefined;
+
   const outcome = evaluateLoop(
     {
-      motor: kitMotor(axis),
-      currents,
-      busVoltageV: kit.busVoltageV ?? axis.drive.busVoltageV,
+      motor,
+      busVoltageV,
+      currentLimitA: maxA,
+      copperFactor: 1,
+      moveA: demand.moveA,
+      holdA: demand.holdA,
+      movingAtSpeed: (disc) => {
+        if (demand.lowSpeedSensorless) return maxA;
+        const moving = closedLoopMovingA(demand.moveA, maxA, disc);
+        shortOfVoltage = moving.short;
+        return moving.magnitudeA;
+      },
       drive: { efficiencyPct: kit.efficiencyPct, fixedW: kit.standbyW + kitEncoderW(kit) },
-      requiredPct,
+      shape: floor ? { floor } : {},
+      // Below its minimum speed a sensorless kit is open loop in effect, and needs its margin.
+      requiredPct: demand.lowSpeedSensorless
+        ? margins.openLoopRequiredPct
+        : margins.closedLoopRequiredPct,
       shortStatus: "undersized",
       searchMaxSpeed,
     },
-    op,
+    duty,
+    coolingCop,
   );
-  // §7: a moving or holding demand above I_max makes the kit undersized whatever the margin.
-  if (currents.demandAboveLimit) outcome.result.status = "undersized";
-  return { outcome, undersized: outcome.result.status === "undersized" };
+  // A moving or holding demand above I_max, or a torque current the bus cannot drive at speed,
+  // makes the kit undersized whatever the margin.
+  if (demand.demandAboveLimit || shortOfVoltage) outcome.result.status = "undersized";
+  return {
+    outcome,
+    undersized: outcome.result.status === "undersized",
+    lowSpeedSensorless: demand.lowSpeedSensorless,
+  };
 }
 
-/** The physics of ENGINE.md §3–§7 for one unit of one axis. */
+/** The physics of docs/model.md §3–§7 for one unit of one axis. */
 export function evaluateAxisPhysics(
-  axis: ParsedAxis,
+  input: ParsedAxis,
   ctx: AxisContext,
   scale: PhysicsScale = NO_SCALE,
+  searchMaxSpeed = true,
 ): AxisPhysics {
-  const op = operatingPoint(axis, ctx.coolingCop, scale);
-  const { margins } = ctx;
-  const open = evaluateOpenLoop(axis, op, margins.openLoopRequiredPct);
-  const closed = evaluateClosedLoop(axis, op, margins.closedLoopRequiredPct);
+  const axis = withIdleScaled(input, scale.idleCurrent);
+  const duty = axisDuty(axis, scale.loadTorque);
+  const { margins, coolingCop } = ctx;
+  const open = evaluateOpenLoop(
+    axis,
+    duty,
+    margins.openLoopRequiredPct,
+    coolingCop,
+    searchMaxSpeed,
+  );
+  const closed = evaluateClosedLoop(axis, duty, margins, coolingCop, searchMaxSpeed);
   const ol = open.result;
   const cl = closed.outcome.result;
 
-  const angle = loadAngle(op.loadTorqueNm, ol.torqueAtSpeedNm, axis.motor.rotorTeeth);
+  const angle = loadAngle(duty.loadTorqueNm, ol.torqueAtSpeedNm, axis.motor.rotorTeeth);
+  const holdingNm = holdingCapabilityNm(axis);
 
   const energySaved = ol.energyKWhPerYear - cl.energyKWhPerYear;
   const energyPct = ol.energyKWhPerYear > 0 ? (100 * energySaved) / ol.energyKWhPerYear : null;
@@ -128,17 +208,22 @@ export function evaluateAxisPhysics(
   const tempDropK =
     ol.windingTempC === null || cl.windingTempC === null ? null : ol.windingTempC - cl.windingTempC;
 
-  // Today's setting against the rating, both as I²·R20 dissipation (ENGINE.md §9).
-  const setting = open.currents;
+  // Today's setting against the rating, both as I²·R20 dissipation at 20 °C.
+  const setting = openLoopSettingA(axis.drive);
   const aboveRating =
-    setting.copperFactor * setting.moveA ** 2 >
+    copperFactor(axis.drive.stepMode) * setting * setting >
     2 * axis.motor.ratedCurrentA ** 2 * (1 + RATING_TOLERANCE);
   const curve = axis.motor.pullOutCurve;
+  const sensorless = axis.retrofit.kit.sensing === "sensorless";
+  const motion = duty.motion;
+  const motionSpec = axis.duty.motion;
+  const avoidsEvents = !closed.undersized && !closed.lowSpeedSensorless;
 
   // Added in place: copying the loop result with a spread cost more than the physics.
   const openLoopResult = ol as OpenLoopResult;
   openLoopResult.loadAngleElecDeg = angle.elecDeg;
   openLoopResult.loadAngleMechDeg = angle.mechDeg;
+  openLoopResult.holdingCapabilityNm = holdingNm;
 
   return {
     id: axis.id,
@@ -149,15 +234,23 @@ export function evaluateAxisPhysics(
       closed.outcome.thermal.runaway,
       open.thermal.overClass,
       closed.outcome.thermal.overClass,
-      curve !== undefined && isBeyondCurve(curve, op.speedRpm),
+      curve !== undefined && isBeyondCurve(curve, duty.speedRpm),
       closed.undersized,
       band !== "within",
       aboveRating,
-      axis.duty.holdTorqueNm > 0,
+      duty.holdTorqueNm > 0,
+      duty.holdTorqueNm > 0 && duty.holdTorqueNm > holdingNm,
+      closed.lowSpeedSensorless,
+      sensorless && duty.holdTorqueNm > 0,
+      motion !== null &&
+        motion.inertiaRatio !== null &&
+        motion.inertiaRatio > (motionSpec?.maxInertiaRatio ?? Infinity),
+      motion !== null && motion.inertiaRatio === null,
     ]),
     geometry: stepGeometry(axis.motor.rotorTeeth, axis.drive.stepMode, axis.drive.microsteps),
     openLoop: openLoopResult,
     closedLoop: cl,
+    motion,
     savings: {
       energyKWhPerYear: energySaved,
       energyPct,
@@ -171,12 +264,19 @@ export function evaluateAxisPhysics(
       ),
       torqueFreedNm,
       torqueFreedPct: ol.usableTorqueNm === 0 ? null : (100 * torqueFreedNm) / ol.usableTorqueNm,
-      speedHeadroomPct: speedHeadroomPct(cl.maxSpeedRpm, op.speedRpm),
-      stepLossEventsAvoided: closed.undersized
-        ? 0
-        : (axis.reliability.stepLossEventsPerYear * axis.reliability.avoidedPct) / 100,
+      speedHeadroomPct: searchMaxSpeed ? speedHeadroomPct(cl.maxSpeedRpm, duty.speedRpm) : null,
+      stepLossEventsAvoided: avoidsEvents
+        ? (axis.reliability.stepLossEventsPerYear * axis.reliability.avoidedPct) / 100
+        : 0,
     },
     undersized: closed.undersized,
+    avoidsEvents,
+    holdShare: duty.hold,
+    closedCapability: closed.outcome.capability,
+    closedRequiredPct: closed.lowSpeedSensorless
+      ? margins.openLoopRequiredPct
+      : margins.closedLoopRequiredPct,
+    duty,
   };
 }
 
@@ -187,48 +287,35 @@ export function economicsOf(physics: AxisPhysics): AxisEconomics {
     coolingOpenLoopKWh: physics.openLoop.coolingKWhPerYear,
     coolingClosedLoopKWh: physics.closedLoop.coolingKWhPerYear,
     undersized: physics.undersized,
+    avoidsEvents: physics.avoidsEvents,
     speedHeadroomPct: physics.savings.speedHeadroomPct,
   };
 }
 
 /**
- * The economics of one axis with its load torque scaled, for the sensitivity of §8. Open loop,
- * currents, temperature and torque do not depend on the load (§4); only the mechanical power
- * does, and input power and drive loss are linear in it, so the open loop is shifted by the
- * extra power and only the closed loop is solved again.
+ * The economics of one axis with its load and/or idle current scaled, for the sensitivity of
+ * docs/model.md §8. The idle current matters only through the hours at standstill, so an axis
+ * that never holds keeps its base economics; otherwise the axis is solved again without the
+ * max-speed search, whose headroom matters only to a machine that values a throughput gain.
  */
-export function economicsAtLoad(
+export function economicsAtScale(
   axis: ParsedAxis,
   base: AxisPhysics,
   ctx: AxisContext,
-  loadFactor: number,
+  scale: PhysicsScale,
   valuedGainPct: number | undefined,
 ): AxisEconomics {
-  const op = operatingPoint(axis, ctx.coolingCop, { loadTorque: loadFactor });
-  const requiredPct = ctx.margins.closedLoopRequiredPct;
-  const { outcome } = evaluateClosedLoop(axis, op, requiredPct, false);
-  const closed = outcome.result;
-
-  const eta = axis.drive.efficiencyPct / 100;
-  const extraMechanicalW =
-    (op.loadTorqueNm - axis.duty.loadTorqueNm) * ((2 * Math.PI * op.speedRpm) / 60);
-  const extraInputW = averageOverDuty({ move: extraMechanicalW / eta, hold: 0, off: 0 }, op.duty);
-  const extraDriveLossW = averageOverDuty(
-    { move: extraMechanicalW / eta - extraMechanicalW, hold: 0, off: 0 },
-    op.duty,
-  );
-
-  return {
-    energyOpenLoopKWh: base.openLoop.energyKWhPerYear + kWhPerYear(extraInputW, op.duty),
-    energyClosedLoopKWh: closed.energyKWhPerYear,
-    coolingOpenLoopKWh:
-      base.openLoop.coolingKWhPerYear + coolingKWhPerYear(extraDriveLossW, op.duty, ctx.coolingCop),
-    coolingClosedLoopKWh: closed.coolingKWhPerYear,
-    undersized: closed.status === "undersized",
-    // The headroom only feeds the throughput cap; without a value on throughput it cannot matter.
-    speedHeadroomPct:
-      valuedGainPct === undefined
-        ? null
-        : headroomForGain(outcome.capability, requiredPct, op, valuedGainPct),
-  };
+  if (scale.loadTorque === 1 && (scale.idleCurrent === 1 || base.holdShare === 0))
+    return economicsOf(base);
+  const physics = evaluateAxisPhysics(axis, ctx, scale, false);
+  const economics = economicsOf(physics);
+  if (valuedGainPct !== undefined && !physics.undersized) {
+    economics.speedHeadroomPct = headroomForGain(
+      physics.closedCapability,
+      physics.closedRequiredPct,
+      physics.duty,
+      valuedGainPct,
+    );
+  }
+  return economics;
 }

@@ -4,8 +4,8 @@ import { rpmToRadPerS } from "./units";
 import type { ParsedMotor } from "./schema";
 
 /*
- * Torque capability at speed and the max-speed search over it. They live in one module because
- * the search evaluates the capability about forty times per axis and loop.
+ * Torque capability at speed (docs/model.md §3) and the max-speed search over it. They live in
+ * one module because the search evaluates the capability about forty times per axis and loop.
  */
 
 export const MAX_SEARCH_RPM = 6000;
@@ -13,12 +13,11 @@ export const MAX_SEARCH_RPM = 6000;
 /**
  * What the torque model needs about one motor on one drive once the hot resistance is known,
  * as plain numbers: the max-speed search evaluates it about forty times per axis, so what does
- * not depend on the speed is worked out once here (each the same expression as in the formula,
- * so the result is the same to the last bit).
+ * not depend on the speed is worked out once here.
  */
 export interface TorqueModel {
   k1: number;
-  vectorFactor: number;
+  /** I_lim: the largest current-vector magnitude the drive holds, A (per-phase peak). */
   currentLimitA: number;
   resistanceOhm: number;
   inductanceH: number;
@@ -26,66 +25,88 @@ export interface TorqueModel {
   busVoltageV: number;
   hysteresisWPerHz: number;
   eddyWPerHz2: number;
-  /** k1·vf: torque per ampere of per-phase current. */
-  torquePerA: number;
-  resistanceSquared: number;
-  busVoltageSquared: number;
   /** false when P_fe is 0 at every speed, so there is no drag to subtract. */
   hasIronLoss: boolean;
 }
 
 export function torqueModel(
   motor: ParsedMotor,
-  drive: {
-    vectorFactor: number;
-    currentLimitA: number;
-    resistanceOhm: number;
-    busVoltageV: number;
-  },
+  drive: { currentLimitA: number; resistanceOhm: number; busVoltageV: number },
 ): TorqueModel {
-  const k1 = torqueConstant(motor);
-  const { vectorFactor, resistanceOhm, busVoltageV } = drive;
   const { hysteresisWPerHz, eddyWPerHz2 } = motor;
   return {
-    k1,
-    vectorFactor,
+    k1: torqueConstant(motor),
     currentLimitA: drive.currentLimitA,
-    resistanceOhm,
+    resistanceOhm: drive.resistanceOhm,
     inductanceH: motor.phaseInductanceMh / 1000,
     rotorTeeth: motor.rotorTeeth,
-    busVoltageV,
+    busVoltageV: drive.busVoltageV,
     hysteresisWPerHz,
     eddyWPerHz2,
-    torquePerA: k1 * vectorFactor,
-    resistanceSquared: resistanceOhm * resistanceOhm,
-    busVoltageSquared: busVoltageV * busVoltageV,
     hasIronLoss: hysteresisWPerHz !== 0 || eddyWPerHz2 !== 0,
   };
 }
 
 /**
- * Per-phase current the bus can drive at ω_m, back-EMF in phase with the current:
- * (e + R·I)² + (ω_e·L·I)² = V², i.e. the positive root of a·I² + b·I + c = 0 when c < 0, else 0
- * (ENGINE.md §3).
+ * The voltage limit as a disc in the rotor-frame current plane (docs/model.md §3): with
+ * v = (R + jX)·i + jE, |v| ≤ V holds inside the disc centred at c = −E·(X, R)/Z² with radius
+ * ρ = V/Z, Z = √(R² + X²), X = ω_e·L, E = k1·ω_m.
  */
-function availableAtA(m: TorqueModel, omegaM: number): number {
-  const e = m.k1 * omegaM;
-  const c = e * e - m.busVoltageSquared;
-  if (c >= 0) return 0;
-  const xl = m.rotorTeeth * omegaM * m.inductanceH;
-  const a = m.resistanceSquared + xl * xl;
-  const b = 2 * e * m.resistanceOhm;
-  return (-b + Math.sqrt(b * b - 4 * a * c)) / (2 * a);
+export interface VoltageDisc {
+  cd: number;
+  cq: number;
+  rho: number;
+  /** |c| = E/Z, computed directly to avoid cancellation. */
+  d: number;
+  e: number;
+  z: number;
 }
 
-/** T(n) = k1·vf·min(I, I_avail(n)) − T_drag(n), floored at 0 (ENGINE.md §3). */
-export function modelTorqueNm(m: TorqueModel, rpm: number): number {
+export function voltageDisc(m: TorqueModel, rpm: number): VoltageDisc {
   const omegaM = rpmToRadPerS(rpm);
-  let torque = m.torquePerA * Math.min(m.currentLimitA, availableAtA(m, omegaM));
+  const e = m.k1 * omegaM;
+  const x = m.rotorTeeth * omegaM * m.inductanceH;
+  const r = m.resistanceOhm;
+  const z2 = r * r + x * x;
+  const z = Math.sqrt(z2);
+  return { cd: (-e * x) / z2, cq: (-e * r) / z2, rho: m.busVoltageV / z, d: e / z, e, z };
+}
+
+/**
+ * The largest torque current i_q in both the current disc (radius I_lim about 0) and the voltage
+ * disc, in closed form so that every implementation returns the same number (docs/model.md §3):
+ * the top of the current disc, the top of the voltage disc, or a crossing of the two circles;
+ * 0 when the discs do not meet.
+ */
+export function largestTorqueCurrentA(m: TorqueModel, rpm: number): number {
+  const iLim = m.currentLimitA;
+  const { cd, cq, rho, d, e, z } = voltageDisc(m, rpm);
+  let best = -Infinity;
+  // (a) full current on the q axis, when the bus can drive it.
+  if (cd * cd + (iLim - cq) * (iLim - cq) <= rho * rho) best = iLim;
+  // (b) the top of the voltage disc, when the drive's current limit allows it.
+  const top = cq + rho;
+  if (cd * cd + top * top <= iLim * iLim && top > best) best = top;
+  // (c) where the two circles cross.
+  if (d > 0 && Math.abs(iLim - rho) <= d && d <= iLim + rho) {
+    const v = m.busVoltageV;
+    const x = (((e - v) * (e + v)) / (z * z) + iLim * iLim) / (2 * d);
+    const h = Math.sqrt(Math.max(0, iLim * iLim - x * x));
+    const ud = cd / d;
+    const uq = cq / d;
+    const upper = Math.max(x * uq + h * ud, x * uq - h * ud);
+    if (upper > best) best = upper;
+  }
+  return best === -Infinity ? 0 : best;
+}
+
+/** T_m(n) = max(0, k1·max(0, i_q,max) − T_drag(n)) (docs/model.md §3). */
+export function modelTorqueNm(m: TorqueModel, rpm: number): number {
+  let torque = m.k1 * Math.max(0, largestTorqueCurrentA(m, rpm));
   if (rpm > 0 && m.hasIronLoss) {
     // T_drag = P_fe/ω_m with f_e = Nr·n/60 (same as dragTorqueNm, on the flat model).
     const fe = (m.rotorTeeth * rpm) / 60;
-    torque -= (m.hysteresisWPerHz * fe + m.eddyWPerHz2 * fe * fe) / omegaM;
+    torque -= (m.hysteresisWPerHz * fe + m.eddyWPerHz2 * fe * fe) / rpmToRadPerS(rpm);
   }
   return torque > 0 ? torque : 0;
 }
@@ -107,18 +128,44 @@ export function interpolateCurve(curve: readonly CurvePoint[], rpm: number): num
   return a.torqueNm + ((b.torqueNm - a.torqueNm) * (rpm - a.rpm)) / (b.rpm - a.rpm);
 }
 
-/** A loop's torque capability: the model of ENGINE.md §3, or a datasheet curve replacing it. */
+/** An open-loop mid-band dip: from fromRpm on, the torque keeps at most (1 − derate) of T_m. */
+export interface ResonanceDip {
+  fromRpm: number;
+  toRpm: number;
+  /** deratePct/100 */
+  derate: number;
+}
+
+/**
+ * A loop's torque capability: the model of docs/model.md §3, a datasheet curve replacing it
+ * (open loop), a resonance dip on the open-loop model, or the datasheet curve as a floor under
+ * the closed-loop model when the kit keeps the motor and the bus.
+ */
 export interface Capability {
   model: TorqueModel;
   /** Monotone datasheet pull-out curve; open loop only. */
   curve?: readonly CurvePoint[];
+  resonance?: ResonanceDip;
+  /** Closed loop: max(model, floor.curve(n)·floor.scale). */
+  floor?: { curve: readonly CurvePoint[]; scale: number };
 }
 
 /** Torque capability at speed (a plain function rather than a closure: it runs ~40 times per axis). */
 export function capabilityNm(capability: Capability, rpm: number): number {
-  return capability.curve
-    ? interpolateCurve(capability.curve, rpm)
-    : modelTorqueNm(capability.model, rpm);
+  if (capability.curve) return interpolateCurve(capability.curve, rpm);
+  const m = capability.model;
+  let torque = modelTorqueNm(m, rpm);
+  const dip = capability.resonance;
+  // Every move to a speed past the band crosses it, so the dip limits every speed beyond it and
+  // the capability stays non-increasing (the bisection below stays exact).
+  if (dip !== undefined && dip.derate > 0 && rpm >= dip.fromRpm) {
+    const inBand = rpm <= dip.toRpm ? torque : modelTorqueNm(m, dip.toRpm);
+    torque = Math.min(torque, (1 - dip.derate) * inBand);
+  }
+  const floor = capability.floor;
+  if (floor !== undefined)
+    torque = Math.max(torque, interpolateCurve(floor.curve, rpm) * floor.scale);
+  return torque;
 }
 
 export const usableTorqueNm = (torqueNm: number, requiredPct: number): number =>
@@ -126,7 +173,7 @@ export const usableTorqueNm = (torqueNm: number, requiredPct: number): number =>
 
 /**
  * Highest speed at which the usable torque still covers the peak, by exactly the bisection of
- * ENGINE.md §7, so that every implementation returns the same number.
+ * docs/model.md §7, so that every implementation returns the same number.
  */
 export function maxSpeedRpm(
   capability: Capability,

@@ -1,36 +1,48 @@
-import { copperFactor, dragTorqueNm, torqueConstant, vectorFactor } from "./motor";
+import type { VoltageDisc } from "./capability";
+import type { AxisDuty } from "./duty";
+import { dragTorqueNm, holdVectorFactor, torqueConstant } from "./motor";
 import type { ParsedAxis, ParsedKit, ParsedMotor } from "./schema";
 
-export interface LoopCurrents {
-  /** Per-phase peak (open loop) or torque current I_q (closed loop), A. */
-  moveA: number;
-  holdA: number;
-  /** The ceiling the torque model uses: today's setting, or the kit's I_max. */
-  limitA: number;
-  vectorFactor: number;
-  copperFactor: number;
-  /** Closed loop only: a moving or holding demand above I_max (ENGINE.md §4). */
-  demandAboveLimit: boolean;
-}
+/*
+ * The currents of each state (docs/model.md §4). Pass 1 ignores the voltage limit while moving;
+ * pass 2 puts the moving current at the operating point with the pass-1 hot resistance.
+ */
 
-/** Today's per-phase peak: an RMS setting in micro mode is √2·I_rms (ENGINE.md §3). */
+/** Today's per-phase peak: an RMS setting in micro mode is √2·I_rms (docs/model.md §3). */
 export function openLoopSettingA(drive: ParsedAxis["drive"]): number {
   return drive.stepMode === "micro" && drive.currentConvention === "rms"
     ? Math.SQRT2 * drive.currentSettingA
     : drive.currentSettingA;
 }
 
-/** Open loop: the setting while moving, the idle share at standstill — whatever the load. */
-export function openLoopCurrents(axis: ParsedAxis): LoopCurrents {
-  const setting = openLoopSettingA(axis.drive);
-  return {
-    moveA: setting,
-    holdA: (setting * axis.drive.idleCurrentPct) / 100,
-    limitA: setting,
-    vectorFactor: vectorFactor(axis.drive.stepMode),
-    copperFactor: copperFactor(axis.drive.stepMode),
-    demandAboveLimit: false,
-  };
+/** Today's holding current per phase: the idle share of the setting. */
+export const openLoopHoldA = (axis: ParsedAxis): number =>
+  (openLoopSettingA(axis.drive) * axis.drive.idleCurrentPct) / 100;
+
+/** What today's drive holds at standstill: k1·vf_hold·I_set·idle (docs/model.md §7). */
+export const holdingCapabilityNm = (axis: ParsedAxis): number =>
+  torqueConstant(axis.motor) * holdVectorFactor(axis.drive.stepMode) * openLoopHoldA(axis);
+
+/** Is the point (d, q) of the current plane inside the voltage disc? */
+const inDisc = (disc: VoltageDisc, d: number, q: number): boolean =>
+  (d - disc.cd) * (d - disc.cd) + (q - disc.cq) * (q - disc.cq) <= disc.rho * disc.rho;
+
+/**
+ * Open loop, pass 2: the current-vector magnitude the chopper reaches while moving. It holds its
+ * setting I_lim as long as the bus allows; short of voltage it draws less (docs/model.md §4).
+ */
+export function openLoopMovingMagnitudeA(
+  currentLimitA: number,
+  torqueCurrentA: number,
+  disc: VoltageDisc,
+): number {
+  const iq = Math.min(currentLimitA, torqueCurrentA);
+  const id = Math.sqrt(Math.max(0, currentLimitA * currentLimitA - iq * iq));
+  if (inDisc(disc, id, iq)) return currentLimitA;
+  const w2 = disc.rho * disc.rho - (iq - disc.cq) * (iq - disc.cq);
+  // Out of the disc at this torque current: the axis loses steps anyway; keep the setting.
+  if (w2 < 0) return currentLimitA;
+  return Math.min(currentLimitA, Math.hypot(disc.cd + Math.sqrt(w2), iq));
 }
 
 export const kitMotor = (axis: ParsedAxis): ParsedMotor => axis.retrofit.kit.motor ?? axis.motor;
@@ -40,39 +52,73 @@ export function kitMaxCurrentA(kit: ParsedKit, motor: ParsedMotor): number {
 }
 
 /**
- * ENGINE.md §2: encoderW defaults to 0.5 W, and to 0 for a sensorless kit, which has no encoder
- * to feed. A value given is used as given, like every other default of §2.
+ * encoderW defaults to 0.5 W, and to 0 for a sensorless kit, which has no encoder to feed. A
+ * value given is used as given, like every other default.
  */
 export function kitEncoderW(kit: ParsedKit): number {
   return kit.encoderW ?? (kit.sensing === "sensorless" ? 0 : 0.5);
 }
 
-/** Closed loop (FOC, I_d = 0): the torque current the load asks for, between I_min and I_max. */
-export function closedLoopCurrents(axis: ParsedAxis, loadTorqueNm: number): LoopCurrents {
+export interface ClosedLoopDemand {
+  /** Moving torque current I_q (or I_max for a sensorless kit below its minimum speed), A. */
+  moveA: number;
+  holdA: number;
+  maxA: number;
+  /** A moving or holding demand above I_max: the kit is undersized (docs/model.md §4). */
+  demandAboveLimit: boolean;
+  /** A sensorless kit below its minimum speed runs open loop in all but name. */
+  lowSpeedSensorless: boolean;
+}
+
+/** Closed loop, pass 1: the torque current the load asks for, between I_min and I_max. */
+export function closedLoopDemand(axis: ParsedAxis, duty: AxisDuty): ClosedLoopDemand {
   const kit = axis.retrofit.kit;
   const motor = kitMotor(axis);
   const k1 = torqueConstant(motor);
   const maxA = kitMaxCurrentA(kit, motor);
   const minA = (kit.minCurrentPct * maxA) / 100;
-  const { speedRpm, holdTorqueNm } = axis.duty;
 
-  const moveDemandA = (loadTorqueNm + dragTorqueNm(motor, speedRpm)) / k1;
-  const holdDemandA = holdTorqueNm / k1;
+  const moveDemandA = (duty.loadTorqueNm + dragTorqueNm(motor, duty.speedRpm)) / k1;
+  const holdDemandA = duty.holdTorqueNm / k1;
   let moveA = Math.min(Math.max(moveDemandA, minA), maxA);
   let holdA = Math.min(Math.max(holdDemandA, minA), maxA);
+  let lowSpeedSensorless = false;
 
   if (kit.sensing === "sensorless") {
-    // No back-EMF to estimate the rotor position from: hold at the idle share, run slow at I_max.
-    holdA = Math.min(Math.max(holdA, (axis.drive.idleCurrentPct * maxA) / 100), maxA);
-    if (speedRpm < kit.sensorlessMinRpm) moveA = maxA;
+    // No back-EMF at rest to estimate the position from: it holds with the torque today's drive
+    // holds with. The cap alone does not make the kit undersized.
+    const todayHoldNm =
+      torqueConstant(axis.motor) * holdVectorFactor(axis.drive.stepMode) * openLoopHoldA(axis);
+    holdA = Math.min(Math.max(holdA, todayHoldNm / k1), maxA);
+    if (duty.speedRpm < kit.sensorlessMinRpm) {
+      moveA = maxA;
+      lowSpeedSensorless = true;
+    }
   }
 
   return {
     moveA,
     holdA,
-    limitA: maxA,
-    vectorFactor: 1,
-    copperFactor: 1,
+    maxA,
     demandAboveLimit: moveDemandA > maxA || holdDemandA > maxA,
+    lowSpeedSensorless,
   };
+}
+
+/**
+ * Closed loop, pass 2: the least field-weakening current i_d that reaches I_q at the operating
+ * speed, and whether the drive can supply it at all (docs/model.md §4).
+ */
+export function closedLoopMovingA(
+  iq: number,
+  maxA: number,
+  disc: VoltageDisc,
+): { magnitudeA: number; short: boolean } {
+  const w2 = disc.rho * disc.rho - (iq - disc.cq) * (iq - disc.cq);
+  if (w2 < 0) return { magnitudeA: Math.min(iq, maxA), short: true };
+  const id = Math.min(0, disc.cd + Math.sqrt(w2));
+  const magnitude = Math.hypot(id, iq);
+  return magnitude > maxA
+    ? { magnitudeA: maxA, short: true }
+    : { magnitudeA: magnitude, short: false };
 }

@@ -78,6 +78,7 @@ function axisResult(axis: AxisPhysics, money: AxisMoney): AxisResult {
     geometry: axis.geometry,
     openLoop: axis.openLoop,
     closedLoop: axis.closedLoop,
+    motion: axis.motion,
     savings: axis.savings,
     capex: money.capexUnitText,
     totals: {

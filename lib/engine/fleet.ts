@@ -33,7 +33,7 @@ const moneyInputs = ({ quantity, retrofit, reliability }: ParsedAxis) =>
     retrofit.maintenanceSavingPerYear,
     reliability.stepLossEventsPerYear,
     reliability.avoidedPct,
-    reliability.costPerEvent,
+    reliability.costPerEvent ?? "0",
   ] as const;
 
 type MoneyMemo = Map<number | string, MoneyMemo | AxisMoney>;
@@ -82,13 +82,13 @@ export function axisMoney(axis: ParsedAxis, laborRatePerHour: Decimal): AxisMone
   const served =
     reliability.stepLossEventsPerYear === 0 ||
     reliability.avoidedPct === 0 ||
-    isZeroMoney(reliability.costPerEvent)
+    isZeroMoney(reliability.costPerEvent ?? "0")
       ? ZERO
       : quantity
           .times(reliability.stepLossEventsPerYear)
           .times(reliability.avoidedPct)
           .div(HUNDRED)
-          .times(parseMoney(reliability.costPerEvent));
+          .times(parseMoney(reliability.costPerEvent ?? "0"));
   const capexTotal = capexUnit.times(quantity);
   return {
     capexUnit,

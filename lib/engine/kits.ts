@@ -1,5 +1,6 @@
 import type Decimal from "decimal.js";
-import { evaluateClosedLoop, operatingPoint } from "./axis";
+import { evaluateClosedLoop } from "./axis";
+import { axisDuty } from "./duty";
 import { HUNDRED, parseMoney } from "./money";
 import {
   axisInputSchema,
@@ -30,8 +31,10 @@ export function suggestKit(
   margins: MarginsInput = {},
 ): KitSuggestion {
   const parsedAxis = axisInputSchema.parse(axis);
-  const required = marginsSchema.parse(margins).closedLoopRequiredPct;
-  const { peakTorqueNm, speedRpm } = parsedAxis.duty;
+  const parsedMargins = marginsSchema.parse(margins);
+  const required = parsedMargins.closedLoopRequiredPct;
+  const duty = axisDuty(parsedAxis);
+  const { peakTorqueNm, speedRpm } = duty;
   const need = `the peak of ${nm(peakTorqueNm)} at ${speedRpm} rpm`;
   if (kits.length === 0) return { kit: null, reason: `no kits to choose from for ${need}` };
 
@@ -39,7 +42,7 @@ export function suggestKit(
   const candidates = kits.map((input) => {
     const kit = kitInputSchema.parse(input);
     const withKit: ParsedAxis = { ...parsedAxis, retrofit: { ...parsedAxis.retrofit, kit } };
-    const closed = evaluateClosedLoop(withKit, operatingPoint(withKit, null), required);
+    const closed = evaluateClosedLoop(withKit, duty, parsedMargins, null, false);
     const usable = closed.outcome.result.usableTorqueNm;
     return {
       kit,
@@ -70,7 +73,7 @@ export function suggestKit(
     kit: null,
     reason:
       coverButUndersized.length > 0
-        ? `no kit fits: ${coverButUndersized.join(", ")} cover ${need} but cannot supply the holding current for ${nm(parsedAxis.duty.holdTorqueNm)} within I_max`
+        ? `no kit fits: ${coverButUndersized.join(", ")} cover ${need} but cannot supply the holding current for ${nm(duty.holdTorqueNm)} within I_max`
         : `no kit covers ${need}: the best usable torque is ${nm(strongest.usable)} (${strongest.kit.id}) with the ${required} % closed-loop margin`,
   };
 }

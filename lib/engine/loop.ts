@@ -3,10 +3,11 @@ import {
   maxSpeedRpm,
   torqueModel,
   usableTorqueNm,
+  voltageDisc,
   type Capability,
+  type VoltageDisc,
 } from "./capability";
-import type { LoopCurrents } from "./currents";
-import type { CurvePoint } from "./curves";
+import type { AxisDuty } from "./duty";
 import { coolingKWhPerYear, kWhPerYear, type DriveLosses, type DutyMix } from "./energy";
 import { marginPct, marginStatus } from "./margin";
 import { ironLossW } from "./motor";
@@ -17,11 +18,19 @@ import type { LoopResult } from "./types";
 /** One loop — today's open-loop drive or the proposed kit — on one axis. */
 export interface LoopSpec {
   motor: ParsedMotor;
-  currents: LoopCurrents;
   busVoltageV: number;
+  /** I_lim of the torque model: vf_run·I_set open loop, I_max closed loop. */
+  currentLimitA: number;
+  /** Copper loss per I²·R of the reported current (step-mode table; 1 closed loop). */
+  copperFactor: number;
+  /** Pass 1 (voltage ignored): moving and holding currents. */
+  moveA: number;
+  holdA: number;
+  /** Pass 2: the moving current at the operating point, given the voltage disc at R₁. */
+  movingAtSpeed: (disc: VoltageDisc) => number;
   drive: DriveLosses;
-  /** The datasheet pull-out curve, made monotone; open loop only. */
-  curve?: CurvePoint[];
+  /** What bounds or shapes the capability besides the model (curve, resonance, floor). */
+  shape: Omit<Capability, "model">;
   requiredPct: number;
   /** How this loop names a negative margin: "step-loss" open loop, "undersized" closed loop. */
   shortStatus: "step-loss" | "undersized";
@@ -32,15 +41,6 @@ export interface LoopSpec {
   searchMaxSpeed?: boolean;
 }
 
-export interface OperatingPoint {
-  duty: DutyMix;
-  speedRpm: number;
-  loadTorqueNm: number;
-  peakTorqueNm: number;
-  ambientC: number;
-  coolingCop: number | null;
-}
-
 export interface LoopOutcome<S extends string> {
   result: LoopResult<S>;
   thermal: ThermalState;
@@ -49,29 +49,60 @@ export interface LoopOutcome<S extends string> {
   short: boolean;
 }
 
-/** Thermal state, losses, power, energy and torque margin of one loop (ENGINE.md §5–§7). */
-export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
-  spec: LoopSpec & { shortStatus: S },
-  op: OperatingPoint,
-): LoopOutcome<"ok" | "at-risk" | S> {
-  const { motor, currents } = spec;
-  const { duty, speedRpm } = op;
-  const cf = currents.copperFactor;
-  const moveA2 = currents.moveA * currents.moveA;
-  const holdA2 = currents.holdA * currents.holdA;
-  const ironW = ironLossW(motor, speedRpm);
+const dutyMix = (duty: AxisDuty): DutyMix => ({
+  hoursPerYear: duty.hoursPerYear,
+  move: duty.move,
+  hold: duty.hold,
+});
 
-  const thermal = windingTemperature(motor, op.ambientC, {
-    copperAt20W: motor.phaseResistanceOhm * cf * (duty.move * moveA2 + duty.hold * holdA2),
+function thermalOf(
+  spec: LoopSpec,
+  duty: AxisDuty,
+  moveA: number,
+  holdA: number,
+  ironW: number,
+): ThermalState {
+  const { motor } = spec;
+  return windingTemperature(motor, duty.ambientC, {
+    copperAt20W:
+      motor.phaseResistanceOhm *
+      spec.copperFactor *
+      (duty.move * moveA * moveA + duty.hold * holdA * holdA),
     ironW: duty.move * ironW,
   });
+}
+
+/**
+ * Thermal state, losses, power, energy and torque margin of one loop (docs/model.md §4–§7), in
+ * the two passes of §4: the pass-1 temperature sets the resistance at which the moving current
+ * is put at the operating point, and the temperature is solved again with that current.
+ */
+export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
+  spec: LoopSpec & { shortStatus: S },
+  duty: AxisDuty,
+  coolingCop: number | null,
+): LoopOutcome<"ok" | "at-risk" | S> {
+  const { motor } = spec;
+  const { speedRpm } = duty;
+  const ironW = ironLossW(motor, speedRpm);
+  const modelAt = (resistanceOhm: number) =>
+    torqueModel(motor, {
+      currentLimitA: spec.currentLimitA,
+      resistanceOhm,
+      busVoltageV: spec.busVoltageV,
+    });
+
+  const pass1 = thermalOf(spec, duty, spec.moveA, spec.holdA, ironW);
+  const moveA = spec.movingAtSpeed(voltageDisc(modelAt(pass1.resistanceHotOhm), speedRpm));
+  const thermal = thermalOf(spec, duty, moveA, spec.holdA, ironW);
+
   const r = thermal.resistanceHotOhm;
-  const copperMoveW = cf * moveA2 * r;
-  const copperHoldW = cf * holdA2 * r;
-  const mechanicalW = op.loadTorqueNm * ((2 * Math.PI * speedRpm) / 60);
+  const cf = spec.copperFactor;
+  const copperMoveW = cf * moveA * moveA * r;
+  const copperHoldW = cf * spec.holdA * spec.holdA * r;
 
   // §6: P_in = P_motor/η + standby in each state; the drive loss P_in − P_motor heats the cabinet.
-  const motorMoveW = mechanicalW + ironW + copperMoveW;
+  const motorMoveW = duty.mechanicalW + ironW + copperMoveW;
   const eta = spec.drive.efficiencyPct / 100;
   const fixedW = spec.drive.fixedW;
   const inputPowerW = {
@@ -87,32 +118,25 @@ export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
     duty.hold * (inputPowerW.hold - copperHoldW) +
     off * inputPowerW.off;
 
-  const capability: Capability = {
-    model: torqueModel(motor, {
-      vectorFactor: currents.vectorFactor,
-      currentLimitA: currents.limitA,
-      resistanceOhm: r,
-      busVoltageV: spec.busVoltageV,
-    }),
-    curve: spec.curve,
-  };
+  const capability: Capability = { model: modelAt(r), ...spec.shape };
   const torqueNm = capabilityNm(capability, speedRpm);
-  const margin = marginPct(op.peakTorqueNm, torqueNm);
+  const margin = marginPct(duty.peakTorqueNm, torqueNm);
   const byMargin = marginStatus(margin, spec.requiredPct);
+  const mix = dutyMix(duty);
 
   return {
     result: {
-      currentMoveA: currents.moveA,
-      currentHoldA: currents.holdA,
+      currentMoveA: moveA,
+      currentHoldA: spec.holdA,
       resistanceHotOhm: r,
       windingTempC: thermal.windingTempC,
       copperLossMoveW: copperMoveW,
       copperLossHoldW: copperHoldW,
       ironLossW: ironW,
       inputPowerW,
-      energyKWhPerYear: kWhPerYear(averageInputW, duty),
+      energyKWhPerYear: kWhPerYear(averageInputW, mix),
       cabinetHeatW,
-      coolingKWhPerYear: coolingKWhPerYear(cabinetHeatW, duty, op.coolingCop),
+      coolingKWhPerYear: coolingKWhPerYear(cabinetHeatW, mix, coolingCop),
       torqueAtSpeedNm: torqueNm,
       marginPct: margin,
       status: byMargin === "short" ? spec.shortStatus : byMargin,
@@ -120,7 +144,7 @@ export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
       maxSpeedRpm:
         spec.searchMaxSpeed === false
           ? NaN
-          : maxSpeedRpm(capability, spec.requiredPct, op.peakTorqueNm),
+          : maxSpeedRpm(capability, spec.requiredPct, duty.peakTorqueNm),
     },
     thermal,
     capability,

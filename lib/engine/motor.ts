@@ -8,9 +8,31 @@ export const INSULATION_CLASS_LIMIT_C = { B: 130, F: 155, H: 180 } as const;
 
 export type StepMode = "full" | "half" | "half-compensated" | "micro";
 
-/** ENGINE.md §3 table: current-vector magnitude per unit of per-phase setting. */
-export function vectorFactor(mode: StepMode): number {
+/**
+ * Current-vector magnitude at standstill per unit of per-phase setting (docs/model.md §3): two
+ * phases on in full step give √2·I; an uncompensated half step rests on its weaker, one-phase
+ * step.
+ */
+export function holdVectorFactor(mode: StepMode): number {
   return mode === "full" ? Math.SQRT2 : 1;
+}
+
+/**
+ * Current-vector magnitude while running per unit of setting: the amplitude of the fundamental
+ * of the stepped current (Fourier series of the quasi-square or staircase wave): full step
+ * (4/π)·I, half step (4/π)·sin 67.5°·I, compensated half step (8/π)·sin 22.5°·I, microstep I.
+ */
+export function runVectorFactor(mode: StepMode): number {
+  switch (mode) {
+    case "full":
+      return 4 / Math.PI;
+    case "half":
+      return (4 / Math.PI) * Math.sin((67.5 * Math.PI) / 180);
+    case "half-compensated":
+      return (8 / Math.PI) * Math.sin((22.5 * Math.PI) / 180);
+    case "micro":
+      return 1;
+  }
 }
 
 /** ENGINE.md §3 table: copper loss per I²·R of the per-phase setting. */

@@ -1,6 +1,6 @@
 import type Decimal from "decimal.js";
 import {
-  economicsAtLoad,
+  economicsAtScale,
   economicsOf,
   evaluateAxisPhysics,
   type AxisContext,
@@ -111,11 +111,11 @@ export function prepareCase(input: ParsedCase): PreparedCase {
     if (factors.loadTorque !== undefined) {
       const f = factors.loadTorque.toNumber();
       totals = fleetTotals(input, money, (i) =>
-        economicsAtLoad(
+        economicsAtScale(
           input.axes[i],
           physics[i],
           ctx,
-          f,
+          { loadTorque: f, idleCurrent: 1 },
           valuedGainPct.get(input.axes[i].machineId),
         ),
       );

@@ -28,7 +28,7 @@ export const motorInputSchema = obj({
   holdingTorqueNm: torque({ positive: true }),
   ratedCurrentA: positive(),
   phaseResistanceOhm: positive(),
-  phaseInductanceMh: atLeast(0),
+  phaseInductanceMh: positive(),
   thermalResistanceKPerW: positive().optional(),
   ratedTempRiseK: positive().default(80), // common practice: R_th = rise / (2·I_R²·R20)
   insulationClass: choice(["B", "F", "H"]).default("B"),
@@ -73,7 +73,11 @@ const resonanceSchema = obj({
   deratePct: pct(),
 }).superRefine((r, ctx) => {
   if (r.toRpm < r.fromRpm)
-    ctx.addIssue({ code: "custom", path: ["toRpm"], message: `must be at least fromRpm (${r.fromRpm})` });
+    ctx.addIssue({
+      code: "custom",
+      path: ["toRpm"],
+      message: `must be at least fromRpm (${r.fromRpm})`,
+    });
 });
 
 const driveSchema = obj({
@@ -105,7 +109,7 @@ export const motionInputSchema = obj({
   massKg: atLeast(0).default(0),
   loadInertiaKgM2: inertia().default(0),
   motorInertiaKgM2: inertia().default(0),
-  inclineDeg: num().min(-90, "must be at least -90").max(90, "must be at most 90").default(0),
+  inclineDeg: atLeast(0).max(90, "must be at most 90 (vertical)").default(0),
   frictionCoeff: atLeast(0).default(0),
   externalForceN: atLeast(0).default(0),
   externalTorqueNm: torque().default(0),
@@ -168,7 +172,8 @@ const reliabilitySchema = obj({
     ctx.addIssue({
       code: "custom",
       path: ["event"],
-      message: "give either costPerEvent or event (the cost built from downtime, scrap and labour), not both",
+      message:
+        "give either costPerEvent or event (the cost built from downtime, scrap and labour), not both",
     });
 });
 

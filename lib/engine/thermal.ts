@@ -1,12 +1,22 @@
 import { COPPER_ALPHA_PER_K, INSULATION_CLASS_LIMIT_C, resistanceAt } from "./motor";
 import type { ParsedMotor } from "./schema";
 
-/** R_th from the datasheet's rated rise at two phases on, rated current, cold resistance (common practice). */
+/**
+ * R_th from the datasheet's rated rise, two phases on at rated current in 20 °C ambient, with
+ * the winding hot (common practice). Calibrated at the hot resistance, the steady state below
+ * reproduces the datasheet rise exactly (docs/model.md §5); the cold resistance would overshoot
+ * it by about half.
+ */
 export function thermalResistanceKPerW(motor: ParsedMotor): number {
+  if (motor.thermalResistanceKPerW !== undefined) return motor.thermalResistanceKPerW;
+  const rise = motor.ratedTempRiseK;
   return (
-    motor.thermalResistanceKPerW ??
-    motor.ratedTempRiseK /
-      (2 * motor.ratedCurrentA * motor.ratedCurrentA * motor.phaseResistanceOhm)
+    rise /
+    (2 *
+      motor.ratedCurrentA *
+      motor.ratedCurrentA *
+      motor.phaseResistanceOhm *
+      (1 + COPPER_ALPHA_PER_K * rise))
   );
 }
 

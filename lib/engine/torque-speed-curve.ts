@@ -1,11 +1,13 @@
-import { evaluateClosedLoop, evaluateOpenLoop, operatingPoint } from "./axis";
+import { evaluateClosedLoop, evaluateOpenLoop } from "./axis";
 import { capabilityNm, MAX_SEARCH_RPM } from "./capability";
 import type { CurvePoint } from "./curves";
+import { axisDuty } from "./duty";
+import { marginsSchema } from "./schema";
 import { axisInputSchema, type AxisInput, type ParsedAxis } from "./schema";
 
 /**
  * Torque capability against speed for the charts: the datasheet pull-out curve (open loop,
- * when given; sampled up to its last point) or the model of ENGINE.md §3 at the loop's hot
+ * when given; sampled up to its last point) or the model of docs/model.md §3 at the loop's hot
  * resistance (sampled up to the 6000 rpm the max-speed search covers). The required margins
  * do not enter: this is the capability, not the usable torque.
  */
@@ -15,11 +17,12 @@ export function torqueSpeedCurve(
   points = 61,
 ): CurvePoint[] {
   const parsed = axisInputSchema.parse(axis);
-  const op = operatingPoint(parsed, null);
+  const duty = axisDuty(parsed);
+  const margins = marginsSchema.parse({});
   const capability =
     loop === "open"
-      ? evaluateOpenLoop(parsed, op, 0).capability
-      : evaluateClosedLoop(parsed, op, 0).outcome.capability;
+      ? evaluateOpenLoop(parsed, duty, 0, null).capability
+      : evaluateClosedLoop(parsed, duty, margins, null).outcome.capability;
   const curve = parsed.motor.pullOutCurve;
   const maxRpm = loop === "open" && curve ? curve[curve.length - 1].rpm : MAX_SEARCH_RPM;
   const count = Math.max(2, Math.floor(points));

@@ -1,7 +1,8 @@
 import { z } from "zod";
 
-// ENGINE.md §9, the CaseResult contract other tools read, written out independently of the
+// The CaseResult contract other tools read (docs/model.md §9), written out independently of the
 // engine's own TypeScript types. Strict objects: a missing or an extra key fails the parse.
+// caseResultSchemaV1 is the contract of engine 1.0.0, which proposals issued before keep.
 const money = z.string().regex(/^-?\d+(\.\d+)?$/, "money is a plain decimal string");
 const num = z.number().finite();
 const nullableNum = num.nullable();
@@ -33,7 +34,7 @@ const scenario = z.strictObject({
   roiPct: nullableNum,
 });
 
-export const caseResultSchema = z.strictObject({
+export const caseResultSchemaV1 = z.strictObject({
   engineVersion: z.string().min(1),
   currency: z.string(),
   axes: z.array(
@@ -110,4 +111,59 @@ export const caseResultSchema = z.strictObject({
       high: z.strictObject({ npv: money, paybackYears: nullableNum }),
     }),
   ),
+});
+
+const v1Axis = caseResultSchemaV1.shape.axes.element;
+const bySource = z.strictObject({
+  energy: z.array(money),
+  cooling: z.array(money),
+  reliability: z.array(money),
+  maintenance: z.array(money),
+  throughput: z.array(money),
+  service: z.array(money),
+  tax: z.array(money),
+});
+const scenarioV2 = scenario.extend({
+  paybackStatus: z.enum(["reached", "beyond-horizon", "never"]),
+  bySource,
+});
+
+/** The contract of engine 2: v1's keys plus what v2 adds (motion, holding, finance). */
+export const caseResultSchema = caseResultSchemaV1.extend({
+  engineVersion: z.literal("2.0.0"),
+  axes: z.array(
+    v1Axis.extend({
+      openLoop: v1Axis.shape.openLoop.extend({ holdingCapabilityNm: num }),
+      motion: z
+        .strictObject({
+          speedRpm: num,
+          loadTorqueNm: num,
+          peakTorqueNm: num,
+          holdTorqueNm: num,
+          meanMechPowerW: num,
+          movePct: num,
+          holdPct: num,
+          reflectedInertiaKgM2: num,
+          inertiaRatio: nullableNum,
+        })
+        .nullable(),
+    }),
+  ),
+  scenarios: z.strictObject({ physics: scenarioV2, bandLow: scenarioV2, bandHigh: scenarioV2 }),
+  sensitivity: z.array(
+    caseResultSchemaV1.shape.sensitivity.element.extend({
+      driver: z.enum([
+        "tariff",
+        "hoursPerYear",
+        "loadTorque",
+        "kitPrice",
+        "laborRate",
+        "stepLossEvents",
+        "discountRate",
+        "throughputGain",
+        "idleCurrent",
+      ]),
+    }),
+  ),
+  breakEven: z.strictObject({ tariffPerKWh: money.nullable(), stepLossFactor: nullableNum }),
 });

@@ -156,12 +156,13 @@ describe("sensitivity (ENGINE.md §8)", () => {
     expect(new Money(row.high.npv).minus(npvAt("0.096")).abs().lessThan("1e-20")).toBe(true);
   });
 
-  it("load torque re-solves the physics: the same as evaluating the case with every load scaled", () => {
+  it("load torque re-solves the physics: the same as evaluating the case with every load, peak and holding torque scaled", () => {
     const row = result.sensitivity.find((r) => r.driver === "loadTorque")!;
     const scaled = structuredClone(fixtureCase) as Json;
     for (const axis of scaled.axes) {
       axis.duty.loadTorqueNm *= 1.2;
-      axis.duty.peakTorqueNm = Math.max(axis.duty.peakTorqueNm, axis.duty.loadTorqueNm);
+      axis.duty.peakTorqueNm *= 1.2;
+      axis.duty.holdTorqueNm = (axis.duty.holdTorqueNm ?? 0) * 1.2;
     }
     const direct = evaluateCase(scaled).scenarios.physics.npv;
     expect(Number(row.high.npv)).toBeCloseTo(Number(direct), 6);

@@ -9,14 +9,15 @@ const hand = (): Json => structuredClone(handCase) as Json;
 describe("edge cases of ENGINE.md", () => {
   it("thermal runaway (§5, §9): temperature and life factor null, losses at the class-limit resistance", () => {
     const input = hand();
-    // 3× rated current, always moving: R_th·A·α = 5.669·(0.9·8.4²)·0.00393 = 1.41 > 1
-    Object.assign(input.axes[0].drive, { currentSettingA: 8.4 });
-    Object.assign(input.axes[0].duty, { movePct: 100, holdPct: 0 });
+    // 3.6× rated current, always moving slowly (the bus still drives the setting):
+    // R_th = 80/(2·2.8²·0.9·(1 + 0.00393·80)) = 4.313 K/W; R_th·A·α = 4.313·(0.9·10²)·0.00393 = 1.53 > 1
+    Object.assign(input.axes[0].drive, { currentSettingA: 10 });
+    Object.assign(input.axes[0].duty, { movePct: 100, holdPct: 0, speedRpm: 30 });
     const axis = evaluateCase(input).axes[0];
     const rClassB = 0.9 * (1 + 0.00393 * (130 - 20)); // IEC 60085 class B, 130 °C
     expect(axis.openLoop.windingTempC).toBeNull();
     expect(axis.openLoop.resistanceHotOhm).toBeCloseTo(rClassB, 12);
-    expect(axis.openLoop.copperLossMoveW).toBeCloseTo(8.4 ** 2 * rClassB, 10);
+    expect(axis.openLoop.copperLossMoveW).toBeCloseTo(10 ** 2 * rClassB, 10);
     expect(axis.savings.tempDropK).toBeNull();
     expect(axis.savings.insulationLifeFactor).toBeNull();
     expect(axis.warnings).toContain("OL_THERMAL_RUNAWAY");
@@ -110,14 +111,18 @@ describe("edge cases of ENGINE.md", () => {
     expect(physics.paybackYears).toBeNull();
   });
 
-  it("sensorless below its minimum speed moves at I_max and holds at least the idle share of I_max (§4)", () => {
+  it("sensorless below its minimum speed moves at I_max, holds with today's holding torque, avoids no events and is warned (§4)", () => {
     const input = hand();
     input.axes[0].retrofit.kit.sensing = "sensorless";
     input.axes[0].duty.speedRpm = 30; // below the default 60 rpm
-    const slow = evaluateCase(input).axes[0].closedLoop;
+    const slowAxis = evaluateCase(input).axes[0];
+    const slow = slowAxis.closedLoop;
     const iMax = Math.SQRT2 * 2.8;
     expect(slow.currentMoveA).toBeCloseTo(iMax, 12);
-    expect(slow.currentHoldA).toBeCloseTo(0.5 * iMax, 12);
+    // Same motor: k1·vf_hold·I_set·idle/k1' = 1 · 2.8 · 0.5 (micro, vf_hold = 1)
+    expect(slow.currentHoldA).toBeCloseTo(0.5 * 2.8, 12);
+    expect(slowAxis.warnings).toContain("SENSORLESS_LOW_SPEED");
+    expect(slowAxis.savings.stepLossEventsAvoided).toBe(0);
     // sensorless has no encoder supply: standby 3 W only
     expect(slow.inputPowerW.off).toBe(3);
     input.axes[0].duty.speedRpm = 300;
@@ -170,8 +175,9 @@ describe("edge cases of ENGINE.md", () => {
 
   it("warnings are a set in the documented order", () => {
     const input = hand();
-    Object.assign(input.axes[0].drive, { currentSettingA: 8.4 });
-    Object.assign(input.axes[0].duty, { movePct: 100, holdPct: 0, holdTorqueNm: 2 });
+    Object.assign(input.axes[0].drive, { currentSettingA: 10 });
+    Object.assign(input.axes[0].duty, { movePct: 100, holdPct: 0, holdTorqueNm: 2, speedRpm: 30 });
+    input.axes[0].retrofit.kit.sensing = "sensorless";
     const warnings = evaluateCase(input).axes[0].warnings;
     expect(new Set(warnings).size).toBe(warnings.length);
     expect(warnings).toEqual([
@@ -180,6 +186,9 @@ describe("edge cases of ENGINE.md", () => {
       "SAVING_OUTSIDE_BAND",
       "CURRENT_ABOVE_RATING",
       "HOLDING_LOAD",
+      "OL_HOLD_SLIPS",
+      "SENSORLESS_LOW_SPEED",
+      "SENSORLESS_HOLDING_LOAD",
     ]);
   });
 

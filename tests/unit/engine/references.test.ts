@@ -72,9 +72,21 @@ describe("microstepping currents and torque (trigonometry; fact of the trade)", 
     expect(result.axes[0].openLoop.torqueAtSpeedNm).toBeCloseTo(holding / Math.SQRT2, 12);
     expect(result.axes[0].openLoop.torqueAtSpeedNm / holding).toBeCloseTo(0.7071, 4);
   });
-  it("two phases on at the rated current give the holding torque", () => {
-    const result = evaluateCase(standstillCase("full", 2.8));
-    expect(result.axes[0].openLoop.torqueAtSpeedNm).toBeCloseTo(1.26, 12);
+  it("two phases on at the rated current give the holding torque at standstill", () => {
+    const input = standstillCase("full", 2.8);
+    input.axes[0].drive.idleCurrentPct = 100;
+    const result = evaluateCase(input);
+    expect(result.axes[0].openLoop.holdingCapabilityNm).toBeCloseTo(1.26, 12);
+  });
+  it("full, half and compensated half steps run on the fundamental of their stepped current (Fourier series of the staircase)", () => {
+    // At standstill the bus drives any current (48 V / 0.9 Ω ≫ 2.8 A): T(0) = k1·vf_run·I.
+    const k1 = 1.26 / (Math.SQRT2 * 2.8);
+    const torque = (mode: string) =>
+      evaluateCase(standstillCase(mode, 2.8)).axes[0].openLoop.torqueAtSpeedNm;
+    expect(torque("full") / (k1 * 2.8)).toBeCloseTo(1.2732, 4); // (4/π)
+    expect(torque("half") / (k1 * 2.8)).toBeCloseTo(1.1763, 4); // (4/π)·sin 67.5°
+    expect(torque("half-compensated") / (k1 * 2.8)).toBeCloseTo(0.9745, 4); // (8/π)·sin 22.5°
+    expect(torque("micro") / (k1 * 2.8)).toBeCloseTo(1, 12);
   });
   it("compensated half steps run the two-phase steps at cos 45° = 70.7 %: half the copper loss of full steps", () => {
     const full = evaluateCase(standstillCase("full", 2.8)).axes[0].openLoop;

@@ -123,7 +123,7 @@ describe("case input schema (ENGINE.md §2)", () => {
     delete input.finance.tariffPerKWh;
     expect(issuesOf(input)).toEqual([
       'finance.tariffPerKWh: required: expected an amount as a decimal string such as "12.50" (or a JSON number)',
-      "axes[0].duty.speedRpm: required: expected a number",
+      "axes[0].duty.speedRpm: required: expected a number (or give duty.motion to derive it)",
     ]);
   });
 
