@@ -15,6 +15,7 @@ import {
   setCaseAxes,
   updateAssumptions,
 } from "@/db/queries/cases";
+import { commitImport } from "@/db/queries/imports";
 import { listMachines } from "@/db/queries/machines";
 import { getProposalSnapshotOrThrow, listProposalsFor } from "@/db/queries/proposals";
 import { openQuoteFor } from "@/db/queries/quote-open";
@@ -23,6 +24,8 @@ import { axes, cases, proposals } from "@/db/schema";
 import { caseInputSchema, ENGINE_VERSION, evaluateCase } from "@/lib/engine";
 import { caseAssumptionsSchema } from "@/lib/validations/case";
 import { axisApiSchema, axisInputSchema as axisFormSchema } from "@/lib/validations/installed-base";
+import { checkImportFile } from "@/lib/import/run-import";
+import { templateCsv } from "@/lib/import/template";
 import { buildProposalWorkbook } from "@/lib/workbook";
 import { caseResultSchemaV1 } from "../support/case-result-schema";
 import { caller } from "../support/callers";
@@ -172,6 +175,47 @@ describe("an axis with motion, an event build-up and a resonance band (ENGINE.md
     expect(proposal.engineVersion).toBe(ENGINE_VERSION);
     expect(proposal.result.engineVersion).toBe("2.0.0");
     expect(proposal.result.axes[0].motion).not.toBeNull();
+  });
+});
+
+describe("an import with motion and event columns", () => {
+  it("commits the template's motion row with its motion and event, and the case input carries them", async () => {
+    const site = northHall();
+    const checked = await checkImportFile(new TextEncoder().encode(templateCsv()), "template.csv", {
+      site: { hoursPerYear: site.hoursPerYear, ambientC: site.ambientC },
+    });
+    expect(checked.result.errors).toEqual([]);
+    const rows = checked.result.rows.map(({ sourceRow: _r, ...axis }) => ({
+      ...axis,
+      label: `${axis.label} ${Math.random().toString(36).slice(2, 8)}`,
+    }));
+    commitImport(
+      engineer(),
+      site.id,
+      { fileName: "template.csv", sizeBytes: 1, rowsRead: rows.length, errorCount: 0 },
+      rows,
+    );
+    const stored = rows.map((r) => db.select().from(axes).where(eq(axes.label, r.label)).get()!);
+    expect(stored.map((a) => a.motion?.mechanism ?? null)).toEqual([null, "screw"]);
+    expect(stored[1].event).toEqual({
+      downtimeMinutes: 20,
+      scrapParts: 3,
+      scrapCostPerPart: "4.80",
+      restartLaborHours: 0.5,
+    });
+    const created = createCase(engineer(), { name: "Imported motion", siteId: site.id });
+    setCaseAxes(
+      engineer(),
+      created.id,
+      stored.map((a) => a.id),
+    );
+    const input = buildCaseInput(engineer(), created.id);
+    const lift = input.axes.find((a) => a.id === String(stored[1].id))!;
+    expect(lift.duty.motion).toEqual(stored[1].motion);
+    expect(lift.reliability?.event).toEqual(stored[1].event);
+    const result = caseResult(engineer(), created.id);
+    expect(result.axes.find((a) => a.id === String(stored[1].id))!.motion).not.toBeNull();
+    expect(result.axes.find((a) => a.id === String(stored[0].id))!.motion).toBeNull();
   });
 });
 
