@@ -148,6 +148,7 @@ const SPECS = {
     type: "number",
     required: true,
     min: 0,
+    minExclusive: true,
     synonyms: ["Inductance per phase"],
     help: "Datasheet inductance of one phase winding.",
   },
@@ -484,7 +485,7 @@ const SPECS = {
     unit: "°",
     type: "number",
     required: false,
-    help: "Angle of the travel above horizontal, -90 to 90: 90 is a vertical axis whose forward move goes up, a negative angle goes down. Blank is 0.",
+    help: "Angle of the travel above horizontal, 0 to 90: 90 is a vertical axis whose forward move goes up. Blank is 0.",
   },
   "motion.frictionCoeff": {
     label: "Friction coefficient",
