@@ -64,6 +64,22 @@ export function inventedFleet(axes: number, machines: number, seed = 1): CaseInp
       const size = Math.floor(next() * motors.length);
       const motor = motors[size];
       const load = motor.holdingTorqueNm * between(0.1, 0.45);
+      // Every fourth axis is described by its mechanism and move instead of typed figures.
+      const motion =
+        i % 4 === 0
+          ? {
+              mechanism: pick(["belt", "screw", "rack"] as const),
+              radiusMm: between(8, 20),
+              leadMm: pick([5, 10, 20]),
+              massKg: between(1, 6) * (size + 1),
+              inclineDeg: pick([0, 0, 90]),
+              frictionCoeff: 0.05,
+              motorInertiaKgM2: [1.2e-5, 4.8e-5, 1.4e-4][size],
+              stroke: between(50, 300),
+              moveTimeS: between(0.4, 1.2),
+              dwellTimeS: between(0.2, 1.5),
+            }
+          : undefined;
       return {
         id: `A${i}`,
         label: `Axis ${i}`,
@@ -83,6 +99,7 @@ export function inventedFleet(axes: number, machines: number, seed = 1): CaseInp
           loadTorqueNm: load,
           peakTorqueNm: load * between(1.2, 2),
           holdTorqueNm: next() < 0.2 ? load * 0.8 : 0,
+          ...(motion ? { motion } : {}),
         },
         reliability: {
           stepLossEventsPerYear: pick([0, 1, 4]),

@@ -307,6 +307,22 @@ export function economicsAtScale(
 ): AxisEconomics {
   if (scale.loadTorque === 1 && (scale.idleCurrent === 1 || base.holdShare === 0))
     return economicsOf(base);
+  if (scale.loadTorque === 1 && axis.retrofit.kit.sensing === "encoder") {
+    // The idle current changes only today's drive: an encoder kit holds with what the load asks.
+    const scaled = withIdleScaled(axis, scale.idleCurrent);
+    const open = evaluateOpenLoop(
+      scaled,
+      base.duty,
+      ctx.margins.openLoopRequiredPct,
+      ctx.coolingCop,
+      false,
+    ).result;
+    return {
+      ...economicsOf(base),
+      energyOpenLoopKWh: open.energyKWhPerYear,
+      coolingOpenLoopKWh: open.coolingKWhPerYear,
+    };
+  }
   const physics = evaluateAxisPhysics(axis, ctx, scale, false);
   const economics = economicsOf(physics);
   if (valuedGainPct !== undefined && !physics.undersized) {

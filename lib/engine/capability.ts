@@ -79,8 +79,20 @@ export function voltageDisc(m: TorqueModel, rpm: number): VoltageDisc {
  * 0 when the discs do not meet.
  */
 export function largestTorqueCurrentA(m: TorqueModel, rpm: number): number {
+  // The voltage disc of voltageDisc, inlined: the max-speed search calls this ~40 times per
+  // axis and loop, and an object per call made the garbage collector the engine's main cost.
+  const omegaM = rpmToRadPerS(rpm);
+  const e = m.k1 * omegaM;
+  const x = m.rotorTeeth * omegaM * m.inductanceH;
+  const r = m.resistanceOhm;
+  const z2 = r * r + x * x;
+  const z = Math.sqrt(z2);
+  const cd = (-e * x) / z2;
+  const cq = (-e * r) / z2;
+  const v = m.busVoltageV;
+  const rho = v / z;
+  const d = e / z;
   const iLim = m.currentLimitA;
-  const { cd, cq, rho, d, e, z } = voltageDisc(m, rpm);
   let best = -Infinity;
   // (a) full current on the q axis, when the bus can drive it.
   if (cd * cd + (iLim - cq) * (iLim - cq) <= rho * rho) best = iLim;
@@ -89,12 +101,11 @@ export function largestTorqueCurrentA(m: TorqueModel, rpm: number): number {
   if (cd * cd + top * top <= iLim * iLim && top > best) best = top;
   // (c) where the two circles cross.
   if (d > 0 && Math.abs(iLim - rho) <= d && d <= iLim + rho) {
-    const v = m.busVoltageV;
-    const x = (((e - v) * (e + v)) / (z * z) + iLim * iLim) / (2 * d);
-    const h = Math.sqrt(Math.max(0, iLim * iLim - x * x));
+    const along = (((e - v) * (e + v)) / z2 + iLim * iLim) / (2 * d);
+    const h = Math.sqrt(Math.max(0, iLim * iLim - along * along));
     const ud = cd / d;
     const uq = cq / d;
-    const upper = Math.max(x * uq + h * ud, x * uq - h * ud);
+    const upper = along * uq + (h * ud >= 0 ? h * ud : -h * ud);
     if (upper > best) best = upper;
   }
   return best === -Infinity ? 0 : best;

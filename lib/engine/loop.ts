@@ -118,7 +118,13 @@ export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
     duty.hold * (inputPowerW.hold - copperHoldW) +
     off * inputPowerW.off;
 
-  const capability: Capability = { model: modelAt(r), ...spec.shape };
+  // Every capability has the same four keys, so the search's property reads stay monomorphic.
+  const capability: Capability = {
+    model: modelAt(r),
+    curve: spec.shape.curve,
+    resonance: spec.shape.resonance,
+    floor: spec.shape.floor,
+  };
   const torqueNm = capabilityNm(capability, speedRpm);
   const margin = marginPct(duty.peakTorqueNm, torqueNm);
   const byMargin = marginStatus(margin, spec.requiredPct);

@@ -206,6 +206,10 @@ describe("physical invariants (ENGINE.md §3–§6)", () => {
           axis.duty.peakTorqueNm = axis.duty.loadTorqueNm;
           const result = evaluateCase(input).axes[0];
           fc.pre(result.openLoop.windingTempC !== null);
+          // The bus still drives today's setting and the kit needs no field weakening: the
+          // back-EMF stays below half the bus (a motor with a large back-EMF may need both).
+          fc.pre(result.openLoop.currentMoveA === axis.drive.currentSettingA);
+          fc.pre(k1 * ((2 * Math.PI * axis.duty.speedRpm) / 60) < axis.drive.busVoltageV / 2);
           expect(result.closedLoop.energyKWhPerYear).toBeLessThanOrEqual(
             result.openLoop.energyKWhPerYear * (1 + 1e-12),
           );
