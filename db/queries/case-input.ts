@@ -81,8 +81,8 @@ export function kitInputOf(kit: Kit, motor: Motor | null): KitInput {
 // With motion, ENGINE.md §3a derives the duty figures and ignores any sent: the typed columns
 // (placeholders when left blank) stay out, so the input says where the figures come from.
 function dutyInputOf(axis: Axis): AxisInput["duty"] {
-  const shared = { hoursPerYear: axis.hoursPerYear, ambientC: axis.ambientC };
-  if (axis.motion) return { ...shared, motion: axis.motion };
+  if (axis.motion)
+    return { hoursPerYear: axis.hoursPerYear, ambientC: axis.ambientC, motion: axis.motion };
   return {
     hoursPerYear: axis.hoursPerYear,
     movePct: axis.movePct,

@@ -2,13 +2,15 @@ import fs from "node:fs";
 import path from "node:path";
 import ExcelJS from "exceljs";
 import { eq, sql } from "drizzle-orm";
+import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { z } from "zod";
 import { openDatabase } from "@/db/client";
 import { openQuoteFor } from "@/db/queries/quote-open";
 import { cases, proposals, users } from "@/db/schema";
 import { caseResultSchema, caseResultSchemaV1 } from "../support/case-result-schema";
-import { request, signInOverHttp, type CookieJar } from "./support/http";
+import { launchBrowser, screenshot, signInWithForm } from "./support/browser";
+import { baseUrl, request, signInOverHttp, type CookieJar } from "./support/http";
 
 const fixture = (name: string) => fs.readFileSync(path.resolve("tests/fixtures", name), "utf8");
 
@@ -303,5 +305,45 @@ describe("a proposal issued with engine 1.0.0 (tests/fixtures/proposal-v1.json)"
       .object({ engineVersion: z.string(), result: z.object({ engineVersion: z.string() }) })
       .parse(await (await request(engineer, `/api/v1/proposals/${proposalId}`)).json());
     expect([again.engineVersion, again.result.engineVersion]).toEqual(["1.0.0", "1.0.0"]);
+  });
+});
+
+describe("the case assumptions form with inflation, tax rate and depreciation (ENGINE.md §8)", () => {
+  let browser: Browser;
+  let page: Page;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+    page = await (await browser.newContext({ viewport: { width: 1400, height: 900 } })).newPage();
+    await signInWithForm(page, "engineer@example.com");
+    await page.waitForURL("**/accounts");
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  it("refuses a tax rate of 100 % beside its field, then saves the three and the case input carries them", async () => {
+    const { cases: list } = z
+      .object({ cases: z.array(z.object({ id: z.number(), stage: z.string() })) })
+      .parse(await (await request(engineer, "/api/v1/cases")).json());
+    const caseId = list[0].id;
+    await page.goto(`${baseUrl()}/cases/${caseId}`);
+    const form = page.getByRole("form", { name: "Assumptions" });
+    await form.getByLabel(/^Tax rate/).fill("100");
+    await form.getByRole("button", { name: "Apply assumptions" }).click();
+    await form.getByText("must be less than 100").waitFor();
+    await form.getByLabel(/^Tax rate/).fill("25");
+    await form.getByLabel(/^Inflation/).fill("2.5");
+    await form.getByLabel(/^Depreciation/).fill("7");
+    await form.getByRole("button", { name: "Apply assumptions" }).click();
+    await page.getByText("Assumptions saved; the results are recomputing.").waitFor();
+    await screenshot(page, "case-assumptions-v2");
+    const { input } = z
+      .object({ input: z.object({ finance: z.record(z.string(), z.unknown()) }) })
+      .parse(await (await request(engineer, `/api/v1/cases/${caseId}`)).json());
+    expect(input.finance).toMatchObject({
+      taxRatePct: 25,
+      inflationPct: 2.5,
+      depreciationYears: 7,
+    });
   });
 });
