@@ -6,10 +6,13 @@ import {
 } from "@/components/dossiers/dossier-tables";
 import { DrawsHistogram } from "@/components/dossiers/draws-histogram";
 import { MonthlyCashChart } from "@/components/dossiers/monthly-cash-chart";
+import { BreakEvenPanel } from "@/components/results/break-even-panel";
 import { CautionsPanel } from "@/components/results/cautions-panel";
 import { HeadlineCards } from "@/components/results/headline-cards";
+import { MotionTable } from "@/components/results/motion-table";
 import { TornadoChart } from "@/components/results/tornado-chart";
 import { TorqueSpeedChart } from "@/components/results/torque-speed-chart";
+import { ValueBySourceTable } from "@/components/results/value-by-source-table";
 import { WindingTemperatureChart } from "@/components/results/winding-temperature-chart";
 import type { Dossier } from "@/lib/dossier";
 import type { ParsedCase } from "@/lib/engine";
@@ -45,8 +48,9 @@ export function DossierReport({ dossier, input }: { dossier: Dossier; input: Par
   return (
     <>
       <HeadlineCards result={result} input={input} />
+      <BreakEvenPanel result={result} input={input} />
       <UncertaintySummary dossier={dossier} />
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         <DrawsHistogram
           bins={npvHistogram(dossier.uncertainty.draws)}
           currency={result.currency}
@@ -56,7 +60,7 @@ export function DossierReport({ dossier, input }: { dossier: Dossier; input: Par
       </div>
       <PaybackGridPanel dossier={dossier} />
       <SensitivitySwingsPanel dossier={dossier} />
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         <TornadoChart
           result={{ ...result, sensitivity: swing30.rows }}
           input={{ ...input, sensitivity: { swingPct: 30 } }}
@@ -65,6 +69,8 @@ export function DossierReport({ dossier, input }: { dossier: Dossier; input: Par
         <WindingTemperatureChart result={result} input={input} />
         <CautionsPanel result={result} input={input} />
       </div>
+      <ValueBySourceTable result={result} />
+      <MotionTable result={result} input={input} />
       <AxisStatesPanel dossier={dossier} />
     </>
   );

@@ -1,19 +1,9 @@
 import { Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import type { Dossier } from "@/lib/dossier";
-import type { SensitivityDriver } from "@/lib/engine";
 import { paybackTone } from "@/lib/results/dossier";
 import { formatMoney, formatNumber, formatPayback, formatTempC } from "@/lib/results/format";
-
-const DRIVER_WORDS: Record<SensitivityDriver, string> = {
-  tariff: "Electricity tariff",
-  hoursPerYear: "Running hours per year",
-  loadTorque: "Load torque, all axes",
-  kitPrice: "Kit price",
-  laborRate: "Labor rate",
-  stepLossEvents: "Step-loss events",
-  discountRate: "Discount rate",
-};
+import { DRIVER_LABELS } from "@/lib/results/tornado";
 
 const TONE = {
   good: "bg-success-50 text-success-700",
@@ -69,7 +59,7 @@ export function UncertaintySummary({ dossier }: { dossier: Dossier }) {
             <tbody className="divide-y divide-steel-100">
               {(["tariff", "hoursPerYear", "loadTorque", "stepLossEvents"] as const).map((d) => (
                 <tr key={d}>
-                  <Td>{DRIVER_WORDS[d]}</Td>
+                  <Td>{DRIVER_LABELS[d]}</Td>
                   <Td className="text-right tabular-nums">{signed(u.ranges[d].lowPct)}</Td>
                   <Td className="text-right tabular-nums">{signed(u.ranges[d].highPct)}</Td>
                 </tr>
@@ -177,7 +167,7 @@ export function SensitivitySwingsPanel({ dossier }: { dossier: Dossier }) {
         <tbody className="divide-y divide-steel-100">
           {drivers.map((driver) => (
             <tr key={driver}>
-              <Td className="font-bold">{DRIVER_WORDS[driver]}</Td>
+              <Td className="font-bold">{DRIVER_LABELS[driver]}</Td>
               {dossier.sensitivity.map((s) => {
                 const row = s.rows.find((r) => r.driver === driver)!;
                 return [

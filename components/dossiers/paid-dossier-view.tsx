@@ -1,6 +1,7 @@
 import type { ReactNode } from "react";
 import { DossierReport } from "@/components/dossiers/dossier-report";
 import { PrintButton } from "@/components/dossiers/print-button";
+import { MethodLink } from "@/components/results/method-link";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/panel";
 import { buildDossier } from "@/lib/dossier";
@@ -17,6 +18,7 @@ export function PaidDossierView({
   crumbs,
   proposal,
   settings,
+  methodHref,
   children,
 }: {
   proposalId: number;
@@ -24,6 +26,8 @@ export function PaidDossierView({
   crumbs: ReactNode;
   proposal: { input: CaseInput; accountName: string; siteName: string };
   settings: Parameters<typeof buildDossier>[1];
+  /** The method page of the reader's shell. */
+  methodHref: string;
   children?: ReactNode;
 }) {
   const input = caseInputSchema.parse(proposal.input);
@@ -44,6 +48,9 @@ export function PaidDossierView({
           </div>
         }
       />
+      <p className="print:hidden">
+        <MethodLink href={methodHref} />
+      </p>
       <DossierReport dossier={dossier} input={input} />
       {children}
     </div>

@@ -22,6 +22,8 @@ export function AxisResultsTable({
   input: ParsedCase | null;
 }) {
   const rows = useMemo(() => axisRows(result, input), [result, input]);
+  // Engine 1.0.0 did not compute what the drive holds: its proposals show no such column.
+  const showHolding = rows.some((r) => r.holding !== null);
   const [showAll, setShowAll] = useState(false);
   const visible = showAll ? rows : rows.slice(0, FIRST_ROWS);
   return (
@@ -29,7 +31,7 @@ export function AxisResultsTable({
       <p className="mb-3 text-small text-steel-700">
         Torque, speed and temperature are per unit; energy counts every unit of the axis.
       </p>
-      <Table caption="Results of each axis: loop status, torque freed, speed headroom, energy saved, temperature drop and warnings">
+      <Table caption="Results of each axis: loop status, torque freed, speed headroom, energy saved, temperature drop, what today's drive holds at standstill, and warnings with what to do">
         <thead>
           <tr>
             <Th>Axis</Th>
@@ -39,12 +41,13 @@ export function AxisResultsTable({
             <Th className="text-right">Speed headroom [%]</Th>
             <Th className="text-right">Energy saved</Th>
             <Th className="text-right">Temperature drop [K]</Th>
-            <Th>Warnings</Th>
+            {showHolding ? <Th className="text-right">Holds today [N·m]</Th> : null}
+            <Th>Warnings and what to do</Th>
           </tr>
         </thead>
         <tbody className="divide-y divide-steel-100">
           {visible.map((row) => (
-            <AxisResultRow key={row.axisId} row={row} />
+            <AxisResultRow key={row.axisId} row={row} showHolding={showHolding} />
           ))}
         </tbody>
       </Table>
@@ -59,7 +62,7 @@ export function AxisResultsTable({
   );
 }
 
-function AxisResultRow({ row }: { row: AxisRow }) {
+function AxisResultRow({ row, showHolding }: { row: AxisRow; showHolding: boolean }) {
   return (
     <tr className="align-top">
       <Td className="min-w-40 align-top">
@@ -96,6 +99,7 @@ function AxisResultRow({ row }: { row: AxisRow }) {
       <Td className="text-right align-top tabular-nums">
         {row.tempDropK === null ? "—" : formatNumber(row.tempDropK, 0)}
       </Td>
+      {showHolding ? <HoldingCell row={row} /> : null}
       <Td className="min-w-56 align-top">
         {row.warnings.length === 0 ? (
           <span className="text-steel-600">None</span>
@@ -107,6 +111,10 @@ function AxisResultRow({ row }: { row: AxisRow }) {
                   {w.safety ? "Safety: " : ""}
                   {w.sentence}
                 </span>
+                <span className="block text-caption text-steel-800">
+                  <span className="font-bold">To do: </span>
+                  {w.advice}
+                </span>
                 {w.caution ? (
                   <span className="block text-caption text-steel-700">{w.caution}</span>
                 ) : null}
@@ -116,6 +124,25 @@ function AxisResultRow({ row }: { row: AxisRow }) {
         )}
       </Td>
     </tr>
+  );
+}
+
+function HoldingCell({ row }: { row: AxisRow }) {
+  const holding = row.holding;
+  if (!holding) return <Td className="text-right align-top">—</Td>;
+  return (
+    <Td className="min-w-32 text-right align-top tabular-nums">
+      {formatNumber(holding.capabilityNm, 3)}
+      <span
+        className={`block text-caption ${holding.slips ? "font-bold text-danger-700" : "text-steel-600"}`}
+      >
+        {holding.loadNm === null
+          ? "no load at rest"
+          : holding.slips
+            ? `load ${formatNumber(holding.loadNm, 3)}: slips`
+            : `load ${formatNumber(holding.loadNm, 3)}: held`}
+      </span>
+    </Td>
   );
 }
 

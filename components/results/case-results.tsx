@@ -8,19 +8,23 @@ import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { CaseRequestError, useCase, useCaseResult, type CaseId } from "@/lib/hooks/use-case-result";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { AxisResultsTable } from "./axis-results-table";
+import { BreakEvenPanel } from "./break-even-panel";
 import { CashFlowChart } from "./cash-flow-chart";
 import { CautionsPanel } from "./cautions-panel";
 import { EnergyByMachineChart } from "./energy-by-machine-chart";
 import { HeadlineCards } from "./headline-cards";
+import { MethodLink } from "./method-link";
+import { MotionTable } from "./motion-table";
 import { TornadoChart } from "./tornado-chart";
 import { TorqueSpeedChart } from "./torque-speed-chart";
+import { ValueBySourceTable } from "./value-by-source-table";
 import { WindingTemperatureChart } from "./winding-temperature-chart";
 
 /**
  * The live results of a case. While an edit recomputes, the last result stays on screen under
  * an "Updating…" badge, so the reader sees the numbers move instead of a blank page.
  */
-export function CaseResults({ caseId }: { caseId: CaseId }) {
+export function CaseResults({ caseId, methodHref }: { caseId: CaseId; methodHref: string }) {
   const resultQuery = useCaseResult(caseId);
   const caseQuery = useCase(caseId);
   const rawInput = caseQuery.data?.input;
@@ -37,6 +41,7 @@ export function CaseResults({ caseId }: { caseId: CaseId }) {
     <CaseResultsView
       result={resultQuery.data}
       input={input}
+      methodHref={methodHref}
       updating={resultQuery.isFetching || caseQuery.isFetching}
       inputState={caseQuery.isError ? "failed" : caseQuery.data === undefined ? "loading" : "ready"}
       staleError={resultQuery.isError ? resultQuery.error : null}
@@ -52,6 +57,7 @@ export function CaseResults({ caseId }: { caseId: CaseId }) {
 export function CaseResultsView({
   result,
   input,
+  methodHref,
   updating = false,
   inputState = "ready",
   staleError = null,
@@ -59,6 +65,8 @@ export function CaseResultsView({
 }: {
   result: CaseResult;
   input: ParsedCase | null;
+  /** The method page of the caller's shell. */
+  methodHref: string;
   updating?: boolean;
   inputState?: "loading" | "ready" | "failed";
   staleError?: Error | null;
@@ -70,9 +78,10 @@ export function CaseResultsView({
         <p aria-live="polite" role="status" className="flex items-center gap-2">
           {updating ? <Badge tone="caution">Updating…</Badge> : null}
           <span className="text-caption text-steel-600">
-            Engine {result.engineVersion} · amounts in {result.currency}
+            Computed by engine {result.engineVersion} · amounts in {result.currency}
           </span>
         </p>
+        <MethodLink href={methodHref} />
         {staleError ? (
           <p role="alert" className="flex items-center gap-2 text-small text-danger-700">
             The latest change could not be computed; these are the last results.
@@ -86,8 +95,9 @@ export function CaseResultsView({
       </div>
 
       <HeadlineCards result={result} input={input} />
+      <BreakEvenPanel result={result} input={input} />
 
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         {input ? (
           <TorqueSpeedChart result={result} input={input} />
         ) : (
@@ -100,6 +110,8 @@ export function CaseResultsView({
         <CautionsPanel result={result} input={input} />
       </div>
 
+      <ValueBySourceTable result={result} />
+      <MotionTable result={result} input={input} />
       <AxisResultsTable result={result} input={input} />
     </div>
   );
@@ -170,7 +182,7 @@ export function CaseResultsSkeleton() {
           </div>
         ))}
       </div>
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         {[0, 1, 2, 3].map((i) => (
           <div key={i} className="space-y-3 rounded-panel border border-steel-200 bg-white p-5">
             <Skeleton className="h-5 w-56" />

@@ -1,5 +1,6 @@
 import { Badge } from "@/components/ui/badge";
-import type { CaseResult, ParsedCase } from "@/lib/engine";
+import type { CaseResult, ParsedCase, Scenario } from "@/lib/engine";
+import { paybackShort } from "@/lib/results/engine-v2";
 import {
   formatIrr,
   formatKWh,
@@ -27,6 +28,7 @@ export function HeadlineCards({ result, input }: { result: CaseResult; input: Pa
           <ScenarioCard
             key={h.key}
             headline={h}
+            scenario={result.scenarios[h.key]}
             currency={result.currency}
             horizonYears={horizonYears}
           />
@@ -38,10 +40,12 @@ export function HeadlineCards({ result, input }: { result: CaseResult; input: Pa
 
 function ScenarioCard({
   headline: h,
+  scenario,
   currency,
   horizonYears,
 }: {
   headline: ScenarioHeadline;
+  scenario: Scenario;
   currency: string;
   horizonYears: number;
 }) {
@@ -69,7 +73,7 @@ function ScenarioCard({
       </p>
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
         <Row term="Capex" value={formatMoney(h.capex, currency)} />
-        <Row term="Payback" value={formatPayback(h.paybackYears, horizonYears)} />
+        <Row term="Payback" value={paybackShort(scenario, horizonYears)} />
         <Row
           term="Discounted payback"
           value={formatPayback(h.discountedPaybackYears, horizonYears)}

@@ -6,6 +6,7 @@ import { Field, Select } from "@/components/ui/field";
 import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { formatNumber } from "@/lib/results/format";
+import { axisMotion } from "@/lib/results/engine-v2";
 import {
   torqueSpeedTable,
   torqueSpeedView,
@@ -80,8 +81,11 @@ export function TorqueSpeedChart({ result, input }: { result: CaseResult; input:
   const axis = input.axes.find((a) => a.id === axisId);
   const axisResult = result.axes.find((a) => a.id === axisId);
   const view = useMemo(
-    () => (axis ? torqueSpeedView(axis, input.margins) : null),
-    [axis, input.margins],
+    () =>
+      axis
+        ? torqueSpeedView(axis, input.margins, axisResult ? axisMotion(axisResult) : null)
+        : null,
+    [axis, input.margins, axisResult],
   );
   const data = useMemo(() => (view ? seriesOf(view) : []), [view]);
   const layers = useMemo(

@@ -3,7 +3,7 @@ import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
 
 export function Table({ caption, children }: { caption: string; children: ReactNode }) {
   return (
-    <div className="overflow-x-auto rounded-panel border border-steel-200 bg-white">
+    <div className="relative overflow-x-auto rounded-panel border border-steel-200 bg-white">
       <table className="min-w-full divide-y divide-steel-200 text-left text-small">
         <caption className="sr-only">{caption}</caption>
         {children}

@@ -82,9 +82,10 @@ export function axisDetail(input: ParsedCase, axis: ParsedAxis, result: AxisResu
     label: axis.label,
     machineName: machine?.name ?? axis.machineId,
     quantity: axis.quantity,
-    speedRpm: axis.duty.speedRpm,
-    loadTorqueNm: axis.duty.loadTorqueNm,
-    peakTorqueNm: axis.duty.peakTorqueNm,
+    // With a mechanism (ENGINE.md §3a) the duty figures are the engine's, not the input's.
+    speedRpm: result.motion?.speedRpm ?? axis.duty.speedRpm ?? 0,
+    loadTorqueNm: result.motion?.loadTorqueNm ?? axis.duty.loadTorqueNm ?? 0,
+    peakTorqueNm: result.motion?.peakTorqueNm ?? axis.duty.peakTorqueNm ?? 0,
     ambientC: axis.duty.ambientC,
     curves: {
       open: torqueSpeedCurve(axis, "open", CURVE_POINTS),

@@ -1,8 +1,9 @@
 import type { AxisPhysics } from "./axis";
 import type { AxisMoney } from "./fleet";
-import { moneyString } from "./money";
+import { npv } from "./finance";
+import { ONE, ZERO, moneyString } from "./money";
 import { prepareCase, type PreparedCase } from "./prepared-case";
-import { scenario } from "./scenarios";
+import { cashFlowSeries, scenario } from "./scenarios";
 import { caseInputSchema, type ParsedCase } from "./schema";
 import { sensitivity } from "./sensitivity";
 import type { AxisResult, CaseResult, SensitivityRow } from "./types";
@@ -24,17 +25,26 @@ export function evaluateParsedCase(input: ParsedCase): CaseResult {
 
 /** The sensitivity of §8 at any swing, each driver moved alone (the dossier asks for several). */
 export function sensitivityOf(prepared: PreparedCase, swingPct: number): SensitivityRow[] {
-  return sensitivity(swingPct, (driver, factor) => prepared.at({ [driver]: factor }));
+  return sensitivity(swingPct, prepared.input.currency, (driver, factor) =>
+    prepared.at({ [driver]: factor }),
+  );
 }
 
 /** The CaseResult of a prepared case. */
 export function resultOf(prepared: PreparedCase): CaseResult {
-  const { input, base, capex, maintenance, flowsFor, physics, money } = prepared;
+  const { input, base, capex, maintenance, termsFor, physics, money } = prepared;
   const { finance } = input;
   const physicsSaving = base.energySavedKWh + base.coolingSavedKWh;
-  // Band scenarios: the trade's claimed fraction of today's drive and cooling energy (§8).
-  const bandSaving = (pct: number) =>
-    (pct / 100) * (base.energyOpenLoopKWh + base.coolingOpenLoopKWh);
+  // Band scenarios: the trade's claimed fraction of today's drive and of today's cooling energy
+  // (§8); "energy" and "cooling" by source carry each.
+  const band = (pct: number) =>
+    scenario(
+      cashFlowSeries(
+        termsFor(base, (pct / 100) * base.energyOpenLoopKWh, (pct / 100) * base.coolingOpenLoopKWh),
+      ),
+      capex,
+      finance.discountRatePct,
+    );
 
   return {
     engineVersion: ENGINE_VERSION,
@@ -53,19 +63,41 @@ export function resultOf(prepared: PreparedCase): CaseResult {
       co2TonnesPerYear: (physicsSaving * finance.gridKgCo2PerKWh) / 1000,
     },
     scenarios: {
-      physics: scenario(flowsFor(base, physicsSaving), capex, finance.discountRatePct),
-      bandLow: scenario(
-        flowsFor(base, bandSaving(input.band.lowPct)),
+      physics: scenario(
+        cashFlowSeries(termsFor(base, base.energySavedKWh, base.coolingSavedKWh)),
         capex,
         finance.discountRatePct,
       ),
-      bandHigh: scenario(
-        flowsFor(base, bandSaving(input.band.highPct)),
-        capex,
-        finance.discountRatePct,
-      ),
+      bandLow: band(input.band.lowPct),
+      bandHigh: band(input.band.highPct),
     },
     sensitivity: sensitivityOf(prepared, input.sensitivity.swingPct),
+    breakEven: breakEven(prepared),
+  };
+}
+
+/**
+ * Where the physics scenario's NPV crosses 0 (docs/model.md §8). NPV is affine in the tariff
+ * and in a factor f on every axis's step-loss events (reliability is linear in f, and tax is
+ * linear in the flow), so two evaluations give the line: tariff = t₀ − NPV(t₀)/(NPV(t₀+1) −
+ * NPV(t₀)), factor = −NPV(0)/(NPV(1) − NPV(0)). Each is null when NPV does not rise with it
+ * (slope ≤ 0) or the answer is negative.
+ */
+export function breakEven(prepared: PreparedCase): CaseResult["breakEven"] {
+  const { terms, rate } = prepared.termsAt({});
+  const npvOf = (t: typeof terms) => npv(rate, cashFlowSeries(t).flows);
+  const atBase = npvOf(terms);
+
+  const tariffSlope = npvOf({ ...terms, tariffPerKWh: terms.tariffPerKWh.plus(ONE) }).minus(atBase);
+  const tariff = tariffSlope.lte(0) ? null : terms.tariffPerKWh.minus(atBase.div(tariffSlope));
+
+  const withoutEvents = npvOf({ ...terms, reliability: ZERO });
+  const eventSlope = atBase.minus(withoutEvents);
+  const factor = eventSlope.lte(0) ? null : withoutEvents.negated().div(eventSlope);
+
+  return {
+    tariffPerKWh: tariff === null || tariff.isNegative() ? null : moneyString(tariff),
+    stepLossFactor: factor === null || factor.isNegative() ? null : factor.toNumber(),
   };
 }
 

@@ -15,12 +15,15 @@ export interface AxisMoney {
   kitTotal: Decimal;
   /** quantity·installHours: the part the labor-rate driver scales. */
   laborHoursTotal: Decimal;
-  /** quantity·events·avoided·cost, counted only while the kit is not undersized. */
+  /** quantity·events·avoided·cost of an event, counted only where the axis avoids events. */
   reliabilityIfServed: Decimal;
+  /**
+   * The part of reliabilityIfServed that is restart labour (event.restartLaborHours·laborRate):
+   * the labor-rate driver of docs/model.md §8 scales it with the rate.
+   */
+  reliabilityLaborIfServed: Decimal;
   maintenanceTotal: Decimal;
 }
-
-const isZeroMoney = (amount: string): boolean => /^\+?0*\.?0*$/.test(amount);
 
 /** The inputs axisMoney reads, in a fixed order: equal tuples give equal money. */
 const moneyInputs = ({ quantity, retrofit, reliability }: ParsedAxis) =>
@@ -34,6 +37,10 @@ const moneyInputs = ({ quantity, retrofit, reliability }: ParsedAxis) =>
     reliability.stepLossEventsPerYear,
     reliability.avoidedPct,
     reliability.costPerEvent ?? "0",
+    reliability.event?.downtimeMinutes ?? 0,
+    reliability.event?.scrapParts ?? 0,
+    reliability.event?.scrapCostPerPart ?? "0",
+    reliability.event?.restartLaborHours ?? 0,
   ] as const;
 
 type MoneyMemo = Map<number | string, MoneyMemo | AxisMoney>;
@@ -44,7 +51,11 @@ type MoneyMemo = Map<number | string, MoneyMemo | AxisMoney>;
  * memo is a tree of Maps, one level per input, rather than one Map on a joined key: building
  * and hashing that key string for every axis cost more than the lookups.
  */
-export function axesMoney(axes: readonly ParsedAxis[], laborRatePerHour: Decimal): AxisMoney[] {
+export function axesMoney(
+  axes: readonly ParsedAxis[],
+  laborRatePerHour: Decimal,
+  downtimeCostPerHour: Decimal,
+): AxisMoney[] {
   const memo: MoneyMemo = new Map();
   return axes.map((axis) => {
     const inputs = moneyInputs(axis);
@@ -60,14 +71,49 @@ export function axesMoney(axes: readonly ParsedAxis[], laborRatePerHour: Decimal
     const last = inputs[inputs.length - 1];
     let money = level.get(last) as AxisMoney | undefined;
     if (money === undefined) {
-      money = axisMoney(axis, laborRatePerHour);
+      money = axisMoney(axis, laborRatePerHour, downtimeCostPerHour);
       level.set(last, money);
     }
     return money;
   });
 }
 
-export function axisMoney(axis: ParsedAxis, laborRatePerHour: Decimal): AxisMoney {
+/**
+ * The cost of one step-loss event (docs/model.md §8): costPerEvent when given, else built from
+ * what the event causes — downtime, scrap and restart labour. The schema refuses both at once.
+ * `labor` is the restart-labour part alone.
+ */
+export function eventCost(
+  reliability: ParsedAxis["reliability"],
+  laborRatePerHour: Decimal,
+  downtimeCostPerHour: Decimal,
+): { total: Decimal; labor: Decimal } {
+  const { costPerEvent, event } = reliability;
+  if (event === undefined)
+    return {
+      total: costPerEvent === undefined ? ZERO : parseMoney(costPerEvent),
+      labor: ZERO,
+    };
+  const downtime =
+    event.downtimeMinutes === 0
+      ? ZERO
+      : new Money(event.downtimeMinutes).div(60).times(downtimeCostPerHour);
+  const scrap =
+    event.scrapParts === 0
+      ? ZERO
+      : new Money(event.scrapParts).times(parseMoney(event.scrapCostPerPart));
+  const labor =
+    event.restartLaborHours === 0
+      ? ZERO
+      : new Money(event.restartLaborHours).times(laborRatePerHour);
+  return { total: downtime.plus(scrap).plus(labor), labor };
+}
+
+export function axisMoney(
+  axis: ParsedAxis,
+  laborRatePerHour: Decimal,
+  downtimeCostPerHour: Decimal,
+): AxisMoney {
   const { retrofit, reliability } = axis;
   const quantity = new Money(axis.quantity);
   const price = parseMoney(retrofit.kit.price);
@@ -79,16 +125,17 @@ export function axisMoney(axis: ParsedAxis, laborRatePerHour: Decimal): AxisMone
   const capexUnit = kitUnit
     .plus(laborHoursUnit.times(laborRatePerHour))
     .plus(parseMoney(retrofit.commissioningCost));
-  const served =
-    reliability.stepLossEventsPerYear === 0 ||
-    reliability.avoidedPct === 0 ||
-    isZeroMoney(reliability.costPerEvent ?? "0")
+  const cost = eventCost(reliability, laborRatePerHour, downtimeCostPerHour);
+  // Events avoided per year, all units: the factor both the cost and its labour part carry.
+  const avoided =
+    reliability.stepLossEventsPerYear === 0 || reliability.avoidedPct === 0
       ? ZERO
       : quantity
           .times(reliability.stepLossEventsPerYear)
           .times(reliability.avoidedPct)
-          .div(HUNDRED)
-          .times(parseMoney(reliability.costPerEvent ?? "0"));
+          .div(HUNDRED);
+  const served = avoided.isZero() || cost.total.isZero() ? ZERO : avoided.times(cost.total);
+  const servedLabor = avoided.isZero() || cost.labor.isZero() ? ZERO : avoided.times(cost.labor);
   const capexTotal = capexUnit.times(quantity);
   return {
     capexUnit,
@@ -98,6 +145,7 @@ export function axisMoney(axis: ParsedAxis, laborRatePerHour: Decimal): AxisMone
     kitTotal: kitUnit.times(quantity),
     laborHoursTotal: laborHoursUnit.times(quantity),
     reliabilityIfServed: served,
+    reliabilityLaborIfServed: servedLabor,
     maintenanceTotal: quantity.times(parseMoney(retrofit.maintenanceSavingPerYear)),
   };
 }
@@ -123,6 +171,15 @@ export interface AxisEconomics {
   speedHeadroomPct: number | null;
 }
 
+/** What the throughput cap of one machine depends on (docs/model.md §8). */
+export interface MachineStats {
+  axes: number;
+  /** An axis is undersized or has no headroom: the gain is capped to 0. */
+  blocked: boolean;
+  leastHeadroom: number;
+  mostHours: number;
+}
+
 /** What one physics run of the whole fleet adds up to. */
 export interface FleetTotals {
   energyOpenLoopKWh: number;
@@ -131,8 +188,11 @@ export interface FleetTotals {
   coolingOpenLoopKWh: number;
   coolingSavedKWh: number;
   reliabilityPerYear: Decimal;
+  /** The restart-labour part of reliabilityPerYear, for the labor-rate driver. */
+  reliabilityLaborPerYear: Decimal;
   throughputPerYear: Decimal;
   machines: MachineResult[];
+  machineStats: MachineStats[];
 }
 
 /**
@@ -149,8 +209,9 @@ export function fleetTotals(
   let coolingOpen = 0;
   let coolingClosed = 0;
   const served: Decimal[] = [];
+  const servedLabor: Decimal[] = [];
   const machineIndex = new Map(input.machines.map((m, i) => [m.id, i]));
-  const perMachine = input.machines.map(() => ({
+  const perMachine: MachineStats[] = input.machines.map(() => ({
     axes: 0,
     blocked: false,
     leastHeadroom: Infinity,
@@ -164,7 +225,10 @@ export function fleetTotals(
     energyClosed += q * e.energyClosedLoopKWh;
     coolingOpen += q * e.coolingOpenLoopKWh;
     coolingClosed += q * e.coolingClosedLoopKWh;
-    if (e.avoidsEvents) served.push(money[i].reliabilityIfServed);
+    if (e.avoidsEvents) {
+      served.push(money[i].reliabilityIfServed);
+      servedLabor.push(money[i].reliabilityLaborIfServed);
+    }
 
     const m = perMachine[machineIndex.get(axis.machineId) as number];
     m.axes++;
@@ -173,30 +237,7 @@ export function fleetTotals(
     m.mostHours = Math.max(m.mostHours, axis.duty.hoursPerYear);
   });
 
-  let throughput = ZERO;
-  const machines: MachineResult[] = input.machines.map((machine, i) => {
-    const m = perMachine[i];
-    // A machine without axes has nothing to speed up: it adds 0 and is not reported as capped.
-    if (m.axes === 0)
-      return { id: machine.id, throughputGainPct: 0, throughputPerYear: "0", warnings: [] };
-    const cap = m.blocked ? 0 : Math.max(0, m.leastHeadroom);
-    const gain = Math.min(machine.throughputGainPct, cap);
-    const value =
-      gain === 0
-        ? ZERO
-        : new Money(gain)
-            .div(HUNDRED)
-            .times(parseMoney(machine.marginPerOutputHour))
-            .times(m.mostHours);
-    throughput = throughput.plus(value);
-    return {
-      id: machine.id,
-      throughputGainPct: gain,
-      throughputPerYear: moneyString(value),
-      warnings: gain < machine.throughputGainPct ? ["THROUGHPUT_CAPPED"] : [],
-    };
-  });
-
+  const { machines, total } = throughputOf(input, perMachine);
   return {
     energyOpenLoopKWh: energyOpen,
     energyClosedLoopKWh: energyClosed,
@@ -204,7 +245,48 @@ export function fleetTotals(
     coolingOpenLoopKWh: coolingOpen,
     coolingSavedKWh: coolingOpen - coolingClosed,
     reliabilityPerYear: sumShared(served),
-    throughputPerYear: throughput,
+    reliabilityLaborPerYear: sumShared(servedLabor),
+    throughputPerYear: total,
     machines,
+    machineStats: perMachine,
   };
+}
+
+/**
+ * Throughput per machine (docs/model.md §8): gain = min(asked, cap), cap = max(0, least headroom
+ * of its axes), 0 when one is undersized or has no headroom; value = gain/100 · margin per output
+ * hour · the longest hours of its axes. `gainFactor` scales every machine's asked gain (the
+ * throughput-gain driver), which stays capped.
+ */
+export function throughputOf(
+  input: ParsedCase,
+  stats: readonly MachineStats[],
+  gainFactor = 1,
+): { machines: MachineResult[]; total: Decimal } {
+  let total = ZERO;
+  const machines: MachineResult[] = input.machines.map((machine, i) => {
+    const m = stats[i];
+    // A machine without axes has nothing to speed up: it adds 0 and is not reported as capped.
+    if (m.axes === 0)
+      return { id: machine.id, throughputGainPct: 0, throughputPerYear: "0", warnings: [] };
+    const asked =
+      gainFactor === 1 ? machine.throughputGainPct : machine.throughputGainPct * gainFactor;
+    const cap = m.blocked ? 0 : Math.max(0, m.leastHeadroom);
+    const gain = Math.min(asked, cap);
+    const value =
+      gain === 0
+        ? ZERO
+        : new Money(gain)
+            .div(HUNDRED)
+            .times(parseMoney(machine.marginPerOutputHour))
+            .times(m.mostHours);
+    total = total.plus(value);
+    return {
+      id: machine.id,
+      throughputGainPct: gain,
+      throughputPerYear: moneyString(value),
+      warnings: gain < asked ? ["THROUGHPUT_CAPPED"] : [],
+    };
+  });
+  return { machines, total };
 }

@@ -33,7 +33,10 @@ export type {
   LoopResult,
   MachineResult,
   OpenLoopResult,
+  MotionResult,
+  PaybackStatus,
   Scenario,
+  ValueSource,
   SensitivityDriver,
   SensitivityRow,
 } from "./types";
@@ -43,5 +46,6 @@ export {
   type DriverFactors,
   type DriverOutcome,
 } from "./prepared-case";
-export { resultOf, sensitivityOf } from "./evaluate";
+export { breakEven, resultOf, sensitivityOf } from "./evaluate";
+export { VALUE_SOURCES } from "./types";
 export { SENSITIVITY_DRIVERS } from "./sensitivity";

@@ -7,15 +7,22 @@ import {
   type AxisPhysics,
 } from "./axis";
 import { npv, paybackYears } from "./finance";
-import { axesMoney, fleetTotals, sumShared, type AxisMoney, type FleetTotals } from "./fleet";
+import {
+  axesMoney,
+  fleetTotals,
+  sumShared,
+  throughputOf,
+  type AxisMoney,
+  type FleetTotals,
+} from "./fleet";
 import { HUNDRED, Money, ONE, ZERO, parseMoney } from "./money";
-import { cashFlows, rateOf } from "./scenarios";
+import { cashFlowSeries, rateOf, type YearlyTerms } from "./scenarios";
 import type { ParsedCase } from "./schema";
 import type { PhysicsScenarioOutcome } from "./sensitivity";
 import type { SensitivityDriver } from "./types";
 
 /**
- * Factors on the drivers of ENGINE.md §8's sensitivity, any number of them at once: the
+ * Factors on the drivers of docs/model.md §8's sensitivity, any number of them at once: the
  * sensitivity moves one at a time, the dossier's uncertainty analysis moves four together.
  * A driver left out stays at the case's own value.
  */
@@ -30,9 +37,10 @@ export interface DriverOutcome extends PhysicsScenarioOutcome {
 /**
  * A case with its physics evaluated once, from which the physics scenario can be recomputed
  * under changed drivers without repeating the per-axis work that does not depend on them: the
- * tariff, the hours, the step-loss events, kit price, labor rate and discount rate enter the
- * flows linearly (§6, §8); only a changed load torque solves the closed loop of every axis again
- * (economicsAtLoad). evaluateParsedCase builds its sensitivity through the same function.
+ * tariff, the hours, the step-loss events, kit price, labor rate, discount rate and throughput
+ * gain enter the flows linearly or through the per-machine cap (§6, §8); only a changed load
+ * torque or idle current solves the axes again (economicsAtScale). evaluateParsedCase builds
+ * its scenarios, sensitivity and break-even values through the same functions.
  */
 export interface PreparedCase {
   input: ParsedCase;
@@ -43,11 +51,15 @@ export interface PreparedCase {
   capex: Decimal;
   maintenance: Decimal;
   tariff: Decimal;
-  flowsFor(
+  /** The yearly terms of a scenario that counts these energies, with the fleet totals given. */
+  termsFor(
     totals: FleetTotals,
-    energySavedKWh: number,
+    energyKWh: number,
+    coolingKWh: number,
     overrides?: { tariff?: Decimal; capex?: Decimal },
-  ): Decimal[];
+  ): YearlyTerms;
+  /** The yearly terms and discount rate of the physics scenario with the given drivers scaled. */
+  termsAt(factors: DriverFactors): { terms: YearlyTerms; rate: Decimal };
   /** The physics scenario with the given drivers scaled. */
   at(factors: DriverFactors): DriverOutcome;
 }
@@ -66,14 +78,15 @@ export function prepareCase(input: ParsedCase): PreparedCase {
   const ctx = axisContext(input);
   const physics = input.axes.map((axis) => evaluateAxisPhysics(axis, ctx));
   const laborRate = parseMoney(finance.laborRatePerHour);
-  const money = axesMoney(input.axes, laborRate);
+  const downtimeCost = parseMoney(finance.downtimeCostPerHour);
+  const money = axesMoney(input.axes, laborRate, downtimeCost);
   const base = fleetTotals(input, money, (i) => economicsOf(physics[i]));
 
   const downtimeHours = input.machines.reduce(
     (hours, m) => (m.downtimeHours === 0 ? hours : hours.plus(m.downtimeHours)),
     ZERO,
   );
-  const downtime = downtimeHours.times(parseMoney(finance.downtimeCostPerHour));
+  const downtime = downtimeHours.times(downtimeCost);
   const capex = sumShared(money.map((m) => m.capexTotal))
     .plus(downtime)
     .plus(parseMoney(finance.projectOneTimeCost));
@@ -81,18 +94,21 @@ export function prepareCase(input: ParsedCase): PreparedCase {
   const service = parseMoney(finance.annualServiceCost);
   const tariff = parseMoney(finance.tariffPerKWh);
 
-  const flowsFor: PreparedCase["flowsFor"] = (totals, energySavedKWh, overrides = {}) =>
-    cashFlows({
-      capex: overrides.capex ?? capex,
-      energySavedKWh,
-      tariffPerKWh: overrides.tariff ?? tariff,
-      tariffEscalationPct: finance.tariffEscalationPct,
-      recurringPerYear: totals.reliabilityPerYear
-        .plus(maintenance)
-        .plus(totals.throughputPerYear)
-        .minus(service),
-      horizonYears: finance.horizonYears,
-    });
+  const termsFor: PreparedCase["termsFor"] = (totals, energyKWh, coolingKWh, overrides = {}) => ({
+    capex: overrides.capex ?? capex,
+    energyKWh,
+    coolingKWh,
+    tariffPerKWh: overrides.tariff ?? tariff,
+    tariffEscalationPct: finance.tariffEscalationPct,
+    reliability: totals.reliabilityPerYear,
+    maintenance,
+    throughput: totals.throughputPerYear,
+    service,
+    inflationPct: finance.inflationPct,
+    taxRatePct: finance.taxRatePct,
+    depreciationYears: finance.depreciationYears,
+    horizonYears: finance.horizonYears,
+  });
 
   // The gain each machine puts a value on; absent where throughput is worth nothing.
   const valuedGainPct = new Map(
@@ -103,53 +119,91 @@ export function prepareCase(input: ParsedCase): PreparedCase {
   let kitTotal: Decimal | undefined;
   let laborTotal: Decimal | undefined;
 
-  const at = (factors: DriverFactors): DriverOutcome => {
+  const termsAt = (factors: DriverFactors): { terms: YearlyTerms; rate: Decimal } => {
     let totals = base;
     let capexAt = capex;
     let rate = rateOf(finance.discountRatePct);
-    // Load first: the hours and events factors then scale the totals of the scaled load.
-    if (factors.loadTorque !== undefined) {
-      const f = factors.loadTorque.toNumber();
-      totals = fleetTotals(input, money, (i) =>
-        economicsAtScale(
+    const gainFactor = factors.throughputGain?.toNumber() ?? 1;
+    // Load and idle current first: they solve the axes again, and the hours, events and gain
+    // factors then scale what that run adds up to.
+    if (factors.loadTorque !== undefined || factors.idleCurrent !== undefined) {
+      const scale = {
+        loadTorque: factors.loadTorque?.toNumber() ?? 1,
+        idleCurrent: factors.idleCurrent?.toNumber() ?? 1,
+      };
+      totals = fleetTotals(input, money, (i) => {
+        const valued = valuedGainPct.get(input.axes[i].machineId);
+        return economicsAtScale(
           input.axes[i],
           physics[i],
           ctx,
-          { loadTorque: f, idleCurrent: 1 },
-          valuedGainPct.get(input.axes[i].machineId),
-        ),
-      );
+          scale,
+          valued === undefined ? undefined : valued * gainFactor,
+        );
+      });
+    }
+    if (factors.throughputGain !== undefined) {
+      const { machines, total } = throughputOf(input, totals.machineStats, gainFactor);
+      totals = { ...totals, machines, throughputPerYear: total };
     }
     if (factors.hoursPerYear !== undefined) totals = withHoursScaled(totals, factors.hoursPerYear);
+    if (factors.laborRate !== undefined) {
+      laborTotal ??= sumShared(money.map((m) => m.laborHoursTotal)).times(laborRate);
+      const change = factors.laborRate.minus(ONE);
+      capexAt = capexAt.plus(laborTotal.times(change));
+      // §8: the labor rate also prices the restart labour of each step-loss event.
+      totals = {
+        ...totals,
+        reliabilityPerYear: totals.reliabilityPerYear.plus(
+          totals.reliabilityLaborPerYear.times(change),
+        ),
+        reliabilityLaborPerYear: totals.reliabilityLaborPerYear.times(factors.laborRate),
+      };
+    }
     if (factors.stepLossEvents !== undefined)
       totals = {
         ...totals,
         reliabilityPerYear: totals.reliabilityPerYear.times(factors.stepLossEvents),
+        reliabilityLaborPerYear: totals.reliabilityLaborPerYear.times(factors.stepLossEvents),
       };
     if (factors.kitPrice !== undefined) {
       kitTotal ??= sumShared(money.map((m) => m.kitTotal));
       capexAt = capexAt.plus(kitTotal.times(factors.kitPrice.minus(ONE)));
     }
-    if (factors.laborRate !== undefined) {
-      laborTotal ??= sumShared(money.map((m) => m.laborHoursTotal)).times(laborRate);
-      capexAt = capexAt.plus(laborTotal.times(factors.laborRate.minus(ONE)));
-    }
     if (factors.discountRate !== undefined)
       rate = new Money(finance.discountRatePct).times(factors.discountRate).div(HUNDRED);
-    const flows = flowsFor(totals, totals.energySavedKWh + totals.coolingSavedKWh, {
+    const terms = termsFor(totals, totals.energySavedKWh, totals.coolingSavedKWh, {
       tariff: factors.tariff === undefined ? tariff : tariff.times(factors.tariff),
       capex: capexAt,
     });
+    return { terms, rate };
+  };
+
+  const at = (factors: DriverFactors): DriverOutcome => {
+    const { terms, rate } = termsAt(factors);
+    const { flows } = cashFlowSeries(terms);
     return {
       flows,
-      capex: capexAt,
+      capex: terms.capex,
       rate,
       npv: npv(rate, flows),
-      paybackYears: paybackYears(flows, capexAt),
+      paybackYears: paybackYears(flows, terms.capex),
     };
   };
 
-  return { input, ctx, physics, money, base, capex, maintenance, tariff, flowsFor, at };
+  return {
+    input,
+    ctx,
+    physics,
+    money,
+    base,
+    capex,
+    maintenance,
+    tariff,
+    termsFor,
+    termsAt,
+    at,
+  };
 }
 
 /**

@@ -1,6 +1,7 @@
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { axisBandText } from "./band";
 import { namesById } from "./case-view";
+import { holdingView, type HoldingView } from "./engine-v2";
 import { loopStatus, type LoopStatusView } from "./status";
 import { explainAnyWarning, type ExplainedWarning } from "./warnings";
 
@@ -20,11 +21,14 @@ export interface AxisRow {
   energyPct: number | null;
   bandText: string;
   tempDropK: number | null;
+  /** Null for results of engine 1.0.0, which did not compute it. */
+  holding: HoldingView | null;
   warnings: ExplainedWarning[];
 }
 
 export function axisRows(result: CaseResult, input: ParsedCase | null): AxisRow[] {
   const names = namesById(input);
+  const enteredHold = new Map(input?.axes.map((a) => [a.id, a.duty.holdTorqueNm]) ?? []);
   return result.axes.map((axis) => ({
     axisId: axis.id,
     label: names.axis(axis.id),
@@ -39,6 +43,7 @@ export function axisRows(result: CaseResult, input: ParsedCase | null): AxisRow[
     energyPct: axis.savings.energyPct,
     bandText: axisBandText(axis.savings.band),
     tempDropK: axis.savings.tempDropK,
+    holding: holdingView(axis, enteredHold.get(axis.id) ?? null),
     warnings: axis.warnings.map(explainAnyWarning),
   }));
 }

@@ -10,6 +10,8 @@ export const DRIVER_LABELS: Record<SensitivityDriver, string> = {
   laborRate: "Labour rate",
   stepLossEvents: "Lost-step events per year",
   discountRate: "Discount rate",
+  throughputGain: "Throughput gain of every machine",
+  idleCurrent: "Idle current at standstill",
 };
 
 export interface TornadoRow {

@@ -45,10 +45,16 @@ function lastUsefulRpm(curve: CurvePoint[]): number {
  * operating point (speed while moving, peak torque). The speed axis is cut where both curves
  * have fallen to nothing, so that 6000 rpm of zeros does not squash the part that matters.
  */
-export function torqueSpeedView(axis: ParsedAxis, margins: ParsedMargins): TorqueSpeedView {
+export function torqueSpeedView(
+  axis: ParsedAxis,
+  margins: ParsedMargins,
+  // An axis sized from its mechanism (ENGINE.md §3a) has its speed and peak in the result only.
+  derived?: { speedRpm: number; peakTorqueNm: number } | null,
+): TorqueSpeedView {
   const openFull = torqueSpeedCurve(axis, "open", SAMPLES);
   const closedFull = torqueSpeedCurve(axis, "closed", SAMPLES);
-  const speedRpm = axis.duty.speedRpm;
+  const speedRpm = derived?.speedRpm ?? axis.duty.speedRpm ?? 0;
+  const peakTorqueNm = derived?.peakTorqueNm ?? axis.duty.peakTorqueNm ?? 0;
   const wanted = Math.max(
     lastUsefulRpm(openFull),
     lastUsefulRpm(closedFull),
@@ -68,7 +74,7 @@ export function torqueSpeedView(axis: ParsedAxis, margins: ParsedMargins): Torqu
     closed,
     openUsable: usable(open, margins.openLoopRequiredPct),
     closedUsable: usable(closed, margins.closedLoopRequiredPct),
-    operatingPoint: { speedRpm, peakTorqueNm: axis.duty.peakTorqueNm },
+    operatingPoint: { speedRpm, peakTorqueNm },
     openRequiredPct: margins.openLoopRequiredPct,
     closedRequiredPct: margins.closedLoopRequiredPct,
     maxRpm,

@@ -27,8 +27,47 @@ export const WARNING_SENTENCES: Record<WarningCode, string> = {
   CURRENT_ABOVE_RATING:
     "Today's drive setting heats the winding more than the motor's rated current would.",
   HOLDING_LOAD: "This axis holds a load at standstill, as a vertical or tensioned axis does.",
+  OL_HOLD_SLIPS:
+    "At standstill today's drive, reduced to its idle current, holds less torque than the load pulls with, so the axis can creep or drop while it waits.",
+  SENSORLESS_LOW_SPEED:
+    "The axis moves slower than the lowest speed at which the sensorless kit can estimate the rotor position, so it runs open loop in effect and no lost steps count as avoided.",
+  SENSORLESS_HOLDING_LOAD:
+    "A sensorless kit has no position signal at standstill, so it cannot notice this axis's load slipping while it holds.",
+  INERTIA_RATIO_HIGH:
+    "The load's inertia seen at the motor exceeds the ratio to the rotor's own inertia that open-loop steppers handle well, so moves may ring or stall.",
+  MOTOR_INERTIA_UNKNOWN:
+    "The rotor inertia is not given, so the torque that accelerates the rotor itself is missing from the peak torque and no inertia ratio can be stated.",
   THROUGHPUT_CAPPED:
     "The throughput gain of this machine is limited to the speed headroom its axes actually have.",
+};
+
+/** What to do about each warning, one short instruction, shown under its sentence. */
+export const WARNING_ADVICE: Record<WarningCode, string> = {
+  OL_THERMAL_RUNAWAY:
+    "Check today's current setting and the duty figures; measure the housing temperature on site before quoting.",
+  CL_THERMAL_RUNAWAY: "Choose a kit or motor with more thermal reserve, or check the duty figures.",
+  OL_WINDING_OVER_CLASS:
+    "Measure the housing temperature on site; the retrofit helps only if the closed-loop figure is within class.",
+  CL_WINDING_OVER_CLASS: "Choose a larger kit or motor, or lower the load or the duty.",
+  SPEED_BEYOND_CURVE:
+    "Extend the pull-out curve to the operating speed from the motor's datasheet.",
+  CL_KIT_UNDERSIZED: "Pick a kit with more current or a higher bus voltage for this axis.",
+  SAVING_OUTSIDE_BAND:
+    "Check the axis's speed, load torque and move and hold shares before quoting the claimed band.",
+  CURRENT_ABOVE_RATING: "Check the drive's current setting against the motor's rated current.",
+  HOLDING_LOAD:
+    "Plan the brake and the safe stop, and what the axis does when the closed-loop drive faults.",
+  OL_HOLD_SLIPS:
+    "Check the idle-current setting and the brake now; the closed loop holds with the current the load needs, but the brake stays.",
+  SENSORLESS_LOW_SPEED:
+    "Use a kit with an encoder on this axis, or check whether the move can run above the kit's minimum speed.",
+  SENSORLESS_HOLDING_LOAD:
+    "Use a kit with an encoder on axes that hold a load, and keep the brake and safe-stop concept.",
+  INERTIA_RATIO_HIGH:
+    "Consider a gear reduction or a motor with more rotor inertia, and check the tuning at commissioning.",
+  MOTOR_INERTIA_UNKNOWN: "Enter the rotor inertia from the motor's datasheet.",
+  THROUGHPUT_CAPPED:
+    "Lower the machine's throughput gain to what its axes can run, or give its slowest axis more headroom.",
 };
 
 /** The cautions of the product brief that belong to a warning, shown beside it. */
@@ -51,9 +90,16 @@ const HOT_CODES: ReadonlySet<WarningCode> = new Set([
   "CL_WINDING_OVER_CLASS",
 ]);
 
+// Warnings about a load at standstill: each carries the brake and safe-stop caution.
+const HOLDING_CODES: ReadonlySet<WarningCode> = new Set([
+  "HOLDING_LOAD",
+  "OL_HOLD_SLIPS",
+  "SENSORLESS_HOLDING_LOAD",
+]);
+
 /** The caution a warning carries, or null when it needs none beyond the general ones. */
 export function warningCaution(code: WarningCode): string | null {
-  if (code === "HOLDING_LOAD") return CAUTIONS.holdingLoad;
+  if (HOLDING_CODES.has(code)) return CAUTIONS.holdingLoad;
   if (HOT_CODES.has(code)) return `${CAUTIONS.hotWinding} ${CAUTIONS.estimates}`;
   return null;
 }
@@ -61,6 +107,8 @@ export function warningCaution(code: WarningCode): string | null {
 export interface ExplainedWarning {
   code: WarningCode;
   sentence: string;
+  /** What to do about it. */
+  advice: string;
   caution: string | null;
   /** Whether the warning is about safety (shown in the danger tone) or about the figures. */
   safety: boolean;
@@ -68,7 +116,13 @@ export interface ExplainedWarning {
 
 export function explainWarning(code: WarningCode): ExplainedWarning {
   const caution = warningCaution(code);
-  return { code, sentence: WARNING_SENTENCES[code], caution, safety: caution !== null };
+  return {
+    code,
+    sentence: WARNING_SENTENCES[code],
+    advice: WARNING_ADVICE[code],
+    caution,
+    safety: caution !== null,
+  };
 }
 
 /** A code the engine may add later still reads as a sentence instead of a raw code. */
@@ -78,6 +132,7 @@ export function explainAnyWarning(code: string): ExplainedWarning {
   return {
     code: code as WarningCode,
     sentence: "The engine flagged this axis; see the workbook for details.",
+    advice: "Ask the application engineer who prepared the case.",
     caution: null,
     safety: false,
   };
@@ -102,7 +157,8 @@ export function caseCautions(
   const holding: string[] = [];
   const hot: string[] = [];
   for (const axis of result.axes) {
-    if (axis.warnings.includes("HOLDING_LOAD")) holding.push(axisLabel(axis.id));
+    if (axis.warnings.some((w) => HOLDING_CODES.has(w as WarningCode)))
+      holding.push(axisLabel(axis.id));
     if (axis.warnings.some((w) => HOT_CODES.has(w as WarningCode))) hot.push(axisLabel(axis.id));
   }
   const cautions: CaseCaution[] = [

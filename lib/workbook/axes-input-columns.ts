@@ -1,7 +1,21 @@
-import type { ParsedMotor } from "@/lib/engine";
-import { money, type AxisColumn } from "./axis-column";
+import type { MotionResult, ParsedMotor } from "@/lib/engine";
+import { eventCostValue, money, type AxisColumn, type AxisRowContext } from "./axis-column";
 import { FORMATS } from "./formats";
+import { NAME } from "./layout";
 import { safeText } from "./safe-text";
+
+type DutyFigure =
+  "movePct" | "holdPct" | "speedRpm" | "loadTorqueNm" | "peakTorqueNm" | "holdTorqueNm";
+
+/**
+ * A duty figure as the engine used it: with a mechanism and move profile (docs/model.md §3a) the
+ * figures it derived (the result's motion block), else the duty as typed. A result stored by
+ * engine v1 has no motion block.
+ */
+function dutyFigure(r: AxisRowContext, figure: DutyFigure): number {
+  const motion = (r.result as { motion?: MotionResult | null }).motion;
+  return motion ? motion[figure] : (r.axis.duty[figure] ?? 0);
+}
 
 function motorSummary(motor: ParsedMotor | undefined): string {
   if (!motor) return "keeps the axis motor";
@@ -204,7 +218,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     header: "Moving (%)",
     width: 8,
     format: FORMATS.pct,
-    value: (r) => r.axis.duty.movePct,
+    value: (r) => dutyFigure(r, "movePct"),
   },
   {
     key: "hold",
@@ -212,7 +226,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     header: "Holding (%)",
     width: 8,
     format: FORMATS.pct,
-    value: (r) => r.axis.duty.holdPct,
+    value: (r) => dutyFigure(r, "holdPct"),
   },
   {
     key: "rpm",
@@ -220,7 +234,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     header: "Speed (rpm)",
     width: 9,
     format: FORMATS.pct,
-    value: (r) => r.axis.duty.speedRpm,
+    value: (r) => dutyFigure(r, "speedRpm"),
   },
   {
     key: "load",
@@ -228,7 +242,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     header: "Load torque, RMS (N·m)",
     width: 10,
     format: FORMATS.physics,
-    value: (r) => r.axis.duty.loadTorqueNm,
+    value: (r) => dutyFigure(r, "loadTorqueNm"),
   },
   {
     key: "peak",
@@ -236,7 +250,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     header: "Peak torque (N·m)",
     width: 10,
     format: FORMATS.physics,
-    value: (r) => r.axis.duty.peakTorqueNm,
+    value: (r) => dutyFigure(r, "peakTorqueNm"),
   },
   {
     key: "holdTorque",
@@ -244,7 +258,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     header: "Holding load (N·m)",
     width: 10,
     format: FORMATS.physics,
-    value: (r) => r.axis.duty.holdTorqueNm,
+    value: (r) => dutyFigure(r, "holdTorqueNm"),
   },
   {
     key: "ambient",
@@ -264,12 +278,56 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     value: (r) => r.axis.reliability.stepLossEventsPerYear,
   },
   {
-    key: "eventCost",
+    key: "eventCostGiven",
     group: "Reliability",
-    header: "Cost per event",
+    header: "Cost per event, as given",
     width: 13,
     format: "currency",
-    value: (r) => money(r.axis.reliability.costPerEvent),
+    value: (r) => money(r.axis.reliability.costPerEvent ?? "0"),
+  },
+  // docs/model.md §8: or the cost built from what one event causes (not both).
+  {
+    key: "eventDowntime",
+    group: "Reliability",
+    header: "Event: downtime (min)",
+    width: 10,
+    format: FORMATS.pct2,
+    value: (r) => r.axis.reliability.event?.downtimeMinutes ?? 0,
+  },
+  {
+    key: "eventScrapParts",
+    group: "Reliability",
+    header: "Event: scrapped parts",
+    width: 10,
+    format: FORMATS.pct2,
+    value: (r) => r.axis.reliability.event?.scrapParts ?? 0,
+  },
+  {
+    key: "eventScrapCost",
+    group: "Reliability",
+    header: "Event: cost per scrapped part",
+    width: 12,
+    format: "currency",
+    value: (r) => money(r.axis.reliability.event?.scrapCostPerPart ?? "0"),
+  },
+  {
+    key: "eventRestartHours",
+    group: "Reliability",
+    header: "Event: restart labour (h)",
+    width: 10,
+    format: FORMATS.pct2,
+    value: (r) => r.axis.reliability.event?.restartLaborHours ?? 0,
+  },
+  {
+    key: "eventCost",
+    group: "Reliability",
+    header: "Cost of one event (formula)",
+    width: 13,
+    format: "currency",
+    value: (r) => ({
+      formula: `${r.cell("eventCostGiven")}+${r.cell("eventDowntime")}/60*${NAME.downtimeCost}+${r.cell("eventScrapParts")}*${r.cell("eventScrapCost")}+${r.cell("eventRestartHours")}*${NAME.laborRate}`,
+      result: eventCostValue(r),
+    }),
   },
   {
     key: "avoided",

@@ -1,4 +1,4 @@
-import { UNDERSIZED, money, type AxisColumn } from "./axis-column";
+import { avoidsEvents, eventCostValue, money, type AxisColumn } from "./axis-column";
 import { FORMATS } from "./formats";
 import { NAME } from "./layout";
 
@@ -71,7 +71,7 @@ export const AXIS_MONEY_COLUMNS: readonly AxisColumn[] = [
       result: r.result.totals.coolingSavedKWhPerYear,
     }),
   },
-  // §8: reliability counts only axes whose closed-loop status is not "undersized".
+  // §8: reliability counts only the axes that avoid events (the "Avoids step-loss events" column).
   {
     key: "reliability",
     group: "Money and totals (formulas)",
@@ -79,15 +79,14 @@ export const AXIS_MONEY_COLUMNS: readonly AxisColumn[] = [
     width: 13,
     format: "currency",
     value: (r) => ({
-      formula: `IF(${r.cell("clStatus")}="${UNDERSIZED}",0,${r.cell("qty")}*${r.cell("events")}*${r.cell("avoided")}/100*${r.cell("eventCost")})`,
-      result:
-        r.result.closedLoop.status === UNDERSIZED
-          ? 0
-          : (r.axis.quantity *
-              r.axis.reliability.stepLossEventsPerYear *
-              r.axis.reliability.avoidedPct *
-              money(r.axis.reliability.costPerEvent)) /
-            100,
+      formula: `IF(${r.cell("avoidsEvents")}="no",0,${r.cell("qty")}*${r.cell("events")}*${r.cell("avoided")}/100*${r.cell("eventCost")})`,
+      result: avoidsEvents(r.result)
+        ? (r.axis.quantity *
+            r.axis.reliability.stepLossEventsPerYear *
+            r.axis.reliability.avoidedPct *
+            eventCostValue(r)) /
+          100
+        : 0,
     }),
   },
   {

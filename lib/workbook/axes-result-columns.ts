@@ -1,4 +1,4 @@
-import { orNull, type AxisColumn } from "./axis-column";
+import { avoidsEvents, orNull, type AxisColumn } from "./axis-column";
 import { FORMATS } from "./formats";
 import { safeText } from "./safe-text";
 import { axisWarningText } from "./warning-text";
@@ -251,6 +251,13 @@ export const AXIS_RESULT_COLUMNS: readonly AxisColumn[] = [
     width: 10,
     format: FORMATS.pct2,
     value: (r) => r.result.savings.stepLossEventsAvoided,
+  },
+  {
+    key: "avoidsEvents",
+    group: "Gains, one unit",
+    header: "Avoids step-loss events (kit not undersized, not sensorless below its minimum speed)",
+    width: 12,
+    value: (r) => (avoidsEvents(r.result) ? "yes" : "no"),
   },
   {
     key: "warnings",

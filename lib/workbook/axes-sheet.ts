@@ -51,6 +51,7 @@ export function writeAxesSheet(
       axis,
       result: result.axes[i],
       machineName: machineNames.get(axis.machineId) ?? "",
+      finance: input.finance,
       cell: (key: string) => `${axisColumnLetter(key)}${rowNumber}`,
     };
     const row = sheet.addRow(AXIS_COLUMNS.map((c) => c.value(context)));

@@ -1,15 +1,23 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { VALUE_SOURCES, type ValueSource } from "@/lib/engine";
 import {
   BEYOND_HORIZON,
   NOT_APPLICABLE,
+  NO_BREAK_EVEN,
   NO_RATE_FOUND,
   NO_SIGN_CHANGE,
+  breakEvenSlopes,
+  breakEvenValues,
+  coolingOpenLoop,
   irrGuess,
   irrValue,
+  paybackStatusValue,
   paybackValue,
   roiValue,
+  sourceValues,
   tariffInYear,
+  yearFactors,
   yearValues,
 } from "./cash-flow-values";
 import {
@@ -31,6 +39,8 @@ import {
   columnLetter,
   defineName,
   scenarioName,
+  sourceRow,
+  sourceYearColumn,
   yearRow,
   type AxesRanges,
   type MachineRanges,
@@ -53,10 +63,14 @@ const last = yearRow(MAX_HORIZON_YEARS);
 /** Σ over a range, or 0 when the table it sums is empty. */
 const sumOf = (range: string | null): string => (range === null ? "0" : `SUM(${range})`);
 
+export { coolingOpenLoop };
+
 /**
- * The three scenarios of ENGINE.md §8 with live formulas. Years run down the rows, t = 0..30;
- * years beyond Horizon_Years count 0, so the horizon can be changed in the file. CF_0 = −Capex;
- * CF_t = saving·tariff·(1 + escalation)^(t−1) + reliability + maintenance + throughput − service.
+ * The three scenarios of docs/model.md §8 with live formulas. Years run down the rows,
+ * t = 0..30; years beyond Horizon_Years count 0, so the horizon can be changed in the file.
+ * CF_0 = −Capex; CF_t is the sum of its value by source (the block below the terms): energy and
+ * cooling at the escalated tariff, reliability, maintenance and throughput less service at the
+ * inflated price, and tax on the flow less straight-line depreciation.
  */
 export function writeCashFlowSheet(
   workbook: ExcelJS.Workbook,
@@ -108,7 +122,9 @@ export function writeCashFlowSheet(
   }
   for (const scenario of SCENARIOS) writeScenario(sheet, input, result, scenario, currency);
   writeResults(workbook, sheet, input, result, currency);
+  writeBreakEven(workbook, sheet, input, result);
   writeTerms(workbook, sheet, input, result, axes, machines, currency);
+  writeSources(sheet, input, result, currency);
 }
 
 function writeScenario(
@@ -128,7 +144,7 @@ function writeScenario(
     col("payback"),
     col("discountedPayback"),
   ];
-  const saving = `${scenarioName("Saving", scenario)}_kWh`;
+  const sumRow = sourceRow(scenario, "sum");
 
   for (let t = 0; t <= MAX_HORIZON_YEARS; t++) {
     const r = yearRow(t);
@@ -148,7 +164,8 @@ function writeScenario(
       continue;
     }
     const inHorizon = `$A${r}<=${NAME.horizon}`;
-    set(flow, `IF(${inHorizon},${saving}*$B${r}+${NAME.recurring},0)`, v.flow, currency);
+    // The sum of the year's value by source (the block below): they add up to it by construction.
+    set(flow, `IF(${inHorizon},${sourceYearColumn(t)}${sumRow},0)`, v.flow, currency);
     set(cum, `${cum}${p}+${flow}${r}`, v.cumulative, currency);
     set(disc, `${flow}${r}/(1+${NAME.discountRate}/100)^$A${r}`, v.discounted, currency);
     set(discCum, `${discCum}${p}+${disc}${r}`, v.discountedCumulative, currency);
@@ -176,6 +193,7 @@ const RESULT_LABELS: Record<keyof typeof results, string> = {
   discountedPayback: "Payback, discounted (years)",
   roi: "ROI over the horizon (%)",
   irrGuess: "IRR search starts at (lower bound of the IRR)",
+  paybackStatus: "Payback status (reached, beyond-horizon, never)",
 };
 
 function writeResults(
@@ -278,6 +296,14 @@ function writeResults(
       paybackValue(s.discountedPaybackYears),
       FORMATS.years,
     );
+    // §8: "reached" with a simple payback; else "beyond-horizon" while the last flow is > 0.
+    put(
+      results.paybackStatus,
+      scenarioName("PaybackStatus", scenario),
+      `IF(ISNUMBER(${flow}${results.payback}),"reached",IF(INDEX(${flows},${NAME.horizon}+1)>0,"beyond-horizon","never"))`,
+      paybackStatusValue(s),
+      "@",
+    );
     // §8: ROI % = 100·(Σ_(t≥1) CF_t + CF_0)/Capex.
     put(
       results.roi,
@@ -289,13 +315,71 @@ function writeResults(
   }
 }
 
-/** Today's cabinet cooling energy of the fleet: the band scenarios take their fraction of it. */
-export function coolingOpenLoop(result: CaseResult, input: ParsedCase): number {
-  let total = 0;
-  result.axes.forEach(
-    (axis, i) => (total += input.axes[i].quantity * axis.openLoop.coolingKWhPerYear),
-  );
-  return total;
+const BREAK_EVEN_LABELS: Record<keyof typeof CASH_FLOW.breakEven, string> = {
+  tariffSlope: "NPV change per 1 of tariff (per kWh), physics",
+  tariff: "Break-even tariff (per kWh): NPV = 0, physics",
+  stepLossSlope: "NPV change per 1 of the step-loss factor, physics",
+  stepLossFactor: "Break-even step-loss factor (× every axis's events): NPV = 0, physics",
+};
+
+/**
+ * docs/model.md §8: the flows are affine in the tariff and in a factor on every axis's events,
+ * so NPV is too, with the slopes (1 − tax)·kWh·Σ escalation_t·discount_t and
+ * (1 − tax)·reliability·Σ inflation_t·discount_t over the shared factor rows. Break-even =
+ * where that line crosses 0; "none" when the slope is ≤ 0 or the answer negative, as the engine.
+ */
+function writeBreakEven(
+  workbook: ExcelJS.Workbook,
+  sheet: ExcelJS.Worksheet,
+  input: ParsedCase,
+  result: CaseResult,
+): void {
+  const { breakEven } = CASH_FLOW;
+  const { sources } = CASH_FLOW;
+  const flow = cashFlowColumn("physics", "flow");
+  const years = (row: number) =>
+    `$${sourceYearColumn(1)}$${row}:$${sourceYearColumn(MAX_HORIZON_YEARS)}$${row}`;
+  const slopes = breakEvenSlopes(input, result);
+  const values = breakEvenValues(input, result);
+  const keep = `(1-${NAME.taxRate}/100)`;
+  const rows: [keyof typeof breakEven, string | null, string, number | string, string][] = [
+    [
+      "tariffSlope",
+      null,
+      `${keep}*(${NAME.energySaved}+${NAME.coolingSaved})*SUMPRODUCT(${years(sources.escalationRow)},${years(sources.discountRow)})`,
+      slopes.tariff,
+      FORMATS.ratio,
+    ],
+    [
+      "tariff",
+      NAME.breakEvenTariff,
+      `IF(${flow}${breakEven.tariffSlope}<=0,"${NO_BREAK_EVEN}",IF(${NAME.tariff}-NPV_Physics/${flow}${breakEven.tariffSlope}<0,"${NO_BREAK_EVEN}",${NAME.tariff}-NPV_Physics/${flow}${breakEven.tariffSlope}))`,
+      values.tariff,
+      tariffFormat(input.currency),
+    ],
+    [
+      "stepLossSlope",
+      null,
+      `${keep}*${NAME.reliability}*SUMPRODUCT(${years(sources.inflationRow)},${years(sources.discountRow)})`,
+      slopes.stepLoss,
+      FORMATS.ratio,
+    ],
+    [
+      "stepLossFactor",
+      NAME.breakEvenStepLoss,
+      `IF(${flow}${breakEven.stepLossSlope}<=0,"${NO_BREAK_EVEN}",IF(1-NPV_Physics/${flow}${breakEven.stepLossSlope}<0,"${NO_BREAK_EVEN}",1-NPV_Physics/${flow}${breakEven.stepLossSlope}))`,
+      values.stepLossFactor,
+      FORMATS.ratio,
+    ],
+  ];
+  for (const [key, name, formula, value, format] of rows) {
+    const row = breakEven[key];
+    sheet.getCell(row, 1).value = BREAK_EVEN_LABELS[key];
+    const cell = sheet.getCell(`${flow}${row}`);
+    cell.value = { formula, result: value };
+    cell.numFmt = format;
+    if (name) defineName(workbook, name, SHEET.cashFlow, { column: flow, row });
+  }
 }
 
 function writeTerms(
@@ -414,7 +498,16 @@ function writeTerms(
         Number(totals.throughputPerYear) -
         Number(input.finance.annualServiceCost),
       format: currency,
-      how: "reliability + maintenance + throughput − service",
+      how: "reliability + maintenance + throughput − service, in year 1 (before inflation)",
+    },
+    {
+      row: terms.depreciation,
+      label: "Depreciation per year, straight line",
+      name: NAME.depreciation,
+      formula: `SLN(${NAME.capex},0,${NAME.depreciationYears})`,
+      value: Number(totals.capex) / input.finance.depreciationYears,
+      format: currency,
+      how: "SLN(Capex, 0, depreciation years): the whole capex, no salvage value, over the depreciation years; none after them",
     },
   ];
   const howColumn = columnLetter(CASH_FLOW.groupStart.physics + 1);
@@ -425,5 +518,132 @@ function writeTerms(
     cell.numFmt = t.format;
     sheet.getCell(`${howColumn}${t.row}`).value = t.how;
     if (t.name) defineName(workbook, t.name, SHEET.cashFlow, { column: termsColumn, row: t.row });
+  }
+}
+
+const SOURCE_LABELS: Record<ValueSource, string> = {
+  energy: "Energy (drives)",
+  cooling: "Cooling",
+  reliability: "Reliability (step losses avoided)",
+  maintenance: "Maintenance",
+  throughput: "Throughput",
+  service: "Service (cost)",
+  tax: "Tax",
+};
+
+/**
+ * Value by source, year by year (docs/model.md §8), so that finance can reconcile every flow:
+ * years 1..30 across, shared factor rows (0 beyond the horizon), then per scenario one row per
+ * source and their sum, which is the scenario's cash flow in the year table above.
+ */
+function writeSources(
+  sheet: ExcelJS.Worksheet,
+  input: ParsedCase,
+  result: CaseResult,
+  currency: string,
+): void {
+  const { sources } = CASH_FLOW;
+  const title = sheet.getCell(sources.titleRow, 1);
+  title.value = "Value by source, year by year (the columns are years 1..30)";
+  styleSection(title);
+  const header = sheet.getRow(sources.headerRow);
+  header.getCell(1).value = "t";
+  const factors = yearFactors(input, Number(result.totals.capex));
+  const hdr = (t: number) => `${sourceYearColumn(t)}$${sources.headerRow}`;
+  const inHorizon = (t: number) => `${hdr(t)}<=${NAME.horizon}`;
+  const shared: [number, string, (t: number) => string, number[], string][] = [
+    [
+      sources.escalationRow,
+      "Tariff escalation factor (1 + escalation)^(t−1)",
+      (t) => `IF(${inHorizon(t)},(1+${NAME.escalation}/100)^(${hdr(t)}-1),0)`,
+      factors.escalation,
+      FORMATS.ratio,
+    ],
+    [
+      sources.inflationRow,
+      "Inflation factor (1 + inflation)^(t−1)",
+      (t) => `IF(${inHorizon(t)},(1+${NAME.inflation}/100)^(${hdr(t)}-1),0)`,
+      factors.inflation,
+      FORMATS.ratio,
+    ],
+    [
+      sources.discountRow,
+      "Discount factor 1/(1 + rate)^t",
+      (t) => `1/(1+${NAME.discountRate}/100)^${hdr(t)}`,
+      factors.discount,
+      FORMATS.ratio,
+    ],
+    [
+      sources.depreciationRow,
+      "Depreciation (straight line)",
+      (t) => `IF(AND(${inHorizon(t)},${hdr(t)}<=${NAME.depreciationYears}),${NAME.depreciation},0)`,
+      factors.depreciation,
+      currency,
+    ],
+  ];
+  for (let t = 1; t <= MAX_HORIZON_YEARS; t++) {
+    header.getCell(sourceYearColumn(t)).value = t;
+    for (const [row, label, formula, values, format] of shared) {
+      sheet.getCell(row, 1).value = label;
+      const cell = sheet.getCell(`${sourceYearColumn(t)}${row}`);
+      cell.value = { formula: formula(t), result: values[t - 1] };
+      cell.numFmt = format;
+    }
+  }
+  styleHeader(header);
+
+  for (const scenario of SCENARIOS) {
+    const start = sources.blockStart[scenario];
+    const blockTitle = sheet.getCell(start, 1);
+    blockTitle.value = SCENARIO_TITLE[scenario];
+    blockTitle.font = { bold: true };
+    const values = sourceValues(input, result, scenario);
+    // §8: physics counts the energy saved; a band scenario its fraction of today's energy.
+    const share =
+      scenario === "physics" ? "" : `${scenario === "bandLow" ? NAME.bandLow : NAME.bandHigh}/100*`;
+    const energyKWh = scenario === "physics" ? NAME.energySaved : `${share}${NAME.energyOpenLoop}`;
+    const coolingKWh =
+      scenario === "physics" ? NAME.coolingSaved : `${share}${NAME.coolingOpenLoop}`;
+    const esc = (t: number) => `${sourceYearColumn(t)}$${sources.escalationRow}`;
+    const infl = (t: number) => `${sourceYearColumn(t)}$${sources.inflationRow}`;
+    const first = sourceRow(scenario, "energy");
+    const lastBeforeTax = sourceRow(scenario, "service");
+    const formulas: Record<ValueSource, (t: number) => string> = {
+      energy: (t) => `${energyKWh}*${NAME.tariff}*${esc(t)}`,
+      cooling: (t) => `${coolingKWh}*${NAME.tariff}*${esc(t)}`,
+      reliability: (t) => `${NAME.reliability}*${infl(t)}`,
+      maintenance: (t) => `${NAME.maintenance}*${infl(t)}`,
+      throughput: (t) => `${NAME.throughput}*${infl(t)}`,
+      service: (t) => `-${NAME.serviceCost}*${infl(t)}`,
+      // §8: tax on the flow before tax less the year's depreciation; negative is a shield.
+      tax: (t) => {
+        const c = sourceYearColumn(t);
+        return `IF(${inHorizon(t)},-${NAME.taxRate}/100*(SUM(${c}${first}:${c}${lastBeforeTax})-${c}$${sources.depreciationRow}),0)`;
+      },
+    };
+    for (const source of VALUE_SOURCES)
+      sheet.getCell(sourceRow(scenario, source), 1).value = SOURCE_LABELS[source];
+    const sumRow = sourceRow(scenario, "sum");
+    sheet.getCell(sumRow, 1).value = "Cash flow (sum of the sources)";
+    sheet.getCell(sumRow, 1).font = { bold: true };
+    for (let t = 1; t <= MAX_HORIZON_YEARS; t++) {
+      const c = sourceYearColumn(t);
+      let total = 0;
+      for (const source of VALUE_SOURCES) {
+        const cell = sheet.getCell(`${c}${sourceRow(scenario, source)}`);
+        const value = values[source][t - 1];
+        total += value;
+        cell.value = { formula: formulas[source](t), result: value };
+        cell.numFmt = currency;
+      }
+      const sum = sheet.getCell(`${c}${sumRow}`);
+      sum.value = {
+        formula: `SUM(${c}${first}:${c}${sourceRow(scenario, "tax")})`,
+        result:
+          t <= input.finance.horizonYears ? Number(result.scenarios[scenario].cashFlows[t]) : total,
+      };
+      sum.numFmt = currency;
+      sum.font = { bold: true };
+    }
   }
 }

@@ -1,4 +1,5 @@
 import type ExcelJS from "exceljs";
+import { VALUE_SOURCES, type ValueSource } from "@/lib/engine";
 
 /**
  * Where each sheet puts what the others read. The Cash flow sheet has a fixed shape (31 year
@@ -85,21 +86,45 @@ export const CASH_FLOW = {
     discountedPayback: 40,
     roi: 41,
     irrGuess: 42,
+    paybackStatus: 43,
   },
-  termsTitleRow: 44,
+  /** Break-even values of the physics scenario (docs/model.md §8), in its flow column. */
+  breakEven: {
+    tariffSlope: 44,
+    tariff: 45,
+    stepLossSlope: 46,
+    stepLossFactor: 47,
+  },
+  termsTitleRow: 49,
   /** The yearly terms are one column: C. */
   termsColumn: "C",
   terms: {
-    capex: 45,
-    energySaved: 46,
-    coolingSaved: 47,
-    energyOpenLoop: 48,
-    coolingOpenLoop: 49,
-    reliability: 50,
-    maintenance: 51,
-    throughput: 52,
-    service: 53,
-    recurring: 54,
+    capex: 50,
+    energySaved: 51,
+    coolingSaved: 52,
+    energyOpenLoop: 53,
+    coolingOpenLoop: 54,
+    reliability: 55,
+    maintenance: 56,
+    throughput: 57,
+    service: 58,
+    recurring: 59,
+    depreciation: 60,
+  },
+  /**
+   * Value by source, year by year (docs/model.md §8): one row per source, years 1..30 across
+   * the columns from C, under shared factor rows; each scenario's sum row is its cash flow.
+   */
+  sources: {
+    titleRow: 62,
+    headerRow: 63,
+    escalationRow: 64,
+    inflationRow: 65,
+    discountRow: 66,
+    depreciationRow: 67,
+    /** Title row of each scenario's block; its seven sources follow, then the sum row. */
+    blockStart: { physics: 69, bandLow: 79, bandHigh: 89 } satisfies Record<ScenarioKey, number>,
+    firstYearColumn: 3,
   },
 } as const;
 
@@ -108,6 +133,18 @@ export function cashFlowColumn(scenario: ScenarioKey, part: keyof typeof CASH_FL
 }
 
 export const yearRow = (t: number): number => CASH_FLOW.firstYearRow + t;
+
+/** Column of year t (1..30) in the value-by-source block. */
+export const sourceYearColumn = (t: number): string =>
+  columnLetter(CASH_FLOW.sources.firstYearColumn + t - 1);
+
+/** Row of one source of a scenario in the value-by-source block; "sum" is its cash flow. */
+export function sourceRow(scenario: ScenarioKey, source: ValueSource | "sum"): number {
+  const start = CASH_FLOW.sources.blockStart[scenario];
+  return source === "sum"
+    ? start + 1 + VALUE_SOURCES.length
+    : start + 1 + VALUE_SOURCES.indexOf(source);
+}
 
 /** Scenario part of the defined names: NPV_Physics, NPV_BandLow, NPV_BandHigh. */
 export const SCENARIO_NAME: Record<ScenarioKey, string> = {
@@ -147,6 +184,12 @@ export const NAME = {
   gridFactor: "GridFactor_kgPerKWh",
   bandLow: "BandLow_Pct",
   bandHigh: "BandHigh_Pct",
+  inflation: "Inflation_Pct",
+  taxRate: "TaxRate_Pct",
+  depreciationYears: "Depreciation_Years",
+  depreciation: "Depreciation_PerYear",
+  breakEvenTariff: "BreakEven_Tariff",
+  breakEvenStepLoss: "BreakEven_StepLossFactor",
 } as const;
 
 export const scenarioName = (figure: string, scenario: ScenarioKey): string =>

@@ -1,8 +1,15 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
-import { NOT_APPLICABLE, irrValue, paybackValue, roiValue } from "./cash-flow-values";
+import {
+  NOT_APPLICABLE,
+  breakEvenValues,
+  irrValue,
+  paybackStatusValue,
+  paybackValue,
+  roiValue,
+} from "./cash-flow-values";
 import { coolingOpenLoop } from "./cash-flow-sheet";
-import { FORMATS, currencyFormat, styleHeader, styleTitle } from "./formats";
+import { FORMATS, currencyFormat, styleHeader, styleTitle, tariffFormat } from "./formats";
 import {
   NAME,
   SCENARIOS,
@@ -132,6 +139,13 @@ export function writeSummarySheet(
       value: (s) => paybackValue(scenarios[s].discountedPaybackYears),
     },
     {
+      label: "Payback status",
+      unit: "reached, beyond-horizon or never",
+      format: "@",
+      formula: (s) => scenarioName("PaybackStatus", s),
+      value: (s) => paybackStatusValue(scenarios[s]),
+    },
+    {
       label: "ROI over the horizon",
       unit: "%",
       format: FORMATS.pct2,
@@ -153,8 +167,31 @@ export function writeSummarySheet(
     sheet.getCell(row, 5).value = f.unit;
   });
 
-  writeBandPosition(sheet, input, result, SUMMARY_TABLE_HEADER_ROW + figures.length + 2);
-  sheet.getCell(SUMMARY_TABLE_HEADER_ROW + figures.length + 7, 1).value =
+  const bandTop = SUMMARY_TABLE_HEADER_ROW + figures.length + 2;
+  writeBandPosition(sheet, input, result, bandTop);
+  // docs/model.md §8: where the physics scenario's NPV crosses 0.
+  const breakEven = breakEvenValues(input, result);
+  const breakEvenRows: [string, string, number | string, string][] = [
+    [
+      "Break-even tariff, physics (NPV = 0)",
+      NAME.breakEvenTariff,
+      breakEven.tariff,
+      tariffFormat(input.currency),
+    ],
+    [
+      "Break-even step-loss factor, physics (× every axis's events)",
+      NAME.breakEvenStepLoss,
+      breakEven.stepLossFactor,
+      FORMATS.ratio,
+    ],
+  ];
+  breakEvenRows.forEach(([label, formula, value, format], i) => {
+    sheet.getCell(bandTop + 5 + i, 1).value = label;
+    const cell = sheet.getCell(bandTop + 5 + i, 2);
+    cell.value = { formula, result: value };
+    cell.numFmt = format;
+  });
+  sheet.getCell(bandTop + 8, 1).value =
     "Savings and payback are estimates from the stated assumptions (Assumptions sheet); read the Cautions sheet.";
 }
 

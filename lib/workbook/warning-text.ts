@@ -32,6 +32,16 @@ export function axisWarningText(
       return "Today's current setting dissipates more than the motor's rating at 20 °C.";
     case "HOLDING_LOAD":
       return "The axis holds a load at standstill (vertical or tensioned): see the Cautions sheet.";
+    case "OL_HOLD_SLIPS":
+      return `Open loop today: the idle current holds ${axis.openLoop.holdingCapabilityNm?.toFixed(3) ?? "less than"} N·m at standstill, less than the holding load.`;
+    case "SENSORLESS_LOW_SPEED":
+      return "The sensorless kit runs below its minimum speed: it works open loop in effect and its step-loss savings are not counted.";
+    case "SENSORLESS_HOLDING_LOAD":
+      return "A sensorless kit cannot see the axis drop at standstill while it holds a load: see the Cautions sheet.";
+    case "INERTIA_RATIO_HIGH":
+      return "The load inertia reflected to the motor is high against the rotor's (above the axis's limit).";
+    case "MOTOR_INERTIA_UNKNOWN":
+      return "The rotor inertia is not given: the peak torque leaves out the rotor's own acceleration.";
   }
 }
 

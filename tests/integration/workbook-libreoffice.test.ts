@@ -6,9 +6,11 @@ import {
   caseInputSchema,
   evaluateCase,
   evaluateParsedCase,
+  VALUE_SOURCES,
   type CaseResult,
   type Scenario,
 } from "@/lib/engine";
+import { asStoredV1Result } from "@/tests/support/stored-v1-result";
 import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
 import { caller } from "../support/callers";
@@ -109,8 +111,102 @@ function expectEngineFigures(calc: ExcelJS.Workbook, result: CaseResult): Record
     close(`Payback_${suffix}`, s.paybackYears, BEYOND_HORIZON);
     close(`DiscountedPayback_${suffix}`, s.discountedPaybackYears, BEYOND_HORIZON);
     close(`ROI_${suffix}`, s.roiPct, "n/a");
+    // Engine v2 (docs/model.md §8); a stored v1 result has no payback status of its own.
+    if (s.paybackStatus !== undefined)
+      expect(value(`PaybackStatus_${suffix}`)).toBe(s.paybackStatus);
+  }
+  // Break-even of the physics scenario: a tariff per kWh and a factor, to 1e-9.
+  if (result.breakEven !== undefined) {
+    close("BreakEven_Tariff", numberOrNull(result.breakEven.tariffPerKWh), "none");
+    close("BreakEven_StepLossFactor", result.breakEven.stepLossFactor, "none");
   }
   return seen;
+}
+
+const numberOrNull = (money: string | null) => (money === null ? null : Number(money));
+
+/**
+ * The value-by-source block as Calc computed it (docs/model.md §8): each source of each year
+ * equals the engine's to the cent, and the year's cash flow in the year table is their sum.
+ */
+function expectSourcesAddUp(calc: ExcelJS.Workbook, result: CaseResult, horizon: number): void {
+  const sheet = calc.getWorksheet("Cash flow");
+  if (!sheet) throw new Error("no Cash flow sheet");
+  const number = (row: number, column: number) => {
+    const cell = sheet.getCell(row, column);
+    const v = cell.type === ExcelJS.ValueType.Formula ? cell.result : cell.value;
+    expect(typeof v, `${cell.address}: ${JSON.stringify(v)}`).toBe("number");
+    return v as number;
+  };
+  for (const [key, start, flowColumn] of [
+    ["physics", 69, 3],
+    ["bandLow", 79, 9],
+    ["bandHigh", 89, 15],
+  ] as const) {
+    const s = result.scenarios[key];
+    for (let t = 1; t <= horizon; t++) {
+      let sum = 0;
+      VALUE_SOURCES.forEach((source, i) => {
+        const v = number(start + 1 + i, 2 + t);
+        sum += v;
+        expect(
+          Math.abs(v - Number(s.bySource[source][t - 1])),
+          `${key} ${source} year ${t}`,
+        ).toBeLessThan(0.005);
+      });
+      const flow = number(3 + t, flowColumn);
+      expect(Math.abs(sum - flow), `${key} year ${t}: sources ${sum}, flow ${flow}`).toBeLessThan(
+        1e-6,
+      );
+      expect(Math.abs(flow - Number(s.cashFlows[t])), `${key} year ${t}`).toBeLessThan(0.005);
+    }
+  }
+}
+
+/** The fixture case with inflation, tax, depreciation and event costs built up (engine v2). */
+function financeV2Case() {
+  const raw = structuredClone(fixtureCase) as Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any -- edited freely before parsing
+  Object.assign(raw.finance, {
+    horizonYears: 7,
+    inflationPct: 3.5,
+    taxRatePct: 27,
+    depreciationYears: 4,
+    // A project cost that puts NPV just below 0, so that both break-even values exist.
+    projectOneTimeCost: "21000",
+  });
+  for (const machine of raw.machines) machine.throughputGainPct = 0;
+  for (const axis of raw.axes) {
+    const events = axis.reliability?.stepLossEventsPerYear ?? 3;
+    axis.reliability = {
+      stepLossEventsPerYear: events,
+      avoidedPct: 85,
+      event: {
+        downtimeMinutes: 25,
+        scrapParts: 6,
+        scrapCostPerPart: "4.20",
+        restartLaborHours: 0.75,
+      },
+    };
+  }
+  return raw;
+}
+
+/** Types a value into the input cell a defined name points at. */
+function setInput(workbook: ExcelJS.Workbook, name: string, value: number): void {
+  const { sheet, address } = definedNameTarget(workbook, name);
+  const cell = workbook.getWorksheet(sheet)?.getCell(address);
+  if (!cell) throw new Error(`no cell for ${name}`);
+  cell.value = value;
+}
+
+/** A money figure by defined name against the engine's, to the cent. */
+function money(calc: ExcelJS.Workbook, name: string, expected: string): void {
+  const v = definedNameValue(calc, name);
+  expect(typeof v, name).toBe("number");
+  expect(
+    Math.abs((v as number) - Number(expected)),
+    `${name}: Calc ${v}, engine ${expected}`,
+  ).toBeLessThan(0.005);
 }
 
 describe("LibreOffice Calc recalculating the exported workbook (REFERENCES.md)", () => {
@@ -124,6 +220,49 @@ describe("LibreOffice Calc recalculating the exported workbook (REFERENCES.md)",
     const { result, calc } = await recalculated(handCase);
     const seen = expectEngineFigures(calc, result);
     console.info("engine-hand-case.json, LibreOffice:", JSON.stringify(seen));
+  }, 180_000);
+
+  it("reproduces inflation, tax, straight-line depreciation, event costs, value by source and break-even (engine v2)", async () => {
+    const raw = financeV2Case();
+    const { result, calc } = await recalculated(raw);
+    expect(result.scenarios.physics.bySource.tax.some((t) => Number(t) !== 0)).toBe(true);
+    expect(result.breakEven.stepLossFactor).not.toBeNull();
+    expect(result.breakEven.tariffPerKWh).not.toBeNull();
+    const seen = expectEngineFigures(calc, result);
+    expectSourcesAddUp(calc, result, 7);
+    // Depreciation: SLN(Capex, 0, 4) = Capex/4 (LibreOffice Calc help, SLN).
+    const depreciation = definedNameValue(calc, "Depreciation_PerYear");
+    expect(Math.abs((depreciation as number) - Number(result.totals.capex) / 4)).toBeLessThan(1e-9);
+    money(calc, "Reliability_PerYear", result.totals.reliabilityPerYear);
+    console.info("finance v2 case, LibreOffice:", JSON.stringify(seen));
+  }, 180_000);
+
+  it("moves the break-even tariff with the tax rate and inflation a reviewer types in (engine v2)", async () => {
+    const { calc } = await recalculated(financeV2Case(), (workbook) => {
+      setInput(workbook, "TaxRate_Pct", 15);
+      setInput(workbook, "Inflation_Pct", 6);
+      setInput(workbook, "Depreciation_Years", 2);
+    });
+    const edited = financeV2Case();
+    Object.assign(edited.finance, { taxRatePct: 15, inflationPct: 6, depreciationYears: 2 });
+    const result = evaluateCase(edited);
+    expectEngineFigures(calc, result);
+    expectSourcesAddUp(calc, result, 7);
+  }, 180_000);
+
+  it("opens and recalculates the workbook of a proposal issued by engine v1 (no value by source, payback status or break-even stored)", async () => {
+    sofficeVersion();
+    const input = caseInputSchema.parse(fixtureCase);
+    const v1 = asStoredV1Result(evaluateParsedCase(input));
+    const stripped = await withoutCachedFormulaValues(
+      await buildProposalWorkbook(input, v1, { ...META, engineVersion: "1.0.0" }),
+    );
+    const calc = new ExcelJS.Workbook();
+    await calc.xlsx.load(recalculateWithLibreOffice(stripped) as unknown as ArrayBuffer);
+    // Its stored figures, recalculated: a v1 input has no inflation or tax.
+    const seen = expectEngineFigures(calc, v1);
+    expect(definedNameValue(calc, "PaybackStatus_Physics")).toBe("reached");
+    console.info("stored v1 result, LibreOffice:", JSON.stringify(seen));
   }, 180_000);
 
   it("says the payback lies beyond the horizon when the engine finds none, and keeps a formula-like label as text", async () => {
@@ -140,12 +279,6 @@ describe("LibreOffice Calc recalculating the exported workbook (REFERENCES.md)",
   }, 180_000);
 
   it("moves NPV, IRR and payback as the engine does when a reviewer changes the tariff and the horizon in the file", async () => {
-    const setInput = (workbook: ExcelJS.Workbook, name: string, value: number) => {
-      const { sheet, address } = definedNameTarget(workbook, name);
-      const cell = workbook.getWorksheet(sheet)?.getCell(address);
-      if (!cell) throw new Error(`no cell for ${name}`);
-      cell.value = value;
-    };
     const { calc } = await recalculated(fixtureCase, (workbook) => {
       setInput(workbook, "Tariff", 0.48);
       setInput(workbook, "Horizon_Years", 8);

@@ -23,6 +23,8 @@ export const DRIVER_LABEL: Record<SensitivityDriver, string> = {
   laborRate: "Labor rate",
   stepLossEvents: "Step-loss events",
   discountRate: "Discount rate",
+  throughputGain: "Throughput gain (every machine, still capped)",
+  idleCurrent: "Idle current (every axis, at most 100 %)",
 };
 
 /**

@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import fixtureCase from "@/tests/fixtures/engine-case.json";
-import { buildDossier, nearestRank } from "@/lib/dossier";
-import { caseInputSchema, evaluateCase, torqueSpeedCurve } from "@/lib/engine";
+import { buildDossier, nearestRank, type Draw } from "@/lib/dossier";
+import { runUncertainty } from "@/lib/dossier/uncertainty";
+import { caseInputSchema, evaluateCase, prepareCase, torqueSpeedCurve } from "@/lib/engine";
 import { Money } from "@/lib/engine/money";
 import { DEFAULT_RANGES, type UncertaintySettings } from "@/lib/validations/dossier";
 
@@ -56,27 +57,52 @@ describe("uncertainty analysis", () => {
   it("each draw equals evaluateCase of the case with those four inputs changed", () => {
     // The shortcut (physics once, the load's closed loop re-solved, linear terms scaled) must
     // give what the engine gives for the changed input itself.
-    for (const draw of dossier.uncertainty.draws.slice(0, 12)) {
-      const changed = raw();
-      const f = (pct: number) => 1 + pct / 100;
-      changed.finance.tariffPerKWh = dec(changed.finance.tariffPerKWh)
-        .times(dec(String(draw.pct.tariff)).div(100).plus(1))
-        .toFixed();
-      for (const axis of changed.axes) {
-        axis.duty.hoursPerYear *= f(draw.pct.hoursPerYear);
-        axis.duty.loadTorqueNm *= f(draw.pct.loadTorque);
-        axis.duty.peakTorqueNm = Math.max(axis.duty.peakTorqueNm, axis.duty.loadTorqueNm);
-        axis.reliability ??= {};
-        axis.reliability.stepLossEventsPerYear =
-          (axis.reliability.stepLossEventsPerYear ?? 0) * f(draw.pct.stepLossEvents);
-      }
-      const expected = evaluateCase(changed).scenarios.physics;
-      // Doubles summed in another order: equal to far below a cent.
-      expect(dec(draw.npv).minus(expected.npv).abs().toNumber()).toBeLessThan(1e-6);
-      expect(draw.paybackYears).toBeCloseTo(expected.paybackYears!, 9);
+    for (const draw of dossier.uncertainty.draws.slice(0, 12)) expectDrawIsEngine(raw(), draw);
+  });
+
+  it("so does each draw of a case with inflation, tax, depreciation and event costs built up", () => {
+    const taxed = raw();
+    Object.assign(taxed.finance, { inflationPct: 2.5, taxRatePct: 28, depreciationYears: 3 });
+    for (const axis of taxed.axes) {
+      delete axis.reliability?.costPerEvent;
+      axis.reliability = {
+        ...axis.reliability,
+        stepLossEventsPerYear: axis.reliability?.stepLossEventsPerYear ?? 2,
+        event: {
+          downtimeMinutes: 20,
+          scrapParts: 3,
+          scrapCostPerPart: "7.5",
+          restartLaborHours: 0.25,
+        },
+      };
     }
+    const uncertainty = runUncertainty(prepareCase(caseInputSchema.parse(taxed)), settings, 12);
+    for (const draw of uncertainty.draws) expectDrawIsEngine(structuredClone(taxed), draw);
   });
 });
+
+/** A draw against evaluateCase of the case with its four inputs changed by the draw's %. */
+function expectDrawIsEngine(changed: Json, draw: Draw): void {
+  const f = (pct: number) => 1 + pct / 100;
+  changed.finance.tariffPerKWh = dec(changed.finance.tariffPerKWh)
+    .times(dec(String(draw.pct.tariff)).div(100).plus(1))
+    .toFixed();
+  for (const axis of changed.axes) {
+    axis.duty.hoursPerYear *= f(draw.pct.hoursPerYear);
+    // docs/model.md §8 (v2): the load driver scales load, peak and holding torque alike.
+    axis.duty.loadTorqueNm *= f(draw.pct.loadTorque);
+    axis.duty.peakTorqueNm *= f(draw.pct.loadTorque);
+    axis.duty.holdTorqueNm = (axis.duty.holdTorqueNm ?? 0) * f(draw.pct.loadTorque);
+    axis.reliability ??= {};
+    axis.reliability.stepLossEventsPerYear =
+      (axis.reliability.stepLossEventsPerYear ?? 0) * f(draw.pct.stepLossEvents);
+  }
+  const expected = evaluateCase(changed).scenarios.physics;
+  // Doubles summed in another order: equal to far below a cent.
+  expect(dec(draw.npv).minus(expected.npv).abs().toNumber()).toBeLessThan(1e-6);
+  if (expected.paybackYears === null) expect(draw.paybackYears).toBeNull();
+  else expect(draw.paybackYears).toBeCloseTo(expected.paybackYears, 9);
+}
 
 describe("dossier tables", () => {
   const result = evaluateCase(fixtureCase);

@@ -113,19 +113,23 @@ describe("sensitivity (ENGINE.md §8)", () => {
   const swing = (row: CaseResult["sensitivity"][number]) =>
     new Money(row.high.npv).minus(row.low.npv).abs();
 
-  it("covers the seven drivers, sorted by NPV swing, largest first", () => {
+  it("covers the nine drivers of engine v2, sorted by NPV swing (rounded to the cent), largest first", () => {
     expect(result.sensitivity.map((r) => r.driver).sort()).toEqual([
       "discountRate",
       "hoursPerYear",
+      "idleCurrent",
       "kitPrice",
       "laborRate",
       "loadTorque",
       "stepLossEvents",
       "tariff",
+      "throughputGain",
     ]);
+    const rounded = (row: CaseResult["sensitivity"][number]) =>
+      swing(row).toDecimalPlaces(2, Money.ROUND_HALF_EVEN);
     for (let i = 1; i < result.sensitivity.length; i++) {
       expect(
-        swing(result.sensitivity[i - 1]).greaterThanOrEqualTo(swing(result.sensitivity[i])),
+        rounded(result.sensitivity[i - 1]).greaterThanOrEqualTo(rounded(result.sensitivity[i])),
       ).toBe(true);
     }
   });
@@ -136,7 +140,8 @@ describe("sensitivity (ENGINE.md §8)", () => {
     input.axes[0].reliability.stepLossEventsPerYear = 0;
     const drivers = evaluateCase(input).sensitivity.map((r) => r.driver);
     expect(drivers.indexOf("laborRate")).toBeLessThan(drivers.indexOf("stepLossEvents"));
-    expect(drivers.slice(-2)).toEqual(["laborRate", "stepLossEvents"]);
+    // No labour, no events and no throughput value: three swings of 0, in the listed order.
+    expect(drivers.slice(-3)).toEqual(["laborRate", "stepLossEvents", "throughputGain"]);
   });
 
   it("kit price ±20 % moves capex by ±20 % of the discounted kit prices", () => {

@@ -33,7 +33,6 @@ function capabilityOf(d: Draw): Capability {
   } as ParsedMotor;
   return {
     model: torqueModel(motor, {
-      vectorFactor: 1,
       currentLimitA: Math.SQRT2 * d.ratedCurrentA,
       resistanceOhm: d.resistanceOhm * 1.2,
       busVoltageV: d.busVoltageV,

@@ -21,7 +21,7 @@ describe("sensitivity tornado", () => {
       expect(row.label).toMatch(/^[A-Z][a-z]/);
       expect(row.label).not.toMatch(/[A-Z]{2}|[a-z][A-Z]/);
     }
-    expect(Object.keys(DRIVER_LABELS)).toHaveLength(7);
+    expect(Object.keys(DRIVER_LABELS)).toHaveLength(9);
   });
 
   it("a higher tariff raises the NPV of a case that saves energy", () => {

@@ -1,27 +1,77 @@
 import { describe, expect, it } from "vitest";
+import { columnLetter } from "@/lib/workbook/layout";
 import { buildWorkbookOf, formulaOf, sheetOf } from "./fixture-workbook";
 
 // The Cash flow sheet is what a finance reviewer audits: every year of every scenario is a
 // formula over the inputs (ENGINE.md §8), never a typed number.
 describe("Cash flow sheet formulas (ENGINE.md §8)", () => {
-  it("starts each scenario at −Capex and builds every year from saving × tariff plus the other terms", async () => {
+  it("starts each scenario at −Capex and takes every year from the sum of its value by source", async () => {
     const { workbook } = await buildWorkbookOf();
     const sheet = sheetOf(workbook, "Cash flow");
-    for (const [flow, saving] of [
-      ["C", "Saving_Physics_kWh"],
-      ["I", "Saving_BandLow_kWh"],
-      ["O", "Saving_BandHigh_kWh"],
-    ]) {
+    // The sum rows of the value-by-source block: physics 77, band low 87, band high 97; year t
+    // in column C + t − 1.
+    for (const [flow, sumRow] of [
+      ["C", 77],
+      ["I", 87],
+      ["O", 97],
+    ] as const) {
       expect(formulaOf(sheet.getCell(`${flow}3`))).toBe("-Capex");
       for (let t = 1; t <= 30; t++) {
         const row = 3 + t;
         expect(sheet.getCell(`A${row}`).value).toBe(t);
         expect(formulaOf(sheet.getCell(`${flow}${row}`))).toBe(
-          `IF($A${row}<=Horizon_Years,${saving}*$B${row}+Recurring_PerYear,0)`,
+          `IF($A${row}<=Horizon_Years,${columnLetter(2 + t)}${sumRow},0)`,
         );
       }
     }
     expect(formulaOf(sheet.getCell("B4"))).toBe("Tariff*(1+TariffEscalation_Pct/100)^($A4-1)");
+  });
+
+  it("builds the value by source from escalation, inflation, tax and straight-line depreciation (docs/model.md §8)", async () => {
+    const { workbook } = await buildWorkbookOf();
+    const sheet = sheetOf(workbook, "Cash flow");
+    const f = (address: string) => formulaOf(sheet.getCell(address));
+    // Shared factor rows, year 2 in column D (its t in D63).
+    expect(f("D64")).toBe("IF(D$63<=Horizon_Years,(1+TariffEscalation_Pct/100)^(D$63-1),0)");
+    expect(f("D65")).toBe("IF(D$63<=Horizon_Years,(1+Inflation_Pct/100)^(D$63-1),0)");
+    expect(f("D66")).toBe("1/(1+DiscountRate_Pct/100)^D$63");
+    expect(f("D67")).toBe(
+      "IF(AND(D$63<=Horizon_Years,D$63<=Depreciation_Years),Depreciation_PerYear,0)",
+    );
+    // SLN(cost, salvage, life) = (cost − salvage)/life (LibreOffice Calc help, SLN).
+    expect(f("C60")).toBe("SLN(Capex,0,Depreciation_Years)");
+    // Physics, year 2: rows 70..76 are energy, cooling, reliability, maintenance, throughput,
+    // service and tax; 77 their sum.
+    expect(f("D70")).toBe("EnergySaved_kWh*Tariff*D$64");
+    expect(f("D71")).toBe("CoolingSaved_kWh*Tariff*D$64");
+    expect(f("D72")).toBe("Reliability_PerYear*D$65");
+    expect(f("D73")).toBe("Maintenance_PerYear*D$65");
+    expect(f("D74")).toBe("Throughput_PerYear*D$65");
+    expect(f("D75")).toBe("-AnnualServiceCost*D$65");
+    expect(f("D76")).toBe("IF(D$63<=Horizon_Years,-TaxRate_Pct/100*(SUM(D70:D75)-D$67),0)");
+    expect(f("D77")).toBe("SUM(D70:D76)");
+    // Band low: its share of today's drive and cooling energy.
+    expect(f("D80")).toBe("BandLow_Pct/100*EnergyOpenLoop_kWh*Tariff*D$64");
+    expect(f("D81")).toBe("BandLow_Pct/100*CoolingOpenLoop_kWh*Tariff*D$64");
+  });
+
+  it("gives payback status and the break-even values as formulas (docs/model.md §8)", async () => {
+    const { workbook } = await buildWorkbookOf();
+    const sheet = sheetOf(workbook, "Cash flow");
+    const f = (address: string) => formulaOf(sheet.getCell(address));
+    expect(f("C43")).toBe(
+      'IF(ISNUMBER(C39),"reached",IF(INDEX(C3:C33,Horizon_Years+1)>0,"beyond-horizon","never"))',
+    );
+    expect(f("C44")).toBe(
+      "(1-TaxRate_Pct/100)*(EnergySaved_kWh+CoolingSaved_kWh)*SUMPRODUCT($C$64:$AF$64,$C$66:$AF$66)",
+    );
+    expect(f("C45")).toBe(
+      'IF(C44<=0,"none",IF(Tariff-NPV_Physics/C44<0,"none",Tariff-NPV_Physics/C44))',
+    );
+    expect(f("C46")).toBe(
+      "(1-TaxRate_Pct/100)*Reliability_PerYear*SUMPRODUCT($C$65:$AF$65,$C$66:$AF$66)",
+    );
+    expect(f("C47")).toBe('IF(C46<=0,"none",IF(1-NPV_Physics/C46<0,"none",1-NPV_Physics/C46))');
   });
 
   it("accumulates, discounts and finds the payback year by formula", async () => {
@@ -55,7 +105,7 @@ describe("Cash flow sheet formulas (ENGINE.md §8)", () => {
     expect(formulaOf(sheet.getCell("O36"))).toBe(
       "BandHigh_Pct/100*(EnergyOpenLoop_kWh+CoolingOpenLoop_kWh)",
     );
-    expect(formulaOf(sheet.getCell("C54"))).toBe("C50+C51+C52-C53");
+    expect(formulaOf(sheet.getCell("C59"))).toBe("C55+C56+C57-C58");
   });
 
   it("gives the Summary's headline figures as formulas over the Cash flow sheet, not typed numbers", async () => {
@@ -107,7 +157,7 @@ describe("Cash flow sheet formulas (ENGINE.md §8)", () => {
         formulaOf(axes.getRow(row).getCell(at(header)));
     }
     expect(formulaOf(axes.getRow(3).getCell(at("Step losses avoided, per year")))).toMatch(
-      /^IF\([A-Z]+3="undersized",0,/,
+      /^IF\([A-Z]+3="no",0,/,
     );
   });
 });

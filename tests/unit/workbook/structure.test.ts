@@ -4,13 +4,18 @@ import { definedNameTarget, xlsxPart } from "@/tests/support/libreoffice";
 import { buildWorkbookOf, formulaOf, sheetOf } from "./fixture-workbook";
 
 const REQUIRED_NAMES = {
-  Capex: { sheet: "Cash flow", address: "C45" },
-  EnergySaved_kWh: { sheet: "Cash flow", address: "C46" },
+  Capex: { sheet: "Cash flow", address: "C50" },
+  EnergySaved_kWh: { sheet: "Cash flow", address: "C51" },
   NPV_Physics: { sheet: "Cash flow", address: "C37" },
   IRR_Physics: { sheet: "Cash flow", address: "C38" },
   Payback_Physics: { sheet: "Cash flow", address: "C39" },
   NPV_BandLow: { sheet: "Cash flow", address: "I37" },
   NPV_BandHigh: { sheet: "Cash flow", address: "O37" },
+  // docs/model.md §8, engine v2.
+  PaybackStatus_Physics: { sheet: "Cash flow", address: "C43" },
+  BreakEven_Tariff: { sheet: "Cash flow", address: "C45" },
+  BreakEven_StepLossFactor: { sheet: "Cash flow", address: "C47" },
+  Depreciation_PerYear: { sheet: "Cash flow", address: "C60" },
 };
 
 describe("proposal workbook structure (issue 5)", () => {
@@ -64,6 +69,10 @@ describe("proposal workbook structure (issue 5)", () => {
     expect(value("AnnualServiceCost")).toBe(120);
     expect(value("BandLow_Pct")).toBe(25);
     expect(value("BandHigh_Pct")).toBe(50);
+    // Engine v2 finance inputs, at their schema defaults in the fixture.
+    expect(value("Inflation_Pct")).toBe(0);
+    expect(value("TaxRate_Pct")).toBe(0);
+    expect(value("Depreciation_Years")).toBe(5);
   });
 
   it("caches the engine's figures beside the formulas, for viewers that do not calculate", async () => {
@@ -77,6 +86,9 @@ describe("proposal workbook structure (issue 5)", () => {
     expect(cached("IRR_Physics")).toBe(result.scenarios.physics.irr);
     expect(cached("Payback_Physics")).toBe(result.scenarios.physics.paybackYears);
     expect(cached("NPV_BandHigh")).toBe(Number(result.scenarios.bandHigh.npv));
+    expect(cached("PaybackStatus_Physics")).toBe(result.scenarios.physics.paybackStatus);
+    const tariff = result.breakEven.tariffPerKWh;
+    expect(cached("BreakEven_Tariff")).toBe(tariff === null ? "none" : Number(tariff));
   });
 
   it("shows money in the case's currency, freezes the header rows and prints landscape one page wide", async () => {
@@ -140,6 +152,9 @@ describe("proposal workbook structure (issue 5)", () => {
       "finance.annualServiceCost",
       "finance.coolingCop",
       "finance.gridKgCo2PerKWh",
+      "finance.inflationPct",
+      "finance.taxRatePct",
+      "finance.depreciationYears",
       "margins.openLoopRequiredPct",
       "margins.closedLoopRequiredPct",
       "band.lowPct",

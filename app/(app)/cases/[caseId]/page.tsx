@@ -39,7 +39,7 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
         actions={<StageBadge stage={item.stage} />}
       />
       <CaseToolbar caseId={caseId} canFreeze={caseAxes.length > 0} />
-      {caseAxes.length ? <CaseResults caseId={caseId} /> : null}
+      {caseAxes.length ? <CaseResults caseId={caseId} methodHref="/method" /> : null}
       <Panel title="Axes and kits">
         <CaseAxesEditor
           caseId={caseId}

@@ -75,6 +75,7 @@ export default async function DossierPage({ params }: { params: Promise<{ propos
       crumbs={crumbs}
       proposal={proposal}
       settings={settings}
+      methodHref="/method"
     >
       {rangesPanel}
     </PaidDossierView>

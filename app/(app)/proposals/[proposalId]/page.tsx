@@ -160,7 +160,7 @@ export default async function ProposalPage({
         <h2 id="frozen-results" className="text-title">
           Figures as frozen
         </h2>
-        <CaseResultsView result={result} input={input} />
+        <CaseResultsView result={result} input={input} methodHref="/method" />
       </section>
     </div>
   );

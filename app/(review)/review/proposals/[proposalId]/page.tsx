@@ -4,9 +4,12 @@ import { addReviewerCommentAction } from "@/app/(review)/review/actions";
 import { CommentThread } from "@/components/proposals/comment-thread";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
 import { CashFlowChart } from "@/components/results/cash-flow-chart";
+import { BreakEvenPanel } from "@/components/results/break-even-panel";
 import { CautionsPanel } from "@/components/results/cautions-panel";
 import { EnergyByMachineChart } from "@/components/results/energy-by-machine-chart";
 import { HeadlineCards } from "@/components/results/headline-cards";
+import { MethodLink } from "@/components/results/method-link";
+import { ValueBySourceTable } from "@/components/results/value-by-source-table";
 import { AssumptionsList } from "@/components/review/assumptions-list";
 import { DecisionForm } from "@/components/review/decision-form";
 import { MachineFiguresTable } from "@/components/review/machine-figures-table";
@@ -22,7 +25,8 @@ import { QUEUED_NOTICE } from "@/lib/mail/delivery";
 import { idParam, orNotFound } from "@/lib/pages";
 import { DECIDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
-import { formatMoney, formatPayback } from "@/lib/results/format";
+import { paybackLead } from "@/lib/results/engine-v2";
+import { formatMoney } from "@/lib/results/format";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -62,7 +66,7 @@ export default async function ReviewProposalPage({
       />
       <PageHeader
         title={`${quote.caseName}, version ${quote.version}`}
-        lead={`${quote.siteName} · sent by ${quote.ownerName} on ${quote.sentAt?.slice(0, 10)} · investment ${formatMoney(quote.value, quote.currency)}, paid back in ${formatPayback(physics.paybackYears, horizon)} as modelled`}
+        lead={`${quote.siteName} · sent by ${quote.ownerName} on ${quote.sentAt?.slice(0, 10)} · investment ${formatMoney(quote.value, quote.currency)}, ${paybackLead(physics, horizon)}`}
         actions={
           <div className="flex flex-wrap items-center gap-3">
             <QuoteStageBadge stage={quote.stage} />
@@ -83,7 +87,14 @@ export default async function ReviewProposalPage({
         }
       />
 
+      <p className="flex flex-wrap items-center justify-between gap-3">
+        <span className="text-caption text-steel-600">
+          Computed by engine {result.engineVersion} · amounts in {result.currency}
+        </span>
+        <MethodLink href="/review/method" />
+      </p>
       <HeadlineCards result={result} input={input} />
+      <BreakEvenPanel result={result} input={input} />
 
       {input ? (
         <WhatIfPanel
@@ -99,12 +110,13 @@ export default async function ReviewProposalPage({
         />
       ) : null}
 
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         <CashFlowChart result={result} input={input} />
         <EnergyByMachineChart result={result} input={input} />
       </div>
+      <ValueBySourceTable result={result} />
       <MachineFiguresTable result={result} input={input} />
-      <div className="grid gap-6 xl:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         {input ? <AssumptionsList input={input} /> : null}
         <CautionsPanel result={result} input={input} />
       </div>

@@ -63,6 +63,7 @@ export default async function ReviewDossierPage({
       crumbs={crumbs}
       proposal={proposal}
       settings={getDossierSettings(user, id)}
+      methodHref="/review/method"
     />
   );
 }
