@@ -1,4 +1,5 @@
 import fs from "node:fs";
+import Decimal from "decimal.js";
 import path from "node:path";
 import ExcelJS from "exceljs";
 import { eq, sql } from "drizzle-orm";
@@ -163,6 +164,33 @@ describe("an axis with motion, an event build-up and a resonance band (ENGINE.md
     expect(screwResult.warnings).toContain("HOLDING_LOAD");
     // The same case as the engine evaluates it from the JSON alone.
     expect(evaluateCase(JSON.parse(JSON.stringify(input))).axes).toEqual(result.axes);
+  });
+
+  it("its event is priced as ENGINE.md §8 builds it: the same flows as the equal cost per event", () => {
+    const site = northHall();
+    const machine = listMachines(engineer(), site.id)[0];
+    const screw = createAxis(engineer(), axisApiSchema.parse(screwAxisBody(machine.id)));
+    const created = createCase(engineer(), { name: "Event priced", siteId: site.id });
+    setCaseAxes(engineer(), created.id, [screw.id]);
+    const input = buildCaseInput(engineer(), created.id);
+    input.finance = { ...input.finance, downtimeCostPerHour: "300", laborRatePerHour: "60" };
+    // §8: downtimeMinutes/60·downtimeCostPerHour + scrapParts·scrapCostPerPart +
+    // restartLaborHours·laborRatePerHour, here 20/60·300 + 3·4.80 + 0.5·60.
+    const cost = new Decimal(20)
+      .div(60)
+      .mul(300)
+      .plus(new Decimal(3).mul("4.80"))
+      .plus(new Decimal("0.5").mul(60));
+    const { event: _event, ...reliability } = input.axes[0].reliability!;
+    const typed = {
+      ...input,
+      axes: [{ ...input.axes[0], reliability: { ...reliability, costPerEvent: cost.toFixed() } }],
+    };
+    const withEvent = evaluateCase(input);
+    const withCost = evaluateCase(typed);
+    expect(new Decimal(withEvent.totals.reliabilityPerYear).gt(0)).toBe(true);
+    expect(withEvent.totals.reliabilityPerYear).toBe(withCost.totals.reliabilityPerYear);
+    expect(withEvent.scenarios.physics.cashFlows).toEqual(withCost.scenarios.physics.cashFlows);
   });
 
   it("a new proposal of it carries engine 2.0.0", () => {
