@@ -4,6 +4,9 @@ export {
   kitInputSchema,
   motorInputSchema,
   marginsSchema,
+  motionInputSchema,
+  stepLossEventSchema,
+  MECHANISMS,
 } from "./schema";
 export type {
   AxisInput,
@@ -16,10 +19,15 @@ export type {
   ParsedKit,
   ParsedMargins,
   ParsedMotor,
+  MotionInput,
+  ParsedMotion,
+  Mechanism,
+  StepLossEventInput,
 } from "./schema";
 export { formatIssues, formatPath } from "./issues";
 export { evaluateCase, evaluateParsedCase } from "./evaluate";
 export { torqueSpeedCurve } from "./torque-speed-curve";
+export { DEFAULT_MECHANISM_EFFICIENCY_PCT } from "./motion";
 export { suggestKit, type KitSuggestion } from "./kits";
 export { ENGINE_VERSION } from "./version";
 export { TORQUE_FACTORS_TO_NM, TORQUE_UNIT_NAMES, type TorqueUnit } from "./units";

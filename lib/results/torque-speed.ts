@@ -18,7 +18,9 @@ export interface TorqueSpeedView {
 
 // Fine enough that the corner where the drive runs out of voltage reads as a bend, not a kink.
 const SAMPLES = 241;
-const MIN_TORQUE_FRACTION = 0.01;
+// With field weakening the torque falls off slowly and seldom reaches 0 below 6000 rpm: the
+// chart ends where both loops keep less than a tenth of their standstill torque.
+const MIN_TORQUE_FRACTION = 0.1;
 
 const usable = (curve: CurvePoint[], requiredPct: number): CurvePoint[] =>
   curve.map((p) => ({ rpm: p.rpm, torqueNm: p.torqueNm * (1 - requiredPct / 100) }));
