@@ -120,7 +120,7 @@ export function evaluateOpenLoop(
 ) {
   const spec = openLoopSpec(axis, duty, requiredPct, searchMaxSpeed);
   const outcome: LoopOutcome<OpenLoopStatus> = evaluateLoop(spec, duty, coolingCop);
-  return { ...outcome, curve: spec.shape.curve };
+  return outcome;
 }
 
 /** The proposed kit on the axis, as a loop to evaluate, with what decides "undersized". */
@@ -242,11 +242,29 @@ export function evaluateAxisPhysics(
   const motionSpec = axis.duty.motion;
   const avoidsEvents = !closed.undersized && !closed.lowSpeedSensorless;
 
-  // Added in place: copying the loop result with a spread cost more than the physics.
-  const openLoopResult = ol as OpenLoopResult;
-  openLoopResult.loadAngleElecDeg = angle.elecDeg;
-  openLoopResult.loadAngleMechDeg = angle.mechDeg;
-  openLoopResult.holdingCapabilityNm = holdingNm;
+  // One literal with every key: adding keys to the loop result afterwards changed its hidden
+  // class on every axis, and a spread copy cost more than the physics.
+  const openLoopResult: OpenLoopResult = {
+    currentMoveA: ol.currentMoveA,
+    currentHoldA: ol.currentHoldA,
+    resistanceHotOhm: ol.resistanceHotOhm,
+    windingTempC: ol.windingTempC,
+    copperLossMoveW: ol.copperLossMoveW,
+    copperLossHoldW: ol.copperLossHoldW,
+    ironLossW: ol.ironLossW,
+    inputPowerW: ol.inputPowerW,
+    energyKWhPerYear: ol.energyKWhPerYear,
+    cabinetHeatW: ol.cabinetHeatW,
+    coolingKWhPerYear: ol.coolingKWhPerYear,
+    torqueAtSpeedNm: ol.torqueAtSpeedNm,
+    marginPct: ol.marginPct,
+    status: ol.status,
+    usableTorqueNm: ol.usableTorqueNm,
+    maxSpeedRpm: ol.maxSpeedRpm,
+    loadAngleElecDeg: angle.elecDeg,
+    loadAngleMechDeg: angle.mechDeg,
+    holdingCapabilityNm: holdingNm,
+  };
 
   return {
     id: axis.id,
