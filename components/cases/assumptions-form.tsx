@@ -132,6 +132,31 @@ export function AssumptionsForm({
           hint="From the site"
           error={f?.gridKgCo2PerKWh?.message}
         />
+        <NumberField
+          register={register}
+          name="finance.inflationPct"
+          label="Inflation"
+          unit="%/year"
+          hint="Raises the avoided step-loss, maintenance, throughput and service figures each year; 0 keeps them flat. Estimate: use the customer's planning rate"
+          error={f?.inflationPct?.message}
+        />
+        <NumberField
+          register={register}
+          name="finance.taxRatePct"
+          label="Tax rate"
+          unit="%"
+          hint="0 gives pre-tax flows; otherwise the customer's marginal tax rate, below 100 %"
+          error={f?.taxRatePct?.message}
+        />
+        <NumberField
+          register={register}
+          name="finance.depreciationYears"
+          label="Depreciation"
+          unit="years"
+          step="1"
+          hint="Straight line over the whole investment, 1 to 30 years; matters only with a tax rate"
+          error={f?.depreciationYears?.message}
+        />
       </fieldset>
       <fieldset className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         <legend className="mb-2 font-bold text-flux-900">Margins, band and sensitivity</legend>

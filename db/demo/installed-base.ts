@@ -1,3 +1,9 @@
+import {
+  axisInputSchema,
+  stepLossEventSchema,
+  type MotionInput,
+  type StepLossEventInput,
+} from "../../lib/engine/schema";
 import { DEMO_MOTORS } from "./catalogue";
 
 // The invented installed base of the demo scenario (PRODUCT.md): three customers, their plants,
@@ -17,7 +23,22 @@ type AxisTemplate = {
   stepLossEventsPerYear?: number;
 };
 
-type MachineKind = { kind: string; line: string; downtimeHours: number; axes: AxisTemplate[] };
+// An axis described by its mechanism and move (ENGINE.md §3a) instead of typed duty figures,
+// optionally with its step-loss events costed from what one causes (§8).
+type MotionAxisTemplate = {
+  label: string;
+  motor: string;
+  motion: MotionInput;
+  stepLossEventsPerYear?: number;
+  event?: StepLossEventInput;
+};
+
+type MachineKind = {
+  kind: string;
+  line: string;
+  downtimeHours: number;
+  axes: (AxisTemplate | MotionAxisTemplate)[];
+};
 
 const CARTONER: MachineKind = {
   kind: "Cartoner",
@@ -235,6 +256,74 @@ const SLITTER: MachineKind = {
   ],
 };
 
+// A microplate handler beside the pipetting gantries, sized from its mechanics: a belt gantry,
+// a vertical screw lift that holds the plate gripper at rest, and a geared plate turner. Rotor
+// inertias are invented values of the usual order for these frames (NEMA 23 ~300–500 g·cm²,
+// NEMA 17 ~50–80 g·cm²).
+const PLATE_HANDLER: MachineKind = {
+  kind: "Plate handler",
+  line: "Liquid handling",
+  downtimeHours: 2,
+  axes: [
+    {
+      label: "Plate gantry X (belt)",
+      motor: "RM23-56",
+      motion: {
+        mechanism: "belt",
+        radiusMm: 12,
+        massKg: 2.5,
+        loadInertiaKgM2: { value: 200, unit: "g·cm²" },
+        motorInertiaKgM2: { value: 280, unit: "g·cm²" },
+        frictionCoeff: 0.01,
+        stroke: 400,
+        moveTimeS: 0.6,
+        dwellTimeS: 0.8,
+      },
+    },
+    {
+      label: "Plate lift Z (vertical screw)",
+      motor: "RM23-76",
+      motion: {
+        mechanism: "screw",
+        leadMm: 25,
+        massKg: 5,
+        inclineDeg: 90,
+        loadInertiaKgM2: { value: 120, unit: "g·cm²" },
+        motorInertiaKgM2: { value: 480, unit: "g·cm²" },
+        frictionCoeff: 0.01,
+        stroke: 120,
+        moveTimeS: 0.6,
+        dwellTimeS: 1.5,
+        energizedPct: 90,
+      },
+      // A dropped or misplaced plate: the run stops, the plate and its reagents are lost.
+      stepLossEventsPerYear: 3,
+      event: {
+        downtimeMinutes: 25,
+        scrapParts: 4,
+        scrapCostPerPart: "6.50",
+        restartLaborHours: 0.5,
+      },
+    },
+    {
+      label: "Plate turner (rotary)",
+      motor: "RM17-48",
+      motion: {
+        mechanism: "rotary",
+        gearRatio: 3,
+        gearEfficiencyPct: 95,
+        // A plate nest of about 0.3 kg at 60 mm, and the drag of its bearing and seal.
+        loadInertiaKgM2: { value: 5000, unit: "g·cm²" },
+        motorInertiaKgM2: { value: 68, unit: "g·cm²" },
+        externalTorqueNm: 0.3,
+        stroke: 180,
+        moveTimeS: 0.4,
+        dwellTimeS: 1.2,
+      },
+    },
+  ],
+};
+
 export type DemoSite = {
   account: string;
   name: string;
@@ -286,7 +375,10 @@ export const DEMO_SITES: DemoSite[] = [
     gridKgCo2PerKWh: 0.3,
     ambientC: 28,
     hoursPerYear: 3000,
-    machines: [{ kind: PIPETTING_GANTRY, count: 24 }],
+    machines: [
+      { kind: PIPETTING_GANTRY, count: 24 },
+      { kind: PLATE_HANDLER, count: 2 },
+    ],
   },
   {
     account: "Webline Print Finishing",
@@ -317,6 +409,46 @@ export function seededRandom(seed: number) {
 
 const round = (v: number, digits = 3) => Number(v.toFixed(digits));
 
+const motionSchema = axisInputSchema.shape.duty.shape.motion.unwrap();
+
+const busVoltageOf = (frameSize: number | null | undefined) =>
+  frameSize === 34 ? 70 : frameSize === 23 ? 48 : 24;
+
+// An axis from its mechanism, stored as the JSON API stores it: motion and event as the engine
+// parses them, the typed duty figures as placeholders. It draws nothing from the generator, so
+// that the rest of the demo comes out as it did before these axes existed.
+function motionAxis(t: MotionAxisTemplate, hoursPerYear: number, ambientC: number) {
+  const motor = DEMO_MOTORS.find((m) => m.code === t.motor)!;
+  return {
+    label: t.label,
+    quantity: 1,
+    motorCode: motor.code,
+    rotorTeeth: 50,
+    holdingTorqueNm: motor.holdingTorqueNm,
+    ratedCurrentA: motor.ratedCurrentA,
+    phaseResistanceOhm: motor.phaseResistanceOhm,
+    phaseInductanceMh: motor.phaseInductanceMh,
+    insulationClass: motor.insulationClass ?? "B",
+    hysteresisWPerHz: motor.hysteresisWPerHz ?? 0,
+    eddyWPerHz2: motor.eddyWPerHz2 ?? 0,
+    busVoltageV: busVoltageOf(motor.frameSize),
+    currentSettingA: motor.ratedCurrentA,
+    stepMode: "micro" as const,
+    hoursPerYear,
+    movePct: 0,
+    holdPct: 0,
+    speedRpm: 0,
+    loadTorqueNm: 0,
+    peakTorqueNm: 0,
+    holdTorqueNm: 0,
+    ambientC,
+    motion: motionSchema.parse(t.motion),
+    stepLossEventsPerYear: t.stepLossEventsPerYear ?? 0,
+    costPerEvent: "0",
+    event: t.event ? stepLossEventSchema.parse(t.event) : null,
+  };
+}
+
 // The axis rows of one machine of a kind, varied a little from machine to machine.
 export function demoAxesFor(
   kind: MachineKind,
@@ -325,6 +457,7 @@ export function demoAxesFor(
   random: () => number,
 ) {
   return kind.axes.map((t) => {
+    if ("motion" in t) return motionAxis(t, hoursPerYear, ambientC);
     const motor = DEMO_MOTORS.find((m) => m.code === t.motor)!;
     const vary = 0.85 + random() * 0.3;
     const load = round(motor.holdingTorqueNm * t.loadShare * vary);
@@ -340,7 +473,7 @@ export function demoAxesFor(
       insulationClass: motor.insulationClass ?? "B",
       hysteresisWPerHz: motor.hysteresisWPerHz ?? 0,
       eddyWPerHz2: motor.eddyWPerHz2 ?? 0,
-      busVoltageV: motor.frameSize === 34 ? 70 : motor.frameSize === 23 ? 48 : 24,
+      busVoltageV: busVoltageOf(motor.frameSize),
       // Open-loop drives are usually set to the rated current, a few a little above it.
       currentSettingA: round(motor.ratedCurrentA * (random() < 0.15 ? 1.1 : 1), 2),
       stepMode: t.stepMode ?? "micro",
@@ -354,6 +487,8 @@ export function demoAxesFor(
       ambientC,
       stepLossEventsPerYear: t.stepLossEventsPerYear ?? 0,
       costPerEvent: t.stepLossEventsPerYear ? String(120 + Math.round(random() * 8) * 10) : "0",
+      motion: null,
+      event: null,
     };
   });
 }

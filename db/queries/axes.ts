@@ -3,7 +3,7 @@ import { db } from "@/db";
 import { axes, machines } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { NotFoundError } from "@/lib/errors";
-import type { AxisInput, AxisListParams } from "@/lib/validations/installed-base";
+import type { AxisApiInput, AxisInput, AxisListParams } from "@/lib/validations/installed-base";
 import { getMachineOrThrow } from "./machines";
 import { getSiteOrThrow } from "./sites";
 
@@ -69,7 +69,11 @@ export function getAxisOrThrow(caller: SessionUser, id: number) {
   return row;
 }
 
-export function createAxis(caller: SessionUser, input: AxisInput) {
+// The form sends no motion, event or resonance (AxisInput): an update from it leaves the stored
+// ones as they are. The JSON API states them (AxisApiInput), null removing one.
+type AxisWrite = AxisInput | AxisApiInput;
+
+export function createAxis(caller: SessionUser, input: AxisWrite) {
   const machine = getMachineOrThrow(caller, input.machineId);
   const [row] = db
     .insert(axes)
@@ -79,7 +83,7 @@ export function createAxis(caller: SessionUser, input: AxisInput) {
   return row;
 }
 
-export function updateAxis(caller: SessionUser, id: number, input: AxisInput) {
+export function updateAxis(caller: SessionUser, id: number, input: AxisWrite) {
   const axis = getAxisOrThrow(caller, id);
   const machine = getMachineOrThrow(caller, input.machineId);
   if (machine.siteId !== axis.siteId) throw new NotFoundError("No such machine");

@@ -78,6 +78,32 @@ export function kitInputOf(kit: Kit, motor: Motor | null): KitInput {
   };
 }
 
+// With motion, ENGINE.md §3a derives the duty figures and ignores any sent: the typed columns
+// (placeholders when left blank) stay out, so the input says where the figures come from.
+function dutyInputOf(axis: Axis): AxisInput["duty"] {
+  if (axis.motion)
+    return { hoursPerYear: axis.hoursPerYear, ambientC: axis.ambientC, motion: axis.motion };
+  return {
+    hoursPerYear: axis.hoursPerYear,
+    movePct: axis.movePct,
+    holdPct: axis.holdPct,
+    speedRpm: axis.speedRpm,
+    loadTorqueNm: axis.loadTorqueNm,
+    peakTorqueNm: axis.peakTorqueNm,
+    holdTorqueNm: axis.holdTorqueNm,
+    ambientC: axis.ambientC,
+  };
+}
+
+// The engine refuses costPerEvent beside an event (§8): a stored event is the cost.
+function reliabilityInputOf(axis: Axis): AxisInput["reliability"] {
+  return {
+    stepLossEventsPerYear: axis.stepLossEventsPerYear,
+    ...(axis.event ? { event: axis.event } : { costPerEvent: axis.costPerEvent }),
+    avoidedPct: axis.avoidedPct,
+  };
+}
+
 export function axisInputOf(axis: Axis, kit: KitInput, terms: RetrofitTerms): AxisInput {
   return {
     id: String(axis.id),
@@ -97,22 +123,10 @@ export function axisInputOf(axis: Axis, kit: KitInput, terms: RetrofitTerms): Ax
       idleCurrentPct: axis.idleCurrentPct,
       efficiencyPct: axis.driveEfficiencyPct,
       standbyW: axis.driveStandbyW,
+      ...(axis.resonance ? { resonance: axis.resonance } : {}),
     },
-    duty: {
-      hoursPerYear: axis.hoursPerYear,
-      movePct: axis.movePct,
-      holdPct: axis.holdPct,
-      speedRpm: axis.speedRpm,
-      loadTorqueNm: axis.loadTorqueNm,
-      peakTorqueNm: axis.peakTorqueNm,
-      holdTorqueNm: axis.holdTorqueNm,
-      ambientC: axis.ambientC,
-    },
-    reliability: {
-      stepLossEventsPerYear: axis.stepLossEventsPerYear,
-      costPerEvent: axis.costPerEvent,
-      avoidedPct: axis.avoidedPct,
-    },
+    duty: dutyInputOf(axis),
+    reliability: reliabilityInputOf(axis),
     retrofit: {
       kit,
       discountPct: terms.discountPct,

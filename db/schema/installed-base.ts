@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import type { ParsedAxis, ParsedMotion } from "../../lib/engine/schema";
 import { accounts } from "./accounts";
 import { motors } from "./catalogue";
 
@@ -45,9 +46,20 @@ export const machines = sqliteTable(
   (t) => [uniqueIndex("machines_site_name_idx").on(t.siteId, t.name)],
 );
 
+/** ENGINE.md §3 drive.resonance and §8 reliability.event as the engine parsed them. */
+export type StoredResonance = NonNullable<ParsedAxis["drive"]["resonance"]>;
+export type StoredStepLossEvent = NonNullable<ParsedAxis["reliability"]["event"]>;
+
 // One open-loop axis as installed: every AxisInput field of ENGINE.md but the retrofit, in SI
-// units (torque N·m, inductance mH, speed rpm). site_id is repeated from the machine so that a
-// site's axes page straight off one index.
+// units (torque N·m, inductance mH, speed rpm, inertia kg·m²). site_id is repeated from the
+// machine so that a site's axes page straight off one index.
+// The optional objects of engine v2 (motion, resonance, step-loss event) are JSON columns holding
+// what the engine's own schema parsed, so they need no column per field and load back as the
+// engine reads them. With motion, §3a derives speed, torques and duty shares: the typed duty
+// columns then keep whatever was typed (0 when left blank) and are not sent to the engine. They
+// stay NOT NULL because relaxing them would rebuild this table, which the case rows reference
+// with ON DELETE CASCADE and the input-revision triggers watch — a risk to stored data that a
+// placeholder does not carry.
 export const axes = sqliteTable(
   "axes",
   {
@@ -92,6 +104,7 @@ export const axes = sqliteTable(
     idleCurrentPct: real("idle_current_pct").notNull().default(50),
     driveEfficiencyPct: real("drive_efficiency_pct").notNull().default(90),
     driveStandbyW: real("drive_standby_w").notNull().default(2),
+    resonance: text("resonance", { mode: "json" }).$type<StoredResonance>(),
     // duty
     hoursPerYear: real("hours_per_year").notNull(),
     movePct: real("move_pct").notNull(),
@@ -101,10 +114,14 @@ export const axes = sqliteTable(
     peakTorqueNm: real("peak_torque_nm").notNull(),
     holdTorqueNm: real("hold_torque_nm").notNull().default(0),
     ambientC: real("ambient_c").notNull().default(40),
+    motion: text("motion", { mode: "json" }).$type<ParsedMotion>(),
     // reliability
     stepLossEventsPerYear: real("step_loss_events_per_year").notNull().default(0),
     costPerEvent: text("cost_per_event").notNull().default("0"),
     avoidedPct: real("avoided_pct").notNull().default(90),
+    // reliability.event of the engine (named so in the API too): the cost of one step-loss event
+    // built from what it causes; with it, cost_per_event is not sent to the engine.
+    event: text("step_loss_event", { mode: "json" }).$type<StoredStepLossEvent>(),
     createdAt: createdAt(),
   },
   (t) => [

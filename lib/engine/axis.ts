@@ -1,4 +1,4 @@
-import type { Capability } from "./capability";
+import { capabilityNm, type Capability } from "./capability";
 import {
   closedLoopDemand,
   closedLoopMovingA,
@@ -12,8 +12,15 @@ import {
 import { isBeyondCurve, monotoneCurve } from "./curves";
 import { axisDuty, type AxisDuty } from "./duty";
 import type { AxisEconomics } from "./fleet";
-import { evaluateLoop, type LoopOutcome } from "./loop";
-import { headroomForGain, loadAngle, speedHeadroomPct, type OpenLoopStatus } from "./margin";
+import { capabilityOf, evaluateLoop, loopEnergy, type LoopOutcome, type LoopSpec } from "./loop";
+import {
+  headroomForGain,
+  loadAngle,
+  marginPct,
+  marginStatus,
+  speedHeadroomPct,
+  type OpenLoopStatus,
+} from "./margin";
 import { copperFactor, dragTorqueNm, runVectorFactor, stepGeometry, torqueConstant } from "./motor";
 import type { ParsedAxis, ParsedCase, ParsedMargins } from "./schema";
 import { insulationLifeFactor } from "./thermal";
@@ -60,6 +67,50 @@ function withIdleScaled(axis: ParsedAxis, factor: number): ParsedAxis {
   return { ...axis, drive: { ...axis.drive, idleCurrentPct } };
 }
 
+/** Today's open-loop drive on the axis, as a loop to evaluate (docs/model.md §3, §4). */
+function openLoopSpec(
+  axis: ParsedAxis,
+  duty: AxisDuty,
+  requiredPct: number,
+  searchMaxSpeed: boolean,
+): LoopSpec & { shortStatus: "step-loss" } {
+  const { motor, drive } = axis;
+  const setting = openLoopSettingA(drive);
+  const limitA = runVectorFactor(drive.stepMode) * setting;
+  const torqueCurrentA =
+    (duty.loadTorqueNm + dragTorqueNm(motor, duty.speedRpm)) / torqueConstant(motor);
+  const curve = motor.pullOutCurve ? monotoneCurve(motor.pullOutCurve) : undefined;
+  return {
+    motor,
+    busVoltageV: drive.busVoltageV,
+    currentLimitA: limitA,
+    copperFactor: copperFactor(drive.stepMode),
+    moveA: setting,
+    holdA: (setting * drive.idleCurrentPct) / 100,
+    // The chopper's setting, scaled by the share of I_lim it still reaches at speed.
+    movingAtSpeed: (disc) =>
+      limitA === 0
+        ? 0
+        : (setting * openLoopMovingMagnitudeA(limitA, torqueCurrentA, disc)) / limitA,
+    drive: { efficiencyPct: drive.efficiencyPct, fixedW: drive.standbyW },
+    // A measured curve already holds whatever resonance the axis has; the dip shapes the model.
+    shape: curve
+      ? { curve }
+      : drive.resonance
+        ? {
+            resonance: {
+              fromRpm: drive.resonance.fromRpm,
+              toRpm: drive.resonance.toRpm,
+              derate: drive.resonance.deratePct / 100,
+            },
+          }
+        : {},
+    requiredPct,
+    shortStatus: "step-loss",
+    searchMaxSpeed,
+  };
+}
+
 export function evaluateOpenLoop(
   axis: ParsedAxis,
   duty: AxisDuty,
@@ -67,61 +118,25 @@ export function evaluateOpenLoop(
   coolingCop: number | null,
   searchMaxSpeed = true,
 ) {
-  const { motor, drive } = axis;
-  const setting = openLoopSettingA(drive);
-  const limitA = runVectorFactor(drive.stepMode) * setting;
-  const torqueCurrentA =
-    (duty.loadTorqueNm + dragTorqueNm(motor, duty.speedRpm)) / torqueConstant(motor);
-  const curve = motor.pullOutCurve ? monotoneCurve(motor.pullOutCurve) : undefined;
-  const outcome: LoopOutcome<OpenLoopStatus> = evaluateLoop(
-    {
-      motor,
-      busVoltageV: drive.busVoltageV,
-      currentLimitA: limitA,
-      copperFactor: copperFactor(drive.stepMode),
-      moveA: setting,
-      holdA: (setting * drive.idleCurrentPct) / 100,
-      // The chopper's setting, scaled by the share of I_lim it still reaches at speed.
-      movingAtSpeed: (disc) =>
-        limitA === 0
-          ? 0
-          : (setting * openLoopMovingMagnitudeA(limitA, torqueCurrentA, disc)) / limitA,
-      drive: { efficiencyPct: drive.efficiencyPct, fixedW: drive.standbyW },
-      // A measured curve already holds whatever resonance the axis has; the dip shapes the model.
-      shape: curve
-        ? { curve }
-        : drive.resonance
-          ? {
-              resonance: {
-                fromRpm: drive.resonance.fromRpm,
-                toRpm: drive.resonance.toRpm,
-                derate: drive.resonance.deratePct / 100,
-              },
-            }
-          : {},
-      requiredPct,
-      shortStatus: "step-loss",
-      searchMaxSpeed,
-    },
-    duty,
-    coolingCop,
-  );
-  return { ...outcome, curve };
+  const spec = openLoopSpec(axis, duty, requiredPct, searchMaxSpeed);
+  const outcome: LoopOutcome<OpenLoopStatus> = evaluateLoop(spec, duty, coolingCop);
+  return outcome;
 }
 
-export function evaluateClosedLoop(
+/** The proposed kit on the axis, as a loop to evaluate, with what decides "undersized". */
+function closedLoopSpec(
   axis: ParsedAxis,
   duty: AxisDuty,
   margins: ParsedMargins,
-  coolingCop: number | null,
-  searchMaxSpeed = true,
+  searchMaxSpeed: boolean,
 ) {
   const kit = axis.retrofit.kit;
   const motor = kitMotor(axis);
   const demand = closedLoopDemand(axis, duty);
   const maxA = kitMaxCurrentA(kit, motor);
   const busVoltageV = kit.busVoltageV ?? axis.drive.busVoltageV;
-  let shortOfVoltage = false;
+  // Set by pass 2: a torque current the bus cannot drive at speed.
+  const voltage = { short: false };
 
   // The motor and bus of today with a measured curve: what it did open loop at today's current
   // it does closed loop too, scaled by the kit's current against today's.
@@ -136,35 +151,43 @@ export function evaluateClosedLoop(
         }
       : undefined;
 
-  const outcome = evaluateLoop(
-    {
-      motor,
-      busVoltageV,
-      currentLimitA: maxA,
-      copperFactor: 1,
-      moveA: demand.moveA,
-      holdA: demand.holdA,
-      movingAtSpeed: (disc) => {
-        if (demand.lowSpeedSensorless) return maxA;
-        const moving = closedLoopMovingA(demand.moveA, maxA, disc);
-        shortOfVoltage = moving.short;
-        return moving.magnitudeA;
-      },
-      drive: { efficiencyPct: kit.efficiencyPct, fixedW: kit.standbyW + kitEncoderW(kit) },
-      shape: floor ? { floor } : {},
-      // Below its minimum speed a sensorless kit is open loop in effect, and needs its margin.
-      requiredPct: demand.lowSpeedSensorless
-        ? margins.openLoopRequiredPct
-        : margins.closedLoopRequiredPct,
-      shortStatus: "undersized",
-      searchMaxSpeed,
+  const spec: LoopSpec & { shortStatus: "undersized" } = {
+    motor,
+    busVoltageV,
+    currentLimitA: maxA,
+    copperFactor: 1,
+    moveA: demand.moveA,
+    holdA: demand.holdA,
+    movingAtSpeed: (disc) => {
+      if (demand.lowSpeedSensorless) return maxA;
+      const moving = closedLoopMovingA(demand.moveA, maxA, disc);
+      voltage.short = moving.short;
+      return moving.magnitudeA;
     },
-    duty,
-    coolingCop,
-  );
+    drive: { efficiencyPct: kit.efficiencyPct, fixedW: kit.standbyW + kitEncoderW(kit) },
+    shape: floor ? { floor } : {},
+    // Below its minimum speed a sensorless kit is open loop in effect, and needs its margin.
+    requiredPct: demand.lowSpeedSensorless
+      ? margins.openLoopRequiredPct
+      : margins.closedLoopRequiredPct,
+    shortStatus: "undersized",
+    searchMaxSpeed,
+  };
+  return { spec, demand, voltage };
+}
+
+export function evaluateClosedLoop(
+  axis: ParsedAxis,
+  duty: AxisDuty,
+  margins: ParsedMargins,
+  coolingCop: number | null,
+  searchMaxSpeed = true,
+) {
+  const { spec, demand, voltage } = closedLoopSpec(axis, duty, margins, searchMaxSpeed);
+  const outcome = evaluateLoop(spec, duty, coolingCop);
   // A moving or holding demand above I_max, or a torque current the bus cannot drive at speed,
   // makes the kit undersized whatever the margin.
-  if (demand.demandAboveLimit || shortOfVoltage) outcome.result.status = "undersized";
+  if (demand.demandAboveLimit || voltage.short) outcome.result.status = "undersized";
   return {
     outcome,
     undersized: outcome.result.status === "undersized",
@@ -219,11 +242,29 @@ export function evaluateAxisPhysics(
   const motionSpec = axis.duty.motion;
   const avoidsEvents = !closed.undersized && !closed.lowSpeedSensorless;
 
-  // Added in place: copying the loop result with a spread cost more than the physics.
-  const openLoopResult = ol as OpenLoopResult;
-  openLoopResult.loadAngleElecDeg = angle.elecDeg;
-  openLoopResult.loadAngleMechDeg = angle.mechDeg;
-  openLoopResult.holdingCapabilityNm = holdingNm;
+  // One literal with every key: adding keys to the loop result afterwards changed its hidden
+  // class on every axis, and a spread copy cost more than the physics.
+  const openLoopResult: OpenLoopResult = {
+    currentMoveA: ol.currentMoveA,
+    currentHoldA: ol.currentHoldA,
+    resistanceHotOhm: ol.resistanceHotOhm,
+    windingTempC: ol.windingTempC,
+    copperLossMoveW: ol.copperLossMoveW,
+    copperLossHoldW: ol.copperLossHoldW,
+    ironLossW: ol.ironLossW,
+    inputPowerW: ol.inputPowerW,
+    energyKWhPerYear: ol.energyKWhPerYear,
+    cabinetHeatW: ol.cabinetHeatW,
+    coolingKWhPerYear: ol.coolingKWhPerYear,
+    torqueAtSpeedNm: ol.torqueAtSpeedNm,
+    marginPct: ol.marginPct,
+    status: ol.status,
+    usableTorqueNm: ol.usableTorqueNm,
+    maxSpeedRpm: ol.maxSpeedRpm,
+    loadAngleElecDeg: angle.elecDeg,
+    loadAngleMechDeg: angle.mechDeg,
+    holdingCapabilityNm: holdingNm,
+  };
 
   return {
     id: axis.id,
@@ -294,44 +335,55 @@ export function economicsOf(physics: AxisPhysics): AxisEconomics {
 
 /**
  * The economics of one axis with its load and/or idle current scaled, for the sensitivity of
- * docs/model.md §8. The idle current matters only through the hours at standstill, so an axis
- * that never holds keeps its base economics; otherwise the axis is solved again without the
- * max-speed search, whose headroom matters only to a machine that values a throughput gain.
+ * docs/model.md §8: the same currents, temperatures and energies as evaluateAxisPhysics (the
+ * same loopEnergy), without the figures only the result shows. The idle current matters only
+ * through the hours at standstill, so an axis that never holds keeps its base economics, and
+ * with an encoder kit only today's drive changes. The max-speed search is left out; the
+ * headroom matters only to a machine that values a throughput gain.
  */
 export function economicsAtScale(
-  axis: ParsedAxis,
+  input: ParsedAxis,
   base: AxisPhysics,
   ctx: AxisContext,
   scale: PhysicsScale,
   valuedGainPct: number | undefined,
 ): AxisEconomics {
-  if (scale.loadTorque === 1 && (scale.idleCurrent === 1 || base.holdShare === 0))
-    return economicsOf(base);
-  if (scale.loadTorque === 1 && axis.retrofit.kit.sensing === "encoder") {
-    // The idle current changes only today's drive: an encoder kit holds with what the load asks.
-    const scaled = withIdleScaled(axis, scale.idleCurrent);
-    const open = evaluateOpenLoop(
-      scaled,
-      base.duty,
-      ctx.margins.openLoopRequiredPct,
-      ctx.coolingCop,
-      false,
-    ).result;
+  const idleOnly = scale.loadTorque === 1;
+  if (idleOnly && (scale.idleCurrent === 1 || base.holdShare === 0)) return economicsOf(base);
+  const axis = withIdleScaled(input, scale.idleCurrent);
+  const duty = idleOnly ? base.duty : axisDuty(axis, scale.loadTorque);
+  const { margins, coolingCop } = ctx;
+  const open = loopEnergy(
+    openLoopSpec(axis, duty, margins.openLoopRequiredPct, false),
+    duty,
+    coolingCop,
+  );
+  if (idleOnly && axis.retrofit.kit.sensing === "encoder")
     return {
       ...economicsOf(base),
       energyOpenLoopKWh: open.energyKWhPerYear,
       coolingOpenLoopKWh: open.coolingKWhPerYear,
     };
-  }
-  const physics = evaluateAxisPhysics(axis, ctx, scale, false);
-  const economics = economicsOf(physics);
-  if (valuedGainPct !== undefined && !physics.undersized) {
-    economics.speedHeadroomPct = headroomForGain(
-      physics.closedCapability,
-      physics.closedRequiredPct,
-      physics.duty,
-      valuedGainPct,
-    );
-  }
-  return economics;
+
+  const { spec, demand, voltage } = closedLoopSpec(axis, duty, margins, false);
+  const closed = loopEnergy(spec, duty, coolingCop);
+  const capability = capabilityOf(spec, closed.thermal.resistanceHotOhm);
+  const short =
+    marginStatus(
+      marginPct(duty.peakTorqueNm, capabilityNm(capability, duty.speedRpm)),
+      spec.requiredPct,
+    ) === "short";
+  const undersized = short || demand.demandAboveLimit || voltage.short;
+  return {
+    energyOpenLoopKWh: open.energyKWhPerYear,
+    energyClosedLoopKWh: closed.energyKWhPerYear,
+    coolingOpenLoopKWh: open.coolingKWhPerYear,
+    coolingClosedLoopKWh: closed.coolingKWhPerYear,
+    undersized,
+    avoidsEvents: !undersized && !demand.lowSpeedSensorless,
+    speedHeadroomPct:
+      valuedGainPct === undefined || undersized
+        ? null
+        : headroomForGain(capability, spec.requiredPct, duty, valuedGainPct),
+  };
 }

@@ -8,7 +8,7 @@ import {
   type VoltageDisc,
 } from "./capability";
 import type { AxisDuty } from "./duty";
-import { coolingKWhPerYear, kWhPerYear, type DriveLosses, type DutyMix } from "./energy";
+import type { DriveLosses } from "./energy";
 import { marginPct, marginStatus } from "./margin";
 import { ironLossW } from "./motor";
 import type { ParsedMotor } from "./schema";
@@ -49,12 +49,6 @@ export interface LoopOutcome<S extends string> {
   short: boolean;
 }
 
-const dutyMix = (duty: AxisDuty): DutyMix => ({
-  hoursPerYear: duty.hoursPerYear,
-  move: duty.move,
-  hold: duty.hold,
-});
-
 function thermalOf(
   spec: LoopSpec,
   duty: AxisDuty,
@@ -72,28 +66,32 @@ function thermalOf(
   });
 }
 
-/**
- * Thermal state, losses, power, energy and torque margin of one loop (docs/model.md §4–§7), in
- * the two passes of §4: the pass-1 temperature sets the resistance at which the moving current
- * is put at the operating point, and the temperature is solved again with that current.
- */
-export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
-  spec: LoopSpec & { shortStatus: S },
-  duty: AxisDuty,
-  coolingCop: number | null,
-): LoopOutcome<"ok" | "at-risk" | S> {
-  const { motor } = spec;
-  const { speedRpm } = duty;
-  const ironW = ironLossW(motor, speedRpm);
-  const modelAt = (resistanceOhm: number) =>
-    torqueModel(motor, {
-      currentLimitA: spec.currentLimitA,
-      resistanceOhm,
-      busVoltageV: spec.busVoltageV,
-    });
+/** The currents, temperature, losses and energy of one loop: what the business case needs. */
+export interface LoopEnergy {
+  moveA: number;
+  thermal: ThermalState;
+  copperMoveW: number;
+  copperHoldW: number;
+  ironW: number;
+  inputPowerW: { move: number; hold: number; off: number };
+  energyKWhPerYear: number;
+  cabinetHeatW: number;
+  coolingKWhPerYear: number;
+}
 
+/**
+ * Thermal state, losses, power and energy of one loop (docs/model.md §4–§6), in the two passes
+ * of §4: the pass-1 temperature sets the resistance at which the moving current is put at the
+ * operating point, and the temperature is solved again with that current. The sensitivity runs
+ * stop here; evaluateLoop adds the torque margin and the result.
+ */
+export function loopEnergy(spec: LoopSpec, duty: AxisDuty, coolingCop: number | null): LoopEnergy {
+  const { motor } = spec;
+  const ironW = ironLossW(motor, duty.speedRpm);
   const pass1 = thermalOf(spec, duty, spec.moveA, spec.holdA, ironW);
-  const moveA = spec.movingAtSpeed(voltageDisc(modelAt(pass1.resistanceHotOhm), speedRpm));
+  const moveA = spec.movingAtSpeed(
+    voltageDisc(modelOf(spec, pass1.resistanceHotOhm), duty.speedRpm),
+  );
   const thermal = thermalOf(spec, duty, moveA, spec.holdA, ironW);
 
   const r = thermal.resistanceHotOhm;
@@ -117,18 +115,49 @@ export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
     duty.move * (inputPowerW.move - motorMoveW) +
     duty.hold * (inputPowerW.hold - copperHoldW) +
     off * inputPowerW.off;
-
-  // Every capability has the same four keys, so the search's property reads stay monomorphic.
-  const capability: Capability = {
-    model: modelAt(r),
-    curve: spec.shape.curve,
-    resonance: spec.shape.resonance,
-    floor: spec.shape.floor,
+  const hours = duty.hoursPerYear;
+  return {
+    moveA,
+    thermal,
+    copperMoveW,
+    copperHoldW,
+    ironW,
+    inputPowerW,
+    energyKWhPerYear: (hours * averageInputW) / 1000,
+    cabinetHeatW,
+    coolingKWhPerYear: coolingCop === null ? 0 : (hours * cabinetHeatW) / 1000 / coolingCop,
   };
+}
+
+const modelOf = (spec: LoopSpec, resistanceOhm: number) =>
+  torqueModel(spec.motor, {
+    currentLimitA: spec.currentLimitA,
+    resistanceOhm,
+    busVoltageV: spec.busVoltageV,
+  });
+
+/** The loop's capability at its hot resistance (same four keys always: monomorphic reads). */
+export const capabilityOf = (spec: LoopSpec, resistanceOhm: number): Capability => ({
+  model: modelOf(spec, resistanceOhm),
+  curve: spec.shape.curve,
+  resonance: spec.shape.resonance,
+  floor: spec.shape.floor,
+});
+
+/** Energy (loopEnergy) plus the torque margin and max speed of §7, as a LoopResult. */
+export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
+  spec: LoopSpec & { shortStatus: S },
+  duty: AxisDuty,
+  coolingCop: number | null,
+): LoopOutcome<"ok" | "at-risk" | S> {
+  const { speedRpm } = duty;
+  const energy = loopEnergy(spec, duty, coolingCop);
+  const { thermal, moveA, copperMoveW, copperHoldW, ironW, inputPowerW, cabinetHeatW } = energy;
+  const r = thermal.resistanceHotOhm;
+  const capability = capabilityOf(spec, r);
   const torqueNm = capabilityNm(capability, speedRpm);
   const margin = marginPct(duty.peakTorqueNm, torqueNm);
   const byMargin = marginStatus(margin, spec.requiredPct);
-  const mix = dutyMix(duty);
 
   return {
     result: {
@@ -140,9 +169,9 @@ export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
       copperLossHoldW: copperHoldW,
       ironLossW: ironW,
       inputPowerW,
-      energyKWhPerYear: kWhPerYear(averageInputW, mix),
+      energyKWhPerYear: energy.energyKWhPerYear,
       cabinetHeatW,
-      coolingKWhPerYear: coolingKWhPerYear(cabinetHeatW, mix, coolingCop),
+      coolingKWhPerYear: energy.coolingKWhPerYear,
       torqueAtSpeedNm: torqueNm,
       marginPct: margin,
       status: byMargin === "short" ? spec.shortStatus : byMargin,

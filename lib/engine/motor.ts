@@ -48,8 +48,31 @@ export function copperFactor(mode: StepMode): number {
   }
 }
 
-/** Full step θ_s = 90°/Nr and the angles that follow from it (ENGINE.md §3). */
-export function stepGeometry(rotorTeeth: number, mode: StepMode, microsteps: number) {
+type StepGeometry = {
+  stepAngleDeg: number;
+  stepsPerRev: number;
+  resolutionDeg: number;
+  electricalCycleDeg: number;
+};
+const geometries = new Map<string, StepGeometry>();
+
+/**
+ * Full step θ_s = 90°/Nr and the angles that follow from it (docs/model.md §3). Fleets repeat a
+ * few motors and modes on thousands of axes, so each combination is worked out once and its
+ * (frozen) object shared by every axis that has it.
+ */
+export function stepGeometry(rotorTeeth: number, mode: StepMode, microsteps: number): StepGeometry {
+  const key = `${rotorTeeth}/${mode}/${microsteps}`;
+  let geometry = geometries.get(key);
+  if (geometry === undefined) {
+    geometry = Object.freeze(computeStepGeometry(rotorTeeth, mode, microsteps));
+    if (geometries.size > 1024) geometries.clear();
+    geometries.set(key, geometry);
+  }
+  return geometry;
+}
+
+function computeStepGeometry(rotorTeeth: number, mode: StepMode, microsteps: number) {
   const stepAngleDeg = 90 / rotorTeeth;
   const resolutionDeg =
     mode === "full"

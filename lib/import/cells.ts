@@ -2,7 +2,11 @@ import type { ImportField } from "./fields";
 import { toSi } from "./units";
 
 /** A cell's value in the field's SI unit, or what is wrong with it and how to fix it. */
-export type CellResult = { ok: true; value: number | string } | { ok: false; message: string };
+export type CellResult =
+  { ok: true; value: number | string | boolean } | { ok: false; message: string };
+
+const YES = new Set(["yes", "y", "true", "1", "x"]);
+const NO = new Set(["no", "n", "false", "0"]);
 
 const PLAIN_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const DECIMAL_COMMA = /^([+-]?)(\d+),(\d+)$/;
@@ -124,6 +128,12 @@ export function parseCell(
     }
     case "money-string":
       return parseMoney(field, text);
+    case "boolean": {
+      const word = text.toLowerCase();
+      if (YES.has(word)) return { ok: true, value: true };
+      if (NO.has(word)) return { ok: true, value: false };
+      return { ok: false, message: `"${text}" is not yes or no; enter yes or no` };
+    }
     case "number":
     case "int": {
       const parsed = parseNumberText(text);

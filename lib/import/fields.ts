@@ -1,22 +1,38 @@
-import type { Axis } from "@/db/schema/installed-base";
+import type { Axis, StoredStepLossEvent } from "@/db/schema/installed-base";
+import type { ParsedMotion } from "@/lib/engine/schema";
+import { MECHANISMS } from "@/lib/engine/schema";
 
 /** Unit conversion a column may carry; "none" columns take their one unit only (or none). */
-export type QuantityKind = "torque" | "inductance" | "speed" | "none";
+export type QuantityKind = "torque" | "inductance" | "speed" | "inertia" | "none";
 
-export type FieldType = "text" | "number" | "int" | "enum" | "money-string";
+export type FieldType = "text" | "number" | "int" | "enum" | "money-string" | "boolean";
 
 /**
  * The axis columns an import fills, in SI units as stored. Not imported: the ids, the reference
  * motor (chosen in the app) and pullOutCurve — a measured curve is a list of points, which does
- * not fit one spreadsheet cell per field; it is entered on the axis form.
+ * not fit one spreadsheet cell per field; it is entered on the axis form — and the resonance band
+ * (a model setting, entered with the API). Motion and the step-loss event build-up are objects,
+ * filled from the `motion.*` and `event.*` columns.
  */
 export type AxisColumns = Omit<
   Axis,
-  "id" | "siteId" | "machineId" | "referenceMotorId" | "pullOutCurve" | "createdAt"
+  | "id"
+  | "siteId"
+  | "machineId"
+  | "referenceMotorId"
+  | "pullOutCurve"
+  | "createdAt"
+  | "motion"
+  | "event"
+  | "resonance"
 >;
 
+/** Columns of ENGINE.md §3a's MotionInput and of §8's reliability.event, by engine name. */
+export type MotionFieldKey = `motion.${keyof ParsedMotion}`;
+export type EventFieldKey = `event.${keyof StoredStepLossEvent}`;
+
 /** "machine" is the machine's name; each row names one, and new names create machines. */
-export type ImportFieldKey = "machine" | keyof AxisColumns;
+export type ImportFieldKey = "machine" | keyof AxisColumns | MotionFieldKey | EventFieldKey;
 
 export interface ImportField {
   key: ImportFieldKey;
@@ -31,6 +47,11 @@ export interface ImportField {
   default?: number | string;
   /** Blank takes the site's value, which the caller passes to validateRows. */
   siteDefault?: true;
+  /**
+   * Required on a row without a mechanism; with one, ENGINE.md §3a derives the figure, a blank
+   * cell is stored as 0 (a placeholder the engine never receives) and the column may be absent.
+   */
+  requiredUnlessMotion?: true;
   choices?: readonly string[];
   /** Bounds in the field's SI unit; minExclusive makes min a "greater than". */
   min?: number;
@@ -127,6 +148,7 @@ const SPECS = {
     type: "number",
     required: true,
     min: 0,
+    minExclusive: true,
     synonyms: ["Inductance per phase"],
     help: "Datasheet inductance of one phase winding.",
   },
@@ -282,7 +304,8 @@ const SPECS = {
     quantity: "none",
     unit: "%",
     type: "number",
-    required: true,
+    required: false,
+    requiredUnlessMotion: true,
     min: 0,
     max: 100,
     help: "Share of the running hours the axis is moving.",
@@ -292,7 +315,8 @@ const SPECS = {
     quantity: "none",
     unit: "%",
     type: "number",
-    required: true,
+    required: false,
+    requiredUnlessMotion: true,
     min: 0,
     max: 100,
     help: "Share of the running hours the axis holds its position energised; for the rest it is off.",
@@ -302,7 +326,8 @@ const SPECS = {
     quantity: "speed",
     unit: "rpm",
     type: "number",
-    required: true,
+    required: false,
+    requiredUnlessMotion: true,
     min: 0,
     synonyms: ["Motor speed"],
     help: "Motor shaft speed while the axis moves.",
@@ -312,7 +337,8 @@ const SPECS = {
     quantity: "torque",
     unit: "N·m",
     type: "number",
-    required: true,
+    required: false,
+    requiredUnlessMotion: true,
     min: 0,
     help: "RMS load torque at the motor shaft while moving: friction, process force and the acceleration share.",
   },
@@ -321,7 +347,8 @@ const SPECS = {
     quantity: "torque",
     unit: "N·m",
     type: "number",
-    required: true,
+    required: false,
+    requiredUnlessMotion: true,
     min: 0,
     help: "Highest torque at the motor shaft while moving, usually when accelerating; at least the load torque.",
   },
@@ -363,7 +390,7 @@ const SPECS = {
     type: "money-string",
     required: false,
     default: "0",
-    help: "Cost of one step-loss event in the site's currency: scrap, downtime and labour.",
+    help: "Cost of one step-loss event in the site's currency: scrap, downtime and labour. Leave it blank when the event columns below build the cost up.",
   },
   avoidedPct: {
     label: "Avoided step-loss events",
@@ -376,12 +403,217 @@ const SPECS = {
     max: 100,
     help: "Share of the step-loss events that closed-loop control avoids; the default of 90 % is an assumption without a published source.",
   },
+  // ENGINE.md §3a: the mechanism and the move. A blank cell takes the engine's default; without a
+  // mechanism the motion columns must stay blank. Bounds are the engine's own (motionInputSchema),
+  // checked on the object a row builds, so that the importer and the engine cannot disagree.
+  "motion.mechanism": {
+    label: "Mechanism",
+    quantity: "none",
+    unit: null,
+    type: "enum",
+    required: false,
+    choices: MECHANISMS,
+    help: "What the motor drives: belt, rack, screw or rotary. With a mechanism the speed, torques and move and hold shares are derived from the motion columns and may stay blank.",
+  },
+  "motion.radiusMm": {
+    label: "Pulley or pinion radius",
+    quantity: "none",
+    unit: "mm",
+    type: "number",
+    required: false,
+    help: "Pitch radius of the belt pulley or the rack pinion; required for a belt or a rack.",
+  },
+  "motion.leadMm": {
+    label: "Screw lead",
+    quantity: "none",
+    unit: "mm",
+    type: "number",
+    required: false,
+    help: "Travel per screw turn; required for a screw.",
+  },
+  "motion.efficiencyPct": {
+    label: "Mechanism efficiency",
+    quantity: "none",
+    unit: "%",
+    type: "number",
+    required: false,
+    help: "Efficiency of the belt, rack, screw or rotary stage; blank takes belt 95, rack 90, screw 90, rotary 100 (common practice, not a published value).",
+  },
+  "motion.gearRatio": {
+    label: "Gear ratio",
+    quantity: "none",
+    unit: null,
+    type: "number",
+    required: false,
+    help: "Motor turns per turn of the mechanism's shaft; blank is 1 (no gearbox).",
+  },
+  "motion.gearEfficiencyPct": {
+    label: "Gear efficiency",
+    quantity: "none",
+    unit: "%",
+    type: "number",
+    required: false,
+    help: "Efficiency of the gearbox; blank is 100 (no gearbox).",
+  },
+  "motion.massKg": {
+    label: "Moving mass",
+    quantity: "none",
+    unit: "kg",
+    type: "number",
+    required: false,
+    help: "Mass the belt, rack or screw moves, carriage and payload together; blank is 0.",
+  },
+  "motion.loadInertiaKgM2": {
+    label: "Load inertia",
+    quantity: "inertia",
+    unit: "kg·m²",
+    type: "number",
+    required: false,
+    help: "Inertia at the mechanism's shaft: pulleys, screw, rotary table; blank is 0.",
+  },
+  "motion.motorInertiaKgM2": {
+    label: "Rotor inertia",
+    quantity: "inertia",
+    unit: "kg·m²",
+    type: "number",
+    required: false,
+    help: "Rotor inertia of the motor from its datasheet; blank (0) means unknown, and the peak torque then misses the rotor's own share.",
+  },
+  "motion.inclineDeg": {
+    label: "Incline",
+    quantity: "none",
+    unit: "°",
+    type: "number",
+    required: false,
+    help: "Angle of the travel above horizontal, 0 to 90: 90 is a vertical axis whose forward move goes up. Blank is 0.",
+  },
+  "motion.frictionCoeff": {
+    label: "Friction coefficient",
+    quantity: "none",
+    unit: null,
+    type: "number",
+    required: false,
+    help: "Coulomb friction coefficient of the guide on its normal force; blank is 0.",
+  },
+  "motion.externalForceN": {
+    label: "Process force",
+    quantity: "none",
+    unit: "N",
+    type: "number",
+    required: false,
+    help: "Force of the process against the motion of a belt, rack or screw; blank is 0.",
+  },
+  "motion.externalTorqueNm": {
+    label: "Process torque",
+    quantity: "torque",
+    unit: "N·m",
+    type: "number",
+    required: false,
+    help: "Torque of the process against the motion at a rotary mechanism's shaft; blank is 0.",
+  },
+  "motion.stroke": {
+    label: "Stroke",
+    quantity: "none",
+    unit: null,
+    type: "number",
+    required: false,
+    help: "Length of one move: millimetres for a belt, rack or screw, degrees for a rotary mechanism; required with a mechanism.",
+  },
+  "motion.moveTimeS": {
+    label: "Move duration",
+    quantity: "none",
+    unit: "s",
+    type: "number",
+    required: false,
+    help: "Time one move takes, from standstill to standstill; required with a mechanism.",
+  },
+  "motion.accelSharePct": {
+    label: "Acceleration share",
+    quantity: "none",
+    unit: "%",
+    type: "number",
+    required: false,
+    help: "Share of the move spent accelerating (the same share decelerating), at most 50; blank is 25 (common practice).",
+  },
+  "motion.dwellTimeS": {
+    label: "Dwell after each move",
+    quantity: "none",
+    unit: "s",
+    type: "number",
+    required: false,
+    help: "Standstill after each move, holding position; blank is 0.",
+  },
+  "motion.returnMove": {
+    label: "Return move",
+    quantity: "none",
+    unit: null,
+    type: "boolean",
+    required: false,
+    help: "Yes when each forward move is followed by the move back; blank is yes.",
+  },
+  "motion.energizedPct": {
+    label: "Cycling share",
+    quantity: "none",
+    unit: "%",
+    type: "number",
+    required: false,
+    help: "Share of the running hours in which the axis cycles; blank is 100.",
+  },
+  "motion.maxInertiaRatio": {
+    label: "Highest inertia ratio",
+    quantity: "none",
+    unit: null,
+    type: "number",
+    required: false,
+    help: "Load-to-rotor inertia ratio above which the axis is warned; blank is 10 (common practice for open-loop steppers).",
+  },
+  // ENGINE.md §8: the cost of one step-loss event built up from what it causes, priced with the
+  // case's downtime cost and labour rate. Any of these columns filled builds it.
+  "event.downtimeMinutes": {
+    label: "Downtime per step-loss event",
+    quantity: "none",
+    unit: "min",
+    type: "number",
+    required: false,
+    help: "Minutes the machine stands after one step-loss event; priced at the case's downtime cost per hour.",
+  },
+  "event.scrapParts": {
+    label: "Scrap parts per step-loss event",
+    quantity: "none",
+    unit: null,
+    type: "number",
+    required: false,
+    help: "Parts scrapped by one step-loss event.",
+  },
+  "event.scrapCostPerPart": {
+    label: "Cost per scrap part",
+    quantity: "none",
+    unit: null,
+    type: "money-string",
+    required: false,
+    help: "Cost of one scrapped part in the site's currency.",
+  },
+  "event.restartLaborHours": {
+    label: "Restart labour per step-loss event",
+    quantity: "none",
+    unit: "h",
+    type: "number",
+    required: false,
+    help: "Hours of work to restart after one step-loss event; priced at the case's labour rate.",
+  },
 } as const satisfies Record<ImportFieldKey, FieldSpec>;
 
 /** Every importable field, in template column order. */
 export const IMPORT_FIELDS: readonly ImportField[] = Object.entries(SPECS).map(
   ([key, spec]) => ({ key: key as ImportFieldKey, ...spec }) as ImportField,
 );
+
+/** The object a `motion.*` or `event.*` field belongs to and its key there. */
+export function nestedKey(key: ImportFieldKey): { group: "motion" | "event"; name: string } | null {
+  const dot = key.indexOf(".");
+  if (dot < 0) return null;
+  return { group: key.slice(0, dot) as "motion" | "event", name: key.slice(dot + 1) };
+}
 
 const BY_KEY = new Map<string, ImportField>(IMPORT_FIELDS.map((f) => [f.key, f]));
 

@@ -78,7 +78,8 @@ function unitProblem(field: ImportField, unitText: string): string {
   if (field.quantity === "none") {
     return `unit "${unitText}" does not fit ${field.label}; enter the values in ${field.unit} and head the column "${headerFor(field)}"`;
   }
-  return `unit "${unitText}" is not a ${field.quantity} unit; use one of ${units.join(", ")}, e.g. "${headerFor(field)}"`;
+  const article = /^[aeiou]/.test(field.quantity) ? "an" : "a";
+  return `unit "${unitText}" is not ${article} ${field.quantity} unit; use one of ${units.join(", ")}, e.g. "${headerFor(field)}"`;
 }
 
 /**
@@ -172,9 +173,12 @@ export function matchHeaders(
     ...columnOfKey.keys(),
     ...problems.flatMap((p) => (p.key === undefined ? [] : [p.key])),
   ]);
-  const missing = IMPORT_FIELDS.filter((f) => f.required && !attempted.has(f.key)).map(
-    (f) => f.key,
-  );
+  // A mechanism column lets rows derive the duty figures (ENGINE.md §3a); without one, their
+  // columns are as required as before motion existed.
+  const withMotion = attempted.has("motion.mechanism");
+  const missing = IMPORT_FIELDS.filter(
+    (f) => (f.required || (f.requiredUnlessMotion && !withMotion)) && !attempted.has(f.key),
+  ).map((f) => f.key);
 
   return { mapping, problems, ignored, missing };
 }

@@ -4,8 +4,10 @@ import { IMPORT_FIELDS, type ImportField, type ImportFieldKey } from "./fields";
 import { headerFor } from "./headers";
 import { supportedUnits } from "./units";
 
+type Example = Record<ImportFieldKey, number | string>;
+
 /** An invented axis of NEMA 23 class, in the template's (SI) units; blank = left to its default. */
-const EXAMPLE: Record<ImportFieldKey, number | string> = {
+const TYPED_EXAMPLE: Example = {
   machine: "Carton erector 2",
   label: "X feed",
   quantity: 2,
@@ -38,7 +40,70 @@ const EXAMPLE: Record<ImportFieldKey, number | string> = {
   stepLossEventsPerYear: 3,
   costPerEvent: "250.00",
   avoidedPct: 90,
+  "motion.mechanism": "",
+  "motion.radiusMm": "",
+  "motion.leadMm": "",
+  "motion.efficiencyPct": "",
+  "motion.gearRatio": "",
+  "motion.gearEfficiencyPct": "",
+  "motion.massKg": "",
+  "motion.loadInertiaKgM2": "",
+  "motion.motorInertiaKgM2": "",
+  "motion.inclineDeg": "",
+  "motion.frictionCoeff": "",
+  "motion.externalForceN": "",
+  "motion.externalTorqueNm": "",
+  "motion.stroke": "",
+  "motion.moveTimeS": "",
+  "motion.accelSharePct": "",
+  "motion.dwellTimeS": "",
+  "motion.returnMove": "",
+  "motion.energizedPct": "",
+  "motion.maxInertiaRatio": "",
+  "event.downtimeMinutes": "",
+  "event.scrapParts": "",
+  "event.scrapCostPerPart": "",
+  "event.restartLaborHours": "",
 };
+
+/**
+ * An invented vertical screw axis described by its mechanism and move (ENGINE.md §3a): the
+ * speed, torques and duty shares stay blank and are derived; its step-loss events are costed
+ * from what one causes (§8) instead of a cost per event.
+ */
+const MOTION_EXAMPLE: Example = {
+  ...TYPED_EXAMPLE,
+  label: "Z lift",
+  quantity: 1,
+  holdTorqueNm: "",
+  movePct: "",
+  holdPct: "",
+  speedRpm: "",
+  loadTorqueNm: "",
+  peakTorqueNm: "",
+  stepLossEventsPerYear: 4,
+  costPerEvent: "",
+  "motion.mechanism": "screw",
+  "motion.leadMm": 10,
+  "motion.massKg": 6,
+  "motion.motorInertiaKgM2": 0.000048,
+  "motion.loadInertiaKgM2": 0.000012,
+  "motion.inclineDeg": 90,
+  "motion.frictionCoeff": 0.05,
+  "motion.stroke": 150,
+  "motion.moveTimeS": 0.5,
+  "motion.dwellTimeS": 1.5,
+  "event.downtimeMinutes": 20,
+  "event.scrapParts": 3,
+  "event.scrapCostPerPart": "4.80",
+  "event.restartLaborHours": 0.5,
+};
+
+const EXAMPLES = [TYPED_EXAMPLE, MOTION_EXAMPLE];
+
+// Money cells go into the workbook as numbers, so that a spreadsheet shows them as amounts.
+const xlsxCell = (field: ImportField, value: number | string) =>
+  field.type === "money-string" && value !== "" ? Number(value) : value;
 
 /** One header per import field, `Label [unit]` or `Label` for a unitless field, in field order. */
 export function templateHeaders(): string[] {
@@ -47,6 +112,7 @@ export function templateHeaders(): string[] {
 
 function defaultText(field: ImportField): string {
   if (field.required) return "none: required";
+  if (field.requiredUnlessMotion) return "none: required without a mechanism";
   if (field.siteDefault) return "the site's value";
   if (field.default === undefined) return "none: may stay blank";
   return String(field.default);
@@ -58,7 +124,8 @@ function unitsText(field: ImportField): string {
 }
 
 /**
- * The import template as .xlsx: sheet "Axes" with the bold header row and one example row, and
+ * The import template as .xlsx: sheet "Axes" with the bold header row and two example rows (typed
+ * duty figures, and a mechanism with its move), and
  * sheet "Help" with each column's unit, the units it may be given in, whether it is required,
  * its default and what the value is. Plain values only, no formulas.
  */
@@ -68,9 +135,8 @@ export async function templateXlsx(): Promise<Buffer> {
   const headers = templateHeaders();
   axes.columns = headers.map((header) => ({ header, width: Math.max(12, header.length + 2) }));
   axes.getRow(1).font = { bold: true };
-  axes.addRow(
-    IMPORT_FIELDS.map((f) => (f.key === "costPerEvent" ? Number(EXAMPLE[f.key]) : EXAMPLE[f.key])),
-  );
+  for (const example of EXAMPLES)
+    axes.addRow(IMPORT_FIELDS.map((f) => xlsxCell(f, example[f.key])));
 
   const help = workbook.addWorksheet("Help");
   help.columns = [
@@ -88,7 +154,7 @@ export async function templateXlsx(): Promise<Buffer> {
       headerFor(field),
       field.unit ?? "",
       unitsText(field),
-      field.required ? "yes" : "no",
+      field.required ? "yes" : field.requiredUnlessMotion ? "without a mechanism" : "no",
       defaultText(field),
       field.help + choices,
     ]);
@@ -98,13 +164,13 @@ export async function templateXlsx(): Promise<Buffer> {
 }
 
 /**
- * The import template as CSV: header and example row, CRLF line ends (RFC 4180) and a UTF-8 BOM,
+ * The import template as CSV: header and the two example rows, CRLF line ends (RFC 4180) and a UTF-8 BOM,
  * without which spreadsheet programs misread "N·m", "Ω" and "°C" as a legacy code page.
  */
 export function templateCsv(): string {
   const lines = [
     templateHeaders().map((h) => csvField(h)),
-    IMPORT_FIELDS.map((f) => csvField(String(EXAMPLE[f.key]))),
+    ...EXAMPLES.map((example) => IMPORT_FIELDS.map((f) => csvField(String(example[f.key])))),
   ];
   return `\uFEFF${lines.map((line) => line.join(",")).join("\r\n")}\r\n`;
 }

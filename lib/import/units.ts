@@ -1,8 +1,20 @@
-import { canonicalTorqueUnit, TORQUE_FACTORS_TO_NM, TORQUE_UNIT_NAMES } from "@/lib/engine/units";
+import {
+  canonicalInertiaUnit,
+  canonicalTorqueUnit,
+  INERTIA_FACTORS_TO_KG_M2,
+  INERTIA_UNIT_NAMES,
+  TORQUE_FACTORS_TO_NM,
+  TORQUE_UNIT_NAMES,
+} from "@/lib/engine/units";
 import type { ImportField, QuantityKind } from "./fields";
 
 /** SI (stored) unit of each convertible quantity; inductance is stored in mH, speed in rpm. */
-export const SI_UNITS = { torque: "N·m", inductance: "mH", speed: "rpm" } as const;
+export const SI_UNITS = {
+  torque: "N·m",
+  inductance: "mH",
+  speed: "rpm",
+  inertia: "kg·m²",
+} as const;
 
 /** 1 H = 1000 mH: the prefix milli is 10⁻³ (NIST SP 811, ch. 4, SI prefixes). */
 export const INDUCTANCE_FACTORS_TO_MH = { mH: 1, H: 1000 } as const;
@@ -44,6 +56,12 @@ const FIXED_ALIASES: Record<string, readonly string[]> = {
   h: ["h", "hours", "h/year", "h/yr", "hours/year"],
   "°C": ["°c", "℃", "degc", "c", "ºc"],
   W: ["w", "watt", "watts"],
+  mm: ["mm", "millimetre", "millimetres", "millimeter", "millimeters"],
+  kg: ["kg", "kilogram", "kilograms"],
+  "°": ["°", "º", "deg", "degree", "degrees"],
+  N: ["n", "newton", "newtons"],
+  s: ["s", "sec", "second", "seconds"],
+  min: ["min", "minute", "minutes"],
 };
 
 /** A unit a column is read in, and its factor to the field's SI unit. */
@@ -89,6 +107,11 @@ export function resolveColumnUnit(
       const unit = SPEED_ALIASES[squash(unitText)];
       return unit === undefined ? undefined : { unit, factor: SPEED_FACTORS_TO_RPM[unit] };
     }
+    case "inertia": {
+      // Spellings and factors are the engine's (lib/engine/units.ts, NIST SP 811 App. B.9).
+      const unit = canonicalInertiaUnit(unitText);
+      return unit === undefined ? undefined : { unit, factor: INERTIA_FACTORS_TO_KG_M2[unit] };
+    }
     case "none": {
       if (field.unit === null) return undefined;
       const spelled = squash(unitText);
@@ -111,6 +134,8 @@ function unitsOf(quantity: QuantityKind, unit: string | null): readonly string[]
       return Object.keys(INDUCTANCE_FACTORS_TO_MH);
     case "speed":
       return Object.keys(SPEED_FACTORS_TO_RPM);
+    case "inertia":
+      return INERTIA_UNIT_NAMES;
     case "none":
       return unit === null ? [] : [unit];
   }

@@ -1,7 +1,11 @@
+import type { StoredStepLossEvent } from "@/db/schema/installed-base";
+import type { ParsedMotion } from "@/lib/engine/schema";
+import { motionSchema, stepLossEventSchema } from "@/lib/validations/installed-base";
 import { parseCell } from "./cells";
 import {
   IMPORT_FIELDS,
   importField,
+  nestedKey,
   type AxisColumns,
   type ImportField,
   type ImportFieldKey,
@@ -15,8 +19,16 @@ export interface SiteDefaults {
   ambientC: number;
 }
 
-/** One valid row: every axis column in SI units, its machine's name and its spreadsheet row. */
-export type ValidatedAxis = AxisColumns & { machineName: string; sourceRow: number };
+/**
+ * One valid row: every axis column in SI units, its motion and step-loss event build-up as the
+ * engine parsed them (null when the row has none), its machine's name and its spreadsheet row.
+ */
+export type ValidatedAxis = AxisColumns & {
+  motion: ParsedMotion | null;
+  event: StoredStepLossEvent | null;
+  machineName: string;
+  sourceRow: number;
+};
 
 export interface ImportCellError {
   /** Row number as a spreadsheet shows it: the header is row 1, the first data row 2. */
@@ -44,13 +56,31 @@ const PEAK_SLOT = slotOf("peakTorqueNm");
 const MOVE_SLOT = slotOf("movePct");
 const HOLD_SLOT = slotOf("holdPct");
 
-type Value = number | string | null;
+/** Fields of a nested object (motion, event) with their slot and their key in that object. */
+const nestedFields = (group: "motion" | "event") =>
+  IMPORT_FIELDS.flatMap((field, slot) => {
+    const nested = nestedKey(field.key);
+    return nested?.group === group ? [{ field, slot, name: nested.name }] : [];
+  });
+const MOTION_FIELDS = nestedFields("motion");
+const EVENT_FIELDS = nestedFields("event");
+const FLAT_SLOTS = IMPORT_FIELDS.flatMap((f, slot) =>
+  slot !== MACHINE_SLOT && nestedKey(f.key) === null ? [slot] : [],
+);
+const DUTY_SLOTS = IMPORT_FIELDS.flatMap((f, slot) => (f.requiredUnlessMotion ? [slot] : []));
 
-function toAxis(values: readonly Value[], sourceRow: number): ValidatedAxis {
+type Value = number | string | boolean | null;
+
+function toAxis(
+  values: readonly Value[],
+  sourceRow: number,
+  motion: ParsedMotion | null,
+  event: StoredStepLossEvent | null,
+): ValidatedAxis {
   const axis: Record<string, unknown> = {};
-  for (let i = 0; i < IMPORT_FIELDS.length; i++) {
-    if (i !== MACHINE_SLOT) axis[IMPORT_FIELDS[i].key] = values[i];
-  }
+  for (const slot of FLAT_SLOTS) axis[IMPORT_FIELDS[slot].key] = values[slot];
+  axis.motion = motion;
+  axis.event = event;
   axis.machineName = values[MACHINE_SLOT];
   axis.sourceRow = sourceRow;
   return axis as ValidatedAxis;
@@ -143,12 +173,151 @@ export function validateRows(
     }
     const machine = values[MACHINE_SLOT];
     if (typeof machine === "string") machines.add(machine);
-    crossFieldChecks(values, cells, columnOf, rowNumber, errors);
+    const cellsOk = errors.length === errorsBefore;
+    // A mechanism typed but misspelt has its own message; the row is then judged as a motion row.
+    const mechanismColumn = columnOf.get("motion.mechanism");
+    const withMechanism =
+      mechanismColumn !== undefined && (cells[mechanismColumn.index] ?? "").trim() !== "";
+    const motion = withMechanism ? motionOf(values, columnOf, rowNumber, errors, cellsOk) : null;
+    if (!withMechanism) noMotionWithoutMechanism(values, columnOf, rowNumber, errors);
+    const event = eventOf(values, cells, columnOf, rowNumber, errors, cellsOk);
+    if (!withMechanism) {
+      dutyRequired(values, cells, columnOf, match.missing, rowNumber, errors);
+      crossFieldChecks(values, cells, columnOf, rowNumber, errors);
+    } else {
+      // ENGINE.md §3a derives these; a blank is stored as a placeholder the engine never gets.
+      for (const slot of DUTY_SLOTS) values[slot] ??= 0;
+    }
 
-    if (headerOk && errors.length === errorsBefore) rows.push(toAxis(values, rowNumber));
+    if (headerOk && errors.length === errorsBefore)
+      rows.push(toAxis(values, rowNumber, motion, event));
   }
 
   return { rowsRead, rows, errors, machinesNamed: [...machines] };
+}
+
+const lowerLabel = (field: ImportField) =>
+  field.label.charAt(0).toLowerCase() + field.label.slice(1);
+
+/** The header of the column that fills `key`, or the field's label when no column does. */
+const columnName = (key: ImportFieldKey, columnOf: ReadonlyMap<ImportFieldKey, Column>) =>
+  columnOf.get(key)?.header ?? (importField(key) as ImportField).label;
+
+/** Without a mechanism the typed duty figures are required (a missing column is a row-1 error). */
+function dutyRequired(
+  values: readonly Value[],
+  cells: readonly string[],
+  columnOf: ReadonlyMap<ImportFieldKey, Column>,
+  missing: readonly ImportFieldKey[],
+  row: number,
+  errors: ImportCellError[],
+): void {
+  for (const slot of DUTY_SLOTS) {
+    const field = IMPORT_FIELDS[slot];
+    if (values[slot] !== null || missing.includes(field.key)) continue;
+    const column = columnOf.get(field.key);
+    // A cell with something unreadable in it has its own message already.
+    if (column && (cells[column.index] ?? "").trim() !== "") continue;
+    const unit = column?.unit ?? field.unit;
+    errors.push({
+      row,
+      column: columnName(field.key, columnOf),
+      message: `required: enter the ${lowerLabel(field)}${unit ? ` in ${unit}` : ""}, or fill the Mechanism and motion columns to derive it`,
+    });
+  }
+}
+
+/** Motion figures on a row without a mechanism would be silently dropped: refuse the first. */
+function noMotionWithoutMechanism(
+  values: readonly Value[],
+  columnOf: ReadonlyMap<ImportFieldKey, Column>,
+  row: number,
+  errors: ImportCellError[],
+): void {
+  const given = MOTION_FIELDS.find((m) => values[m.slot] !== null);
+  if (given)
+    errors.push({
+      row,
+      column: columnName(given.field.key, columnOf),
+      message: `motion figures need a mechanism: fill the Mechanism column (belt, rack, screw or rotary) or leave the motion columns blank`,
+    });
+}
+
+/**
+ * The row's MotionInput (ENGINE.md §3a), checked by the engine's own schema so that the importer
+ * accepts exactly what the engine does; each problem is reported at the column it concerns.
+ * Blank cells are left out, so the engine's defaults apply.
+ */
+function motionOf(
+  values: readonly Value[],
+  columnOf: ReadonlyMap<ImportFieldKey, Column>,
+  row: number,
+  errors: ImportCellError[],
+  cellsOk: boolean,
+): ParsedMotion | null {
+  // A cell already refused would be reported again as "required" by the schema.
+  if (!cellsOk) return null;
+  const given = MOTION_FIELDS.filter((m) => values[m.slot] !== null);
+  const parsed = motionSchema.safeParse(
+    Object.fromEntries(given.map((m) => [m.name, values[m.slot]])),
+  );
+  if (parsed.success) return parsed.data;
+  reportNested("motion", parsed.error.issues, columnOf, row, errors);
+  return null;
+}
+
+/**
+ * The row's step-loss event build-up (ENGINE.md §8) when any of its cells is filled. The engine
+ * refuses a cost per event beside it, so a filled cost cell is an error here too.
+ */
+function eventOf(
+  values: readonly Value[],
+  cells: readonly string[],
+  columnOf: ReadonlyMap<ImportFieldKey, Column>,
+  row: number,
+  errors: ImportCellError[],
+  cellsOk: boolean,
+): StoredStepLossEvent | null {
+  const given = EVENT_FIELDS.filter((e) => values[e.slot] !== null);
+  if (given.length === 0) return null;
+  const costColumn = columnOf.get("costPerEvent");
+  if (costColumn && (cells[costColumn.index] ?? "").trim() !== "") {
+    errors.push({
+      row,
+      column: costColumn.header,
+      message: `give either the cost per step-loss event or its build-up (${given.map((e) => columnName(e.field.key, columnOf)).join(", ")}), not both; leave one of them blank`,
+    });
+    return null;
+  }
+  if (!cellsOk) return null;
+  const parsed = stepLossEventSchema.safeParse(
+    Object.fromEntries(given.map((e) => [e.name, values[e.slot]])),
+  );
+  if (parsed.success) return parsed.data;
+  reportNested("event", parsed.error.issues, columnOf, row, errors);
+  return null;
+}
+
+function reportNested(
+  group: "motion" | "event",
+  issues: readonly { path: readonly PropertyKey[]; message: string }[],
+  columnOf: ReadonlyMap<ImportFieldKey, Column>,
+  row: number,
+  errors: ImportCellError[],
+): void {
+  for (const issue of issues) {
+    const key = `${group}.${String(issue.path[0])}` as ImportFieldKey;
+    const field = importField(key);
+    const column = field
+      ? columnName(field.key, columnOf)
+      : columnName("motion.mechanism", columnOf);
+    // The engine's "required: expected a number" says what, the column says which.
+    const message =
+      field && issue.message.startsWith("required: expected")
+        ? `required with a mechanism: enter the ${lowerLabel(field)}${field.unit ? ` in ${columnOf.get(field.key)?.unit ?? field.unit}` : ""}`
+        : issue.message;
+    errors.push({ row, column, message });
+  }
 }
 
 /** ENGINE.md §2: peakTorqueNm ≥ loadTorqueNm; movePct + holdPct ≤ 100 (the rest is off). */

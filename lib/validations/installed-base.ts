@@ -9,6 +9,7 @@ import {
   positive,
   torque,
 } from "@/lib/engine/schema-fields";
+import { axisInputSchema as engineAxisSchema, stepLossEventSchema } from "@/lib/engine/schema";
 
 // Shared by the forms, the server actions, the API and the importer. Values are stored in SI
 // units; torque fields also take { value, unit } and are converted by the NIST SP 811 factors.
@@ -51,7 +52,7 @@ export const axisFieldsSchema = z.object({
   holdingTorqueNm: torque({ positive: true }),
   ratedCurrentA: positive(),
   phaseResistanceOhm: positive(),
-  phaseInductanceMh: atLeast(0),
+  phaseInductanceMh: positive(), // ENGINE.md §3: the engine needs L > 0 (validation)
   thermalResistanceKPerW: optionalNumber(positive()),
   ratedTempRiseK: positive().default(80),
   insulationClass: choice(["B", "F", "H"]).default("B"),
@@ -105,6 +106,86 @@ export const axisInputSchema = axisFieldsSchema
   .extend({ machineId: z.coerce.number().int().positive("Choose a machine") })
   .superRefine(checkAxisConsistency);
 
+// The engine's own schemas for the optional objects of ENGINE.md §2, taken from its axis schema
+// (with the radius/lead and fromRpm/toRpm rules), so that the API refuses exactly what the engine
+// would and stores them as the engine parses them (inertia in kg·m², defaults filled).
+const engineAxis = engineAxisSchema.shape;
+export const motionSchema = engineAxis.duty.shape.motion.unwrap();
+export const resonanceSchema = engineAxis.drive.shape.resonance.unwrap();
+export { stepLossEventSchema };
+
+// One axis is a few kB even with its motion; a JSON body far larger is not an axis.
+export const MAX_AXIS_BYTES = 256 * 1024;
+
+// Figures that ENGINE.md §3a derives when motion is given; without motion they are required.
+const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peakTorqueNm"] as const;
+
+/**
+ * An axis over the JSON API: the form's fields plus `motion`, `event` and `resonance`. A body
+ * states the whole axis, so on update an object left out (or null) is removed. With motion the
+ * duty figures may be left out; they are then stored as 0, a placeholder the engine never
+ * receives (db/queries/case-input.ts).
+ */
+export const axisApiSchema = axisFieldsSchema
+  .extend({
+    machineId: int(1),
+    movePct: pct().optional(),
+    holdPct: pct().optional(),
+    speedRpm: atLeast(0).optional(),
+    loadTorqueNm: torque().optional(),
+    peakTorqueNm: torque().optional(),
+    // Absent = "0", or built from `event`; both at once is refused, as the engine does.
+    costPerEvent: money().optional(),
+    motion: motionSchema.nullable().optional(),
+    event: stepLossEventSchema.nullable().optional(),
+    resonance: resonanceSchema.nullable().optional(),
+  })
+  .superRefine((a, ctx) => {
+    if (!a.motion) {
+      for (const field of MOTION_SUPPLIED)
+        if (a[field] === undefined)
+          ctx.addIssue({
+            code: "custom",
+            path: [field],
+            message: "required: expected a number (or give motion to derive it)",
+          });
+    }
+    if (
+      a.movePct !== undefined &&
+      a.holdPct !== undefined &&
+      a.loadTorqueNm !== undefined &&
+      a.peakTorqueNm !== undefined
+    )
+      checkAxisConsistency(
+        {
+          movePct: a.movePct,
+          holdPct: a.holdPct,
+          loadTorqueNm: a.loadTorqueNm,
+          peakTorqueNm: a.peakTorqueNm,
+        },
+        ctx,
+      );
+    if (a.event && a.costPerEvent !== undefined)
+      ctx.addIssue({
+        code: "custom",
+        path: ["event"],
+        message:
+          "give either costPerEvent or event (the cost built from downtime, scrap and labour), not both",
+      });
+  })
+  .transform((a) => ({
+    ...a,
+    movePct: a.movePct ?? 0,
+    holdPct: a.holdPct ?? 0,
+    speedRpm: a.speedRpm ?? 0,
+    loadTorqueNm: a.loadTorqueNm ?? 0,
+    peakTorqueNm: a.peakTorqueNm ?? 0,
+    costPerEvent: a.costPerEvent ?? "0",
+    motion: a.motion ?? null,
+    event: a.event ?? null,
+    resonance: a.resonance ?? null,
+  }));
+
 export const axisListParamsSchema = z.object({
   page: z.coerce.number().int().min(1).catch(1),
   q: z.string().trim().max(100).optional().catch(undefined),
@@ -127,4 +208,5 @@ export type SiteInput = z.infer<typeof siteInputSchema>;
 export type MachineInput = z.infer<typeof machineInputSchema>;
 export type AxisInput = z.infer<typeof axisInputSchema>;
 export type AxisFields = z.infer<typeof axisFieldsSchema>;
+export type AxisApiInput = z.output<typeof axisApiSchema>;
 export type AxisListParams = z.infer<typeof axisListParamsSchema>;

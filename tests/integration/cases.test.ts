@@ -338,8 +338,9 @@ describe("suggesting kits", () => {
         expect(s.reason).toMatch(/no kit/);
       }
     }
-    // The mix of axes gets more than one kit: the choice follows each axis's needs.
-    expect(new Set(suggestions.map((s) => s.kitId)).size).toBeGreaterThan(1);
+    // The suggestions move axes off the dearest kit: the choice follows each axis's needs (with
+    // engine 2's torque at speed the cheapest kit covers every axis of this demo hall).
+    expect(suggestions.some((s) => s.kitId !== null && s.kitId !== dearest.id)).toBe(true);
   });
 });
 

@@ -1,32 +1,58 @@
 import { getTableColumns } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { axes } from "@/db/schema/installed-base";
-import { IMPORT_FIELDS } from "@/lib/import/fields";
+import { IMPORT_FIELDS, nestedKey } from "@/lib/import/fields";
 
-const NOT_IMPORTED = ["id", "siteId", "machineId", "referenceMotorId", "pullOutCurve", "createdAt"];
+// The JSON columns motion and event are filled from the `motion.*` and `event.*` fields; the
+// resonance band is not imported.
+const NOT_IMPORTED = [
+  "id",
+  "siteId",
+  "machineId",
+  "referenceMotorId",
+  "pullOutCurve",
+  "createdAt",
+  "motion",
+  "event",
+  "resonance",
+];
+const FLAT_FIELDS = IMPORT_FIELDS.filter((f) => nestedKey(f.key) === null);
 
 describe("import fields and the axes table", () => {
   const columns = getTableColumns(axes);
 
-  it("one field per axes column except ids, the reference motor and the pull-out curve, plus the machine name", () => {
+  it("one field per axes column except ids, the reference motor, the pull-out curve and the JSON objects, plus the machine name", () => {
     const axisKeys = Object.keys(columns).filter((k) => !NOT_IMPORTED.includes(k));
     expect(
-      IMPORT_FIELDS.map((f) => f.key)
+      FLAT_FIELDS.map((f) => f.key)
         .filter((k) => k !== "machine")
         .sort(),
     ).toEqual(axisKeys.sort());
     expect(IMPORT_FIELDS[0]).toMatchObject({ key: "machine", required: true });
   });
 
-  it("a field is required exactly when its column is NOT NULL without a default, site values aside", () => {
-    for (const field of IMPORT_FIELDS) {
+  it("a field is required (or required without a mechanism) exactly when its column is NOT NULL without a default, site values aside", () => {
+    for (const field of FLAT_FIELDS) {
       if (field.key === "machine" || field.siteDefault) continue;
-      const column = columns[field.key];
-      expect({ key: field.key, required: field.required }).toEqual({
+      const column = columns[field.key as keyof typeof columns];
+      expect({
+        key: field.key,
+        required: field.required || field.requiredUnlessMotion === true,
+      }).toEqual({
         key: field.key,
         required: column.notNull && !column.hasDefault,
       });
     }
+  });
+
+  it("the figures ENGINE.md §3a derives from motion are the ones required only without a mechanism", () => {
+    expect(IMPORT_FIELDS.filter((f) => f.requiredUnlessMotion).map((f) => f.key)).toEqual([
+      "movePct",
+      "holdPct",
+      "speedRpm",
+      "loadTorqueNm",
+      "peakTorqueNm",
+    ]);
   });
 
   it("the defaults are the table's defaults (ENGINE.md §2)", () => {
@@ -48,7 +74,7 @@ describe("import fields and the axes table", () => {
   });
 
   it("choices are the table's enums", () => {
-    for (const field of IMPORT_FIELDS.filter((f) => f.type === "enum")) {
+    for (const field of FLAT_FIELDS.filter((f) => f.type === "enum")) {
       const column = columns[field.key as keyof typeof columns] as { enumValues?: string[] };
       expect([...(field.choices ?? [])].sort()).toEqual([...(column.enumValues ?? [])].sort());
     }

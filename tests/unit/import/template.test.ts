@@ -22,36 +22,52 @@ describe("template headers", () => {
     expect(headers).toContain("Phase inductance [mH]");
     expect(headers).toContain("Speed [rpm]");
     expect(headers).toContain("Step mode");
+    expect(headers).toContain("Mechanism");
+    expect(headers).toContain("Screw lead [mm]");
+    expect(headers).toContain("Rotor inertia [kg·m²]");
+    expect(headers).toContain("Downtime per step-loss event [min]");
     expect(headers).toContain("Cost per step-loss event");
   });
 });
 
-describe("template round trip: read back and validated, 1 valid row and no error", () => {
+describe("template round trip: read back and validated, 2 valid rows (typed duty, and a mechanism with its move) and no error", () => {
   it("xlsx", async () => {
     const { kind, sheets } = await readWorkbook(await templateXlsx(), "template.xlsx");
     expect(kind).toBe("xlsx");
     expect(sheets.map((s) => s.name)).toEqual(["Axes", "Help"]);
     const result = validateRows(sheets[0], matchHeaders(sheets[0].headers), site);
     expect(result.errors).toEqual([]);
-    expect(result.rowsRead).toBe(1);
-    expect(result.rows).toHaveLength(1);
+    expect(result.rowsRead).toBe(2);
+    expect(result.rows).toHaveLength(2);
     expect(result.rows[0]).toMatchObject({
       machineName: "Carton erector 2",
       label: "X feed",
       holdingTorqueNm: 1.26,
+      motion: null,
+      event: null,
+    });
+    expect(result.rows[1]).toMatchObject({
+      label: "Z lift",
+      motion: { mechanism: "screw", leadMm: 10, inclineDeg: 90 },
+      event: { scrapParts: 3, scrapCostPerPart: "4.8" },
+      costPerEvent: "0",
     });
   });
 
   it("csv", async () => {
     const text = templateCsv();
     expect(text.startsWith("\uFEFFMachine,Axis label,")).toBe(true);
-    expect(text.split("\r\n")).toHaveLength(3);
+    expect(text.split("\r\n")).toHaveLength(4);
     const { kind, sheets } = await readWorkbook(Buffer.from(text, "utf8"), "template.csv");
     expect(kind).toBe("csv");
     const result = validateRows(sheets[0], matchHeaders(sheets[0].headers), site);
     expect(result.errors).toEqual([]);
-    expect(result.rows).toHaveLength(1);
+    expect(result.rows).toHaveLength(2);
     expect(result.rows[0]).toMatchObject({ costPerEvent: "250.00", thermalResistanceKPerW: null });
+    expect(result.rows[1]).toMatchObject({
+      motion: { mechanism: "screw", stroke: 150, moveTimeS: 0.5 },
+      event: { downtimeMinutes: 20, scrapCostPerPart: "4.80" },
+    });
   });
 });
 
