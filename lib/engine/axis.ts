@@ -1,4 +1,4 @@
-import { capabilityNm, type Capability } from "./capability";
+import { capabilityNm } from "./capability";
 import {
   closedLoopDemand,
   closedLoopMovingA,
@@ -42,9 +42,6 @@ export type AxisPhysics = Omit<AxisResult, "capex" | "totals"> & {
   avoidsEvents: boolean;
   /** Share of running hours at standstill, energized. */
   holdShare: number;
-  /** The closed loop's capability and required margin, for the throughput cap's headroom. */
-  closedCapability: Capability;
-  closedRequiredPct: number;
   /** The duty the physics used (typed, or derived from the motion). */
   duty: AxisDuty;
 };
@@ -313,10 +310,6 @@ export function evaluateAxisPhysics(
     undersized: closed.undersized,
     avoidsEvents,
     holdShare: duty.hold,
-    closedCapability: closed.outcome.capability,
-    closedRequiredPct: closed.lowSpeedSensorless
-      ? margins.openLoopRequiredPct
-      : margins.closedLoopRequiredPct,
     duty,
   };
 }
