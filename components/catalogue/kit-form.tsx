@@ -21,7 +21,7 @@ type KitFormValues = z.input<typeof kitInputSchema>;
 
 export type KitMotorOption = { id: number; code: string; name: string; active: boolean };
 
-// A new kit starts with the schema defaults (ENGINE.md §2 KitInput) filled in.
+// A new kit starts with the schema defaults (docs/model.md KitInput) filled in.
 function defaults(kit?: Kit): DefaultValues<KitFormValues> {
   if (!kit) {
     return {

@@ -4,7 +4,7 @@ import { breakEvenLines, paybackSentence } from "@/lib/results/engine-v2";
 
 /**
  * When the retrofit pays back and how far the two most uncertain inputs may fall before it
- * stops doing so (ENGINE.md §8). A result from engine 1.0.0 has no break-even values: the
+ * stops doing so (docs/model.md (The business case)). A result from engine 1.0.0 has no break-even values: the
  * panel is left out rather than shown empty.
  */
 export function BreakEvenPanel({

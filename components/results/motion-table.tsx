@@ -6,7 +6,7 @@ import { formatInertia, motionRows } from "@/lib/results/engine-v2";
 import { formatNumber, formatPct } from "@/lib/results/format";
 
 /**
- * The duty of the axes described by their mechanism and move (ENGINE.md §3a), as the engine
+ * The duty of the axes described by their mechanism and move (docs/model.md (Motion from the mechanism)), as the engine
  * derived and used it: shown so an engineer can check it against the machine before quoting.
  */
 export function MotionTable({ result, input }: { result: CaseResult; input: ParsedCase | null }) {

@@ -23,7 +23,7 @@ type AxisTemplate = {
   stepLossEventsPerYear?: number;
 };
 
-// An axis described by its mechanism and move (ENGINE.md §3a) instead of typed duty figures,
+// An axis described by its mechanism and move (docs/model.md (Motion from the mechanism)) instead of typed duty figures,
 // optionally with its step-loss events costed from what one causes (§8).
 type MotionAxisTemplate = {
   label: string;

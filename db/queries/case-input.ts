@@ -10,7 +10,7 @@ import {
 import { caseAssumptionsSchema, type CaseAssumptions } from "../../lib/validations/case";
 import type { Axis, CaseAxis, Kit, Machine, Motor, Site } from "../schema";
 
-// Rows of the database turned into the engine's input (ENGINE.md §2). Pure functions, no
+// Rows of the database turned into the engine's input (docs/model.md). Pure functions, no
 // connection: the queries and the demo seed (which runs inside its own transaction) share them,
 // so a seeded case evaluates exactly as one built through the app.
 
@@ -78,7 +78,7 @@ export function kitInputOf(kit: Kit, motor: Motor | null): KitInput {
   };
 }
 
-// With motion, ENGINE.md §3a derives the duty figures and ignores any sent: the typed columns
+// With motion, docs/model.md (Motion from the mechanism) derives the duty figures and ignores any sent: the typed columns
 // (placeholders when left blank) stay out, so the input says where the figures come from.
 function dutyInputOf(axis: Axis): AxisInput["duty"] {
   if (axis.motion)
@@ -148,7 +148,7 @@ export function machineInputOf(machine: Machine): CaseInput["machines"][number] 
 }
 
 // A new case starts from its site's tariff and grid factor; everything else is the engine's
-// default (ENGINE.md §2), to be replaced by the customer's own figures.
+// default (docs/model.md), to be replaced by the customer's own figures.
 export function defaultAssumptions(
   site: Pick<Site, "tariffPerKWh" | "gridKgCo2PerKWh">,
 ): CaseAssumptions {

@@ -21,7 +21,7 @@ export function listMotors(caller: SessionUser, { includeRetired = false } = {})
 }
 
 // Cheapest first. Prices are decimal text, compared as Decimals: as text "74.00" would sort
-// after "329.00", and money does not pass through floats (ENGINE.md §1).
+// after "329.00", and money does not pass through floats (docs/model.md).
 export function listKits(caller: SessionUser, { includeRetired = false } = {}) {
   assertRole(caller, ...READERS);
   return db

@@ -6,7 +6,7 @@ const createdAt = () =>
     .notNull()
     .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 
-// Reference open-loop motors (and the new motors some kits bring): MotorInput of ENGINE.md, SI units.
+// Reference open-loop motors (and the new motors some kits bring): MotorInput of docs/model.md, SI units.
 export const motors = sqliteTable("motors", {
   id: integer("id").primaryKey({ autoIncrement: true }),
   code: text("code").notNull().unique(),
@@ -28,7 +28,7 @@ export const motors = sqliteTable("motors", {
   createdAt: createdAt(),
 });
 
-// Closed-loop retrofit kits: KitInput of ENGINE.md, with the price in a currency.
+// Closed-loop retrofit kits: KitInput of docs/model.md, with the price in a currency.
 export const kits = sqliteTable("kits", {
   id: integer("id").primaryKey({ autoIncrement: true }),
   code: text("code").notNull().unique(),

@@ -10,7 +10,7 @@ const createdAt = () =>
     .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`);
 
 // A plant of a customer account: its tariff, grid factor, climate and working hours are the
-// defaults of every case built on its machines. Money is kept as decimal text (ENGINE.md §1).
+// defaults of every case built on its machines. Money is kept as decimal text (docs/model.md).
 export const sites = sqliteTable(
   "sites",
   {
@@ -46,11 +46,11 @@ export const machines = sqliteTable(
   (t) => [uniqueIndex("machines_site_name_idx").on(t.siteId, t.name)],
 );
 
-/** ENGINE.md §3 drive.resonance and §8 reliability.event as the engine parsed them. */
+/** docs/model.md (Torque at speed) drive.resonance and §8 reliability.event as the engine parsed them. */
 export type StoredResonance = NonNullable<ParsedAxis["drive"]["resonance"]>;
 export type StoredStepLossEvent = NonNullable<ParsedAxis["reliability"]["event"]>;
 
-// One open-loop axis as installed: every AxisInput field of ENGINE.md but the retrofit, in SI
+// One open-loop axis as installed: every AxisInput field of docs/model.md but the retrofit, in SI
 // units (torque N·m, inductance mH, speed rpm, inertia kg·m²). site_id is repeated from the
 // machine so that a site's axes page straight off one index.
 // The optional objects of engine v2 (motion, resonance, step-loss event) are JSON columns holding

@@ -82,7 +82,7 @@ export function axisDetail(input: ParsedCase, axis: ParsedAxis, result: AxisResu
     label: axis.label,
     machineName: machine?.name ?? axis.machineId,
     quantity: axis.quantity,
-    // With a mechanism (ENGINE.md §3a) the duty figures are the engine's, not the input's.
+    // With a mechanism (docs/model.md (Motion from the mechanism)) the duty figures are the engine's, not the input's.
     speedRpm: result.motion?.speedRpm ?? axis.duty.speedRpm ?? 0,
     loadTorqueNm: result.motion?.loadTorqueNm ?? axis.duty.loadTorqueNm ?? 0,
     peakTorqueNm: result.motion?.peakTorqueNm ?? axis.duty.peakTorqueNm ?? 0,

@@ -4,7 +4,7 @@ import { Money, ZERO, moneyString } from "@/lib/engine/money";
 export interface MonthRow {
   /** 0 is the investment; months 1..12·horizon follow. */
   month: number;
-  /** The year t of ENGINE.md §8 the month belongs to (0 for the investment). */
+  /** The year t of docs/model.md (The business case) the month belongs to (0 for the investment). */
   year: number;
   flow: string;
   cumulative: string;

@@ -38,7 +38,7 @@ export interface AxisContext {
 /** Everything per unit of one axis that does not involve money. */
 export type AxisPhysics = Omit<AxisResult, "capex" | "totals"> & {
   undersized: boolean;
-  /** Not undersized, and not a sensorless kit below its minimum speed (docs/model.md §8). */
+  /** Not undersized, and not a sensorless kit below its minimum speed (docs/model.md (The business case)). */
   avoidsEvents: boolean;
   /** Share of running hours at standstill, energized. */
   holdShare: number;
@@ -46,7 +46,7 @@ export type AxisPhysics = Omit<AxisResult, "capex" | "totals"> & {
   duty: AxisDuty;
 };
 
-/** Factors applied to the axis inputs, for the sensitivity runs (docs/model.md §8). */
+/** Factors applied to the axis inputs, for the sensitivity runs (docs/model.md (The business case)). */
 export interface PhysicsScale {
   loadTorque: number;
   idleCurrent: number;
@@ -64,7 +64,7 @@ function withIdleScaled(axis: ParsedAxis, factor: number): ParsedAxis {
   return { ...axis, drive: { ...axis.drive, idleCurrentPct } };
 }
 
-/** Today's open-loop drive on the axis, as a loop to evaluate (docs/model.md §3, §4). */
+/** Today's open-loop drive on the axis, as a loop to evaluate (docs/model.md (Torque at speed), §4). */
 function openLoopSpec(
   axis: ParsedAxis,
   duty: AxisDuty,
@@ -192,7 +192,7 @@ export function evaluateClosedLoop(
   };
 }
 
-/** The physics of docs/model.md §3–§7 for one unit of one axis. */
+/** The physics of docs/model.md (Torque at speed)–§7 for one unit of one axis. */
 export function evaluateAxisPhysics(
   input: ParsedAxis,
   ctx: AxisContext,
@@ -328,7 +328,7 @@ export function economicsOf(physics: AxisPhysics): AxisEconomics {
 
 /**
  * The economics of one axis with its load and/or idle current scaled, for the sensitivity of
- * docs/model.md §8: the same currents, temperatures and energies as evaluateAxisPhysics (the
+ * docs/model.md (The business case): the same currents, temperatures and energies as evaluateAxisPhysics (the
  * same loopEnergy), without the figures only the result shows. The idle current matters only
  * through the hours at standstill, so an axis that never holds keeps its base economics, and
  * with an encoder kit only today's drive changes. The max-speed search is left out; the

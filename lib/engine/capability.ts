@@ -4,7 +4,7 @@ import { rpmToRadPerS } from "./units";
 import type { ParsedMotor } from "./schema";
 
 /*
- * Torque capability at speed (docs/model.md §3) and the max-speed search over it. They live in
+ * Torque capability at speed (docs/model.md (Torque at speed)) and the max-speed search over it. They live in
  * one module because the search evaluates the capability about forty times per axis and loop.
  */
 
@@ -48,7 +48,7 @@ export function torqueModel(
 }
 
 /**
- * The voltage limit as a disc in the rotor-frame current plane (docs/model.md §3): with
+ * The voltage limit as a disc in the rotor-frame current plane (docs/model.md (Torque at speed)): with
  * v = (R + jX)·i + jE, |v| ≤ V holds inside the disc centred at c = −E·(X, R)/Z² with radius
  * ρ = V/Z, Z = √(R² + X²), X = ω_e·L, E = k1·ω_m.
  */
@@ -74,7 +74,7 @@ export function voltageDisc(m: TorqueModel, rpm: number): VoltageDisc {
 
 /**
  * The largest torque current i_q in both the current disc (radius I_lim about 0) and the voltage
- * disc, in closed form so that every implementation returns the same number (docs/model.md §3):
+ * disc, in closed form so that every implementation returns the same number (docs/model.md (Torque at speed)):
  * the top of the current disc, the top of the voltage disc, or a crossing of the two circles;
  * 0 when the discs do not meet.
  */
@@ -111,7 +111,7 @@ export function largestTorqueCurrentA(m: TorqueModel, rpm: number): number {
   return best === -Infinity ? 0 : best;
 }
 
-/** T_m(n) = max(0, k1·max(0, i_q,max) − T_drag(n)) (docs/model.md §3). */
+/** T_m(n) = max(0, k1·max(0, i_q,max) − T_drag(n)) (docs/model.md (Torque at speed)). */
 export function modelTorqueNm(m: TorqueModel, rpm: number): number {
   let torque = m.k1 * Math.max(0, largestTorqueCurrentA(m, rpm));
   if (rpm > 0 && m.hasIronLoss) {
@@ -148,7 +148,7 @@ export interface ResonanceDip {
 }
 
 /**
- * A loop's torque capability: the model of docs/model.md §3, a datasheet curve replacing it
+ * A loop's torque capability: the model of docs/model.md (Torque at speed), a datasheet curve replacing it
  * (open loop), a resonance dip on the open-loop model, or the datasheet curve as a floor under
  * the closed-loop model when the kit keeps the motor and the bus.
  */
@@ -184,7 +184,7 @@ export const usableTorqueNm = (torqueNm: number, requiredPct: number): number =>
 
 /**
  * Highest speed at which the usable torque still covers the peak, by exactly the bisection of
- * docs/model.md §7, so that every implementation returns the same number.
+ * docs/model.md (Torque margin and speed), so that every implementation returns the same number.
  */
 export function maxSpeedRpm(
   capability: Capability,

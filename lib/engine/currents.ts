@@ -4,11 +4,11 @@ import { dragTorqueNm, holdVectorFactor, torqueConstant } from "./motor";
 import type { ParsedAxis, ParsedKit, ParsedMotor } from "./schema";
 
 /*
- * The currents of each state (docs/model.md §4). Pass 1 ignores the voltage limit while moving;
+ * The currents of each state (docs/model.md (Currents at the operating point)). Pass 1 ignores the voltage limit while moving;
  * pass 2 puts the moving current at the operating point with the pass-1 hot resistance.
  */
 
-/** Today's per-phase peak: an RMS setting in micro mode is √2·I_rms (docs/model.md §3). */
+/** Today's per-phase peak: an RMS setting in micro mode is √2·I_rms (docs/model.md (Torque at speed)). */
 export function openLoopSettingA(drive: ParsedAxis["drive"]): number {
   return drive.stepMode === "micro" && drive.currentConvention === "rms"
     ? Math.SQRT2 * drive.currentSettingA
@@ -19,7 +19,7 @@ export function openLoopSettingA(drive: ParsedAxis["drive"]): number {
 export const openLoopHoldA = (axis: ParsedAxis): number =>
   (openLoopSettingA(axis.drive) * axis.drive.idleCurrentPct) / 100;
 
-/** What today's drive holds at standstill: k1·vf_hold·I_set·idle (docs/model.md §7). */
+/** What today's drive holds at standstill: k1·vf_hold·I_set·idle (docs/model.md (Torque margin and speed)). */
 export const holdingCapabilityNm = (axis: ParsedAxis): number =>
   torqueConstant(axis.motor) * holdVectorFactor(axis.drive.stepMode) * openLoopHoldA(axis);
 
@@ -29,7 +29,7 @@ const inDisc = (disc: VoltageDisc, d: number, q: number): boolean =>
 
 /**
  * Open loop, pass 2: the current-vector magnitude the chopper reaches while moving. It holds its
- * setting I_lim as long as the bus allows; short of voltage it draws less (docs/model.md §4).
+ * setting I_lim as long as the bus allows; short of voltage it draws less (docs/model.md (Currents at the operating point)).
  */
 export function openLoopMovingMagnitudeA(
   currentLimitA: number,
@@ -64,7 +64,7 @@ export interface ClosedLoopDemand {
   moveA: number;
   holdA: number;
   maxA: number;
-  /** A moving or holding demand above I_max: the kit is undersized (docs/model.md §4). */
+  /** A moving or holding demand above I_max: the kit is undersized (docs/model.md (Currents at the operating point)). */
   demandAboveLimit: boolean;
   /** A sensorless kit below its minimum speed runs open loop in all but name. */
   lowSpeedSensorless: boolean;
@@ -107,7 +107,7 @@ export function closedLoopDemand(axis: ParsedAxis, duty: AxisDuty): ClosedLoopDe
 
 /**
  * Closed loop, pass 2: the least field-weakening current i_d that reaches I_q at the operating
- * speed, and whether the drive can supply it at all (docs/model.md §4).
+ * speed, and whether the drive can supply it at all (docs/model.md (Currents at the operating point)).
  */
 export function closedLoopMovingA(
   iq: number,

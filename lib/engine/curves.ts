@@ -3,7 +3,7 @@ export interface CurvePoint {
   torqueNm: number;
 }
 
-/** A datasheet pull-out curve made non-increasing by a running minimum (ENGINE.md §3). */
+/** A datasheet pull-out curve made non-increasing by a running minimum (docs/model.md (Torque at speed)). */
 export function monotoneCurve(points: readonly CurvePoint[]): CurvePoint[] {
   let floor = Infinity;
   return points.map((p) => {

@@ -5,7 +5,7 @@ import { rpmToRadPerS } from "./units";
 
 /**
  * The duty of one axis as the physics uses it: typed by the engineer, or derived from the
- * mechanism and the move (docs/model.md §3a), which then replaces the typed figures.
+ * mechanism and the move (docs/model.md (Motion from the mechanism)), which then replaces the typed figures.
  */
 export interface AxisDuty {
   hoursPerYear: number;

@@ -77,7 +77,7 @@ export function resultOf(prepared: PreparedCase): CaseResult {
 }
 
 /**
- * Where the physics scenario's NPV crosses 0 (docs/model.md §8). NPV is affine in the tariff
+ * Where the physics scenario's NPV crosses 0 (docs/model.md (The business case)). NPV is affine in the tariff
  * and in a factor f on every axis's step-loss events (reliability is linear in f, and tax is
  * linear in the flow), so two evaluations give the line: tariff = t₀ − NPV(t₀)/(NPV(t₀+1) −
  * NPV(t₀)), factor = −NPV(0)/(NPV(1) − NPV(0)). Each is null when NPV does not rise with it

@@ -33,13 +33,13 @@ function npvNumber(rate: number, flows: readonly number[]): number {
 }
 
 const IRR_LOW = -0.99;
-/** The highest rate the IRR is sought at: 10 = 1,000 % (docs/model.md §8). */
+/** The highest rate the IRR is sought at: 10 = 1,000 % (docs/model.md (The business case)). */
 export const IRR_HIGHEST_RATE = 10;
 const IRR_HIGH = IRR_HIGHEST_RATE;
 const IRR_TOLERANCE = 1e-12;
 
 /**
- * IRR as docs/model.md §8 (engine v2) defines it, so that every implementation returns the same
+ * IRR as docs/model.md (The business case) (engine v2) defines it, so that every implementation returns the same
  * number: null unless CF_0 < 0, some later flow is > 0 and NPV(−0.99)·NPV(10) < 0; then
  * bisection on [−0.99, 10], keeping the half whose ends differ in sign, until the bracket is
  * 1e-12 wide; the answer is its midpoint (a midpoint where NPV is exactly 0 ends the search).
@@ -70,7 +70,7 @@ export function irr(flows: readonly Decimal[]): number | null {
 }
 
 /**
- * Payback in years (ENGINE.md §8): 0 without capex; else the first t ≥ 1 whose cumulative flow
+ * Payback in years (docs/model.md (The business case)): 0 without capex; else the first t ≥ 1 whose cumulative flow
  * reaches 0, interpolated within that year; null when not reached within the flows given.
  */
 export function paybackYears(flows: readonly Decimal[], capex: Decimal): number | null {

@@ -19,7 +19,7 @@ export interface AxisMoney {
   reliabilityIfServed: Decimal;
   /**
    * The part of reliabilityIfServed that is restart labour (event.restartLaborHours·laborRate):
-   * the labor-rate driver of docs/model.md §8 scales it with the rate.
+   * the labor-rate driver of docs/model.md (The business case) scales it with the rate.
    */
   reliabilityLaborIfServed: Decimal;
   maintenanceTotal: Decimal;
@@ -79,7 +79,7 @@ export function axesMoney(
 }
 
 /**
- * The cost of one step-loss event (docs/model.md §8): costPerEvent when given, else built from
+ * The cost of one step-loss event (docs/model.md (The business case)): costPerEvent when given, else built from
  * what the event causes — downtime, scrap and restart labour. The schema refuses both at once.
  * `labor` is the restart-labour part alone.
  */
@@ -166,12 +166,12 @@ export interface AxisEconomics {
   coolingOpenLoopKWh: number;
   coolingClosedLoopKWh: number;
   undersized: boolean;
-  /** Not undersized and not a sensorless kit below its minimum speed (ENGINE.md §4, §8). */
+  /** Not undersized and not a sensorless kit below its minimum speed (docs/model.md (Currents at the operating point), §8). */
   avoidsEvents: boolean;
   speedHeadroomPct: number | null;
 }
 
-/** What the throughput cap of one machine depends on (docs/model.md §8). */
+/** What the throughput cap of one machine depends on (docs/model.md (The business case)). */
 export interface MachineStats {
   axes: number;
   /** An axis is undersized or has no headroom: the gain is capped to 0. */
@@ -253,7 +253,7 @@ export function fleetTotals(
 }
 
 /**
- * Throughput per machine (docs/model.md §8): gain = min(asked, cap), cap = max(0, least headroom
+ * Throughput per machine (docs/model.md (The business case)): gain = min(asked, cap), cap = max(0, least headroom
  * of its axes), 0 when one is undersized or has no headroom; value = gain/100 · margin per output
  * hour · the longest hours of its axes. `gainFactor` scales every machine's asked gain (the
  * throughput-gain driver), which stays capped.

@@ -80,7 +80,7 @@ export interface LoopEnergy {
 }
 
 /**
- * Thermal state, losses, power and energy of one loop (docs/model.md §4–§6), in the two passes
+ * Thermal state, losses, power and energy of one loop (docs/model.md (Currents at the operating point)–§6), in the two passes
  * of §4: the pass-1 temperature sets the resistance at which the moving current is put at the
  * operating point, and the temperature is solved again with that current. The sensitivity runs
  * stop here; evaluateLoop adds the torque margin and the result.

@@ -37,7 +37,7 @@ export function speedHeadroomPct(maxSpeedRpmClosed: number, speedRpm: number): n
 }
 
 /**
- * The closed-loop speed headroom as the throughput cap of ENGINE.md §8 uses it, where only
+ * The closed-loop speed headroom as the throughput cap of docs/model.md (The business case) uses it, where only
  * min(gain, headroom) counts: a headroom surely at or above the machine's gain comes back as the
  * gain itself, after one torque evaluation instead of the ~24 of the §7 bisection; any other
  * comes from the bisection, as speedHeadroomPct gives it.

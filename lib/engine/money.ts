@@ -2,7 +2,7 @@ import Decimal from "decimal.js";
 
 /**
  * The engine's own Decimal constructor, so that the app's other uses of decimal.js keep their
- * settings. ENGINE.md §1 asks for precision ≥ 30; 40 significant digits leave room for 30 years
+ * settings. docs/model.md asks for precision ≥ 30; 40 significant digits leave room for 30 years
  * of compounding without touching the cents. Half-even is the rounding of §1 for display.
  */
 export const Money = Decimal.clone({ precision: 40, rounding: Decimal.ROUND_HALF_EVEN });
@@ -55,7 +55,7 @@ export function currencyMinorUnits(currency: string): number {
   return MINOR_UNITS[currency.toUpperCase()] ?? 2;
 }
 
-/** Rounds for display and export: half-even to the currency's minor unit (ENGINE.md §1). */
+/** Rounds for display and export: half-even to the currency's minor unit (docs/model.md). */
 export function roundMoney(value: Decimal | string, currency: string): string {
   const places = currencyMinorUnits(currency);
   // abs() of a zero drops the sign that toFixed would print for a rounded-away negative ("-0.00").

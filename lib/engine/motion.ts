@@ -3,7 +3,7 @@ import { STANDARD_GRAVITY } from "./units";
 import type { MotionResult } from "./types";
 
 /*
- * From the mechanism and the move to the duty figures (docs/model.md §3a): a trapezoidal move
+ * From the mechanism and the move to the duty figures (docs/model.md (Motion from the mechanism)): a trapezoidal move
  * there (and back, when returnMove), each phase at constant torque, then RMS, peak, mean
  * mechanical power, holding load and the shares of the running hours.
  */

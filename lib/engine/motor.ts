@@ -9,7 +9,7 @@ export const INSULATION_CLASS_LIMIT_C = { B: 130, F: 155, H: 180 } as const;
 export type StepMode = "full" | "half" | "half-compensated" | "micro";
 
 /**
- * Current-vector magnitude at standstill per unit of per-phase setting (docs/model.md §3): two
+ * Current-vector magnitude at standstill per unit of per-phase setting (docs/model.md (Torque at speed)): two
  * phases on in full step give √2·I; an uncompensated half step rests on its weaker, one-phase
  * step.
  */
@@ -35,7 +35,7 @@ export function runVectorFactor(mode: StepMode): number {
   }
 }
 
-/** ENGINE.md §3 table: copper loss per I²·R of the per-phase setting. */
+/** docs/model.md (Torque at speed) table: copper loss per I²·R of the per-phase setting. */
 export function copperFactor(mode: StepMode): number {
   switch (mode) {
     case "full":
@@ -57,7 +57,7 @@ type StepGeometry = {
 const geometries = new Map<string, StepGeometry>();
 
 /**
- * Full step θ_s = 90°/Nr and the angles that follow from it (docs/model.md §3). Fleets repeat a
+ * Full step θ_s = 90°/Nr and the angles that follow from it (docs/model.md (Torque at speed)). Fleets repeat a
  * few motors and modes on thousands of axes, so each combination is worked out once and its
  * (frozen) object shared by every axis that has it.
  */

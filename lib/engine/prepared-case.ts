@@ -22,7 +22,7 @@ import type { PhysicsScenarioOutcome } from "./sensitivity";
 import type { SensitivityDriver } from "./types";
 
 /**
- * Factors on the drivers of docs/model.md §8's sensitivity, any number of them at once: the
+ * Factors on the drivers of docs/model.md (The business case)'s sensitivity, any number of them at once: the
  * sensitivity moves one at a time, the dossier's uncertainty analysis moves four together.
  * A driver left out stays at the case's own value.
  */

@@ -3,7 +3,7 @@ import { discountedFlows, irr, npv, paybackYears, roiPct } from "./finance";
 import { HUNDRED, Money, ONE, ZERO, moneyString } from "./money";
 import { VALUE_SOURCES, type PaybackStatus, type Scenario, type ValueSource } from "./types";
 
-/** The yearly inputs of one cash-flow series (docs/model.md §8), all per year, fleet totals. */
+/** The yearly inputs of one cash-flow series (docs/model.md (The business case)), all per year, fleet totals. */
 export interface YearlyTerms {
   capex: Decimal;
   /** Drive energy saved (kWh/yr) that the scenario counts. */
@@ -33,7 +33,7 @@ export interface CashFlowSeries {
 export const rateOf = (pct: number): Decimal => new Money(pct).div(HUNDRED);
 
 /**
- * The flows of docs/model.md §8 and their value by source. Before tax, year t:
+ * The flows of docs/model.md (The business case) and their value by source. Before tax, year t:
  * P_t = energy + cooling (each kWh·tariff·(1+esc)^(t−1)) + (reliability + maintenance +
  * throughput − service)·(1+infl)^(t−1). Tax: dep_t = Capex/depreciationYears while
  * t ≤ depreciationYears (nothing after the horizon is modelled), tax_t = −rate·(P_t − dep_t) —
@@ -96,7 +96,7 @@ export function cashFlowSeries(terms: YearlyTerms): CashFlowSeries {
 
 /**
  * "reached" when the simple payback falls within the horizon; otherwise "beyond-horizon" when
- * the last flow is still positive (it would pay back later), else "never" (docs/model.md §8).
+ * the last flow is still positive (it would pay back later), else "never" (docs/model.md (The business case)).
  */
 export function paybackStatus(
   flows: readonly Decimal[],

@@ -61,7 +61,7 @@ const moneyTextMessage = (issue: { input?: unknown }): string =>
 
 /**
  * Money: a decimal string, a JSON number or a Decimal; the parsed value is a decimal string that
- * the engine reads with decimal.js (ENGINE.md §1: money never goes through JS number arithmetic).
+ * the engine reads with decimal.js (docs/model.md: money never goes through JS number arithmetic).
  * A string passes through unchanged (no transform: this keeps a 10,000-axis parse fast); a JSON
  * number becomes its shortest round-trip text, which is the decimal its author typed.
  * Accepting a Decimal keeps the schema usable on values the engine itself produced.

@@ -17,7 +17,7 @@ import {
 } from "./schema-fields";
 
 /**
- * The input of ENGINE.md §2 with its defaults. Objects whose every field has a default use
+ * The input of docs/model.md with its defaults. Objects whose every field has a default use
  * `prefault({})` so that a missing object is parsed — and filled — like an empty one.
  */
 
@@ -60,13 +60,13 @@ export const kitInputSchema = obj({
   busVoltageV: positive().optional(),
   efficiencyPct: positive().max(100, "must be at most 100").default(92),
   standbyW: atLeast(0).default(3),
-  // ENGINE.md §2: 0.5 W, 0 when sensorless; kitEncoderW() fills it since the default depends on sensing.
+  // docs/model.md: 0.5 W, 0 when sensorless; kitEncoderW() fills it since the default depends on sensing.
   encoderW: atLeast(0).optional(),
   minCurrentPct: pct().default(10),
   sensorlessMinRpm: atLeast(0).default(60),
 });
 
-/** ENGINE.md §3: an open-loop mid-band dip, a model rather than a measured curve. */
+/** docs/model.md (Torque at speed): an open-loop mid-band dip, a model rather than a measured curve. */
 const resonanceSchema = obj({
   fromRpm: atLeast(0),
   toRpm: atLeast(0),
@@ -97,7 +97,7 @@ export type Mechanism = (typeof MECHANISMS)[number];
 
 const efficiency = () => positive().max(100, "must be at most 100");
 
-/** ENGINE.md §3a: one axis's mechanism and move profile. */
+/** docs/model.md (Motion from the mechanism): one axis's mechanism and move profile. */
 export const motionInputSchema = obj({
   mechanism: choice(MECHANISMS),
   radiusMm: positive().optional(),
@@ -153,7 +153,7 @@ const dutySchema = obj({
   motion: motionInputSchema.superRefine(checkMotion, { when: () => true }).optional(),
 });
 
-/** ENGINE.md §8: the cost of one step-loss event, built up from what it causes. */
+/** docs/model.md (The business case): the cost of one step-loss event, built up from what it causes. */
 export const stepLossEventSchema = obj({
   downtimeMinutes: atLeast(0).default(0),
   scrapParts: atLeast(0).default(0),
@@ -372,8 +372,8 @@ const acceptValidCase = (input: unknown) => {
 };
 
 /**
- * CaseInput of ENGINE.md §2. Valid input takes the compiled path, which on a 10,000-axis case
- * allocates less than half of what zod's interpreter does and runs markedly faster (ENGINE.md
+ * CaseInput of docs/model.md. Valid input takes the compiled path, which on a 10,000-axis case
+ * allocates less than half of what zod's interpreter does and runs markedly faster (docs/model.md
  * §10). Invalid input costs more than before — the accepting schema's interpreter, then the
  * reporting one, whose issues are returned — which only a rejected case pays.
  */

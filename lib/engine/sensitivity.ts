@@ -3,7 +3,7 @@ import { npv, paybackYears } from "./finance";
 import { HUNDRED, Money, ONE, currencyMinorUnits, moneyString } from "./money";
 import type { SensitivityDriver, SensitivityRow } from "./types";
 
-/** The drivers of docs/model.md §8, in the order listed there (the tie-break of the sort). */
+/** The drivers of docs/model.md (The business case), in the order listed there (the tie-break of the sort). */
 export const SENSITIVITY_DRIVERS: readonly SensitivityDriver[] = [
   "tariff",
   "hoursPerYear",
@@ -31,7 +31,7 @@ export type ScenarioAtDriver = (
 /**
  * NPV and simple payback with each driver at (1 ∓ swing), sorted by the NPV swing
  * |NPV_high − NPV_low| rounded half-even to the currency's minor unit, largest first
- * (docs/model.md §8, engine v2). Array.prototype.sort is stable, so equal rounded swings keep
+ * (docs/model.md (The business case), engine v2). Array.prototype.sort is stable, so equal rounded swings keep
  * the listed order: tariff and hours, for one, move NPV by the same amount in exact arithmetic,
  * and float noise in the physics must not decide their order.
  */

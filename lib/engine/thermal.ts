@@ -4,7 +4,7 @@ import type { ParsedMotor } from "./schema";
 /**
  * R_th from the datasheet's rated rise, two phases on at rated current in 20 °C ambient, with
  * the winding hot (common practice). Calibrated at the hot resistance, the steady state below
- * reproduces the datasheet rise exactly (docs/model.md §5); the cold resistance would overshoot
+ * reproduces the datasheet rise exactly (docs/model.md (Winding temperature)); the cold resistance would overshoot
  * it by about half.
  */
 export function thermalResistanceKPerW(motor: ParsedMotor): number {
@@ -30,14 +30,14 @@ export interface ThermalLoad {
 export interface ThermalState {
   /** null under thermal runaway. */
   windingTempC: number | null;
-  /** R(T_w), or R at the insulation class limit under runaway (ENGINE.md §9). */
+  /** R(T_w), or R at the insulation class limit under runaway (docs/model.md). */
   resistanceHotOhm: number;
   runaway: boolean;
   overClass: boolean;
 }
 
 /**
- * Steady winding temperature over the duty mix (ENGINE.md §5): T = T_amb + R_th·(A·(1 + α(T − 20)) + B)
+ * Steady winding temperature over the duty mix (docs/model.md (Winding temperature)): T = T_amb + R_th·(A·(1 + α(T − 20)) + B)
  * solved for T; a denominator ≤ 0 means the copper loss grows faster with temperature than the
  * motor can shed it.
  */

@@ -7,7 +7,7 @@ import { axisInputSchema, type AxisInput, type ParsedAxis } from "./schema";
 
 /**
  * Torque capability against speed for the charts: the datasheet pull-out curve (open loop,
- * when given; sampled up to its last point) or the model of docs/model.md §3 at the loop's hot
+ * when given; sampled up to its last point) or the model of docs/model.md (Torque at speed) at the loop's hot
  * resistance (sampled up to the 6000 rpm the max-speed search covers). The required margins
  * do not enter: this is the capability, not the usable torque.
  */

@@ -1,7 +1,7 @@
 import type { ClosedLoopStatus, OpenLoopStatus } from "./margin";
 import type { AxisWarning, MachineWarning } from "./warnings";
 
-/** Output of ENGINE.md §9. Physics are JSON numbers, money decimal strings. */
+/** Output of docs/model.md. Physics are JSON numbers, money decimal strings. */
 
 export interface LoopResult<S extends string = string> {
   currentMoveA: number;
@@ -25,11 +25,11 @@ export interface LoopResult<S extends string = string> {
 export interface OpenLoopResult extends LoopResult<OpenLoopStatus> {
   loadAngleElecDeg: number | null;
   loadAngleMechDeg: number | null;
-  /** ENGINE.md §7: what today's drive holds at standstill, k1·vf_hold·I_set·idle. */
+  /** docs/model.md (Torque margin and speed): what today's drive holds at standstill, k1·vf_hold·I_set·idle. */
   holdingCapabilityNm: number;
 }
 
-/** ENGINE.md §3a: the duty figures derived from the mechanism and the move, as used. */
+/** docs/model.md (Motion from the mechanism): the duty figures derived from the mechanism and the move, as used. */
 export interface MotionResult {
   speedRpm: number;
   loadTorqueNm: number;
@@ -92,7 +92,7 @@ export interface Scenario {
   roiPct: number | null;
   /** "reached" within the horizon; "beyond-horizon" when the last flow is still positive; else "never". */
   paybackStatus: PaybackStatus;
-  /** Value by source for years 1..N; the seven add up to cashFlows[t] exactly (ENGINE.md §8). */
+  /** Value by source for years 1..N; the seven add up to cashFlows[t] exactly (docs/model.md (The business case)). */
   bySource: Record<ValueSource, string[]>;
 }
 
@@ -144,6 +144,6 @@ export interface CaseResult {
   };
   scenarios: { physics: Scenario; bandLow: Scenario; bandHigh: Scenario };
   sensitivity: SensitivityRow[];
-  /** ENGINE.md §8, physics scenario: where NPV crosses 0; null when it never does. */
+  /** docs/model.md (The business case), physics scenario: where NPV crosses 0; null when it never does. */
   breakEven: { tariffPerKWh: string | null; stepLossFactor: number | null };
 }

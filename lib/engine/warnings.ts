@@ -1,4 +1,4 @@
-/** Axis warning codes of ENGINE.md §9, in the order they are reported. */
+/** Axis warning codes of docs/model.md, in the order they are reported. */
 export const AXIS_WARNINGS = [
   "OL_THERMAL_RUNAWAY",
   "CL_THERMAL_RUNAWAY",

@@ -156,7 +156,7 @@ export function parseCell(
 }
 
 /**
- * Money as a decimal string, by pattern only (ENGINE.md §1: money never passes through a JS
+ * Money as a decimal string, by pattern only (docs/model.md: money never passes through a JS
  * number). Normalised to digits and one decimal point: "+012,50" → "12.50", "7." → "7".
  */
 function parseMoney(field: ImportField, text: string): CellResult {

@@ -27,7 +27,7 @@ export type AxisColumns = Omit<
   | "resonance"
 >;
 
-/** Columns of ENGINE.md §3a's MotionInput and of §8's reliability.event, by engine name. */
+/** Columns of docs/model.md (Motion from the mechanism)'s MotionInput and of §8's reliability.event, by engine name. */
 export type MotionFieldKey = `motion.${keyof ParsedMotion}`;
 export type EventFieldKey = `event.${keyof StoredStepLossEvent}`;
 
@@ -48,7 +48,7 @@ export interface ImportField {
   /** Blank takes the site's value, which the caller passes to validateRows. */
   siteDefault?: true;
   /**
-   * Required on a row without a mechanism; with one, ENGINE.md §3a derives the figure, a blank
+   * Required on a row without a mechanism; with one, docs/model.md (Motion from the mechanism) derives the figure, a blank
    * cell is stored as 0 (a placeholder the engine never receives) and the column may be absent.
    */
   requiredUnlessMotion?: true;
@@ -65,8 +65,8 @@ export interface ImportField {
 
 type FieldSpec = Omit<ImportField, "key">;
 
-// Defaults and bounds are ENGINE.md §2's; "common practice" defaults are marked so in the help,
-// as ENGINE.md asks. Ambient bounds follow the site form (lib/validations/installed-base.ts).
+// Defaults and bounds are docs/model.md's; "common practice" defaults are marked so in the help,
+// as docs/model.md asks. Ambient bounds follow the site form (lib/validations/installed-base.ts).
 // Synonyms are only header texts that cannot mean another field: "Motor current", for one,
 // could be the rated current or the drive setting, so it is not listed.
 const SPECS = {
@@ -403,7 +403,7 @@ const SPECS = {
     max: 100,
     help: "Share of the step-loss events that closed-loop control avoids; the default of 90 % is an assumption without a published source.",
   },
-  // ENGINE.md §3a: the mechanism and the move. A blank cell takes the engine's default; without a
+  // docs/model.md (Motion from the mechanism): the mechanism and the move. A blank cell takes the engine's default; without a
   // mechanism the motion columns must stay blank. Bounds are the engine's own (motionInputSchema),
   // checked on the object a row builds, so that the importer and the engine cannot disagree.
   "motion.mechanism": {
@@ -567,7 +567,7 @@ const SPECS = {
     required: false,
     help: "Load-to-rotor inertia ratio above which the axis is warned; blank is 10 (common practice for open-loop steppers).",
   },
-  // ENGINE.md §8: the cost of one step-loss event built up from what it causes, priced with the
+  // docs/model.md (The business case): the cost of one step-loss event built up from what it causes, priced with the
   // case's downtime cost and labour rate. Any of these columns filled builds it.
   "event.downtimeMinutes": {
     label: "Downtime per step-loss event",

@@ -173,7 +173,7 @@ export function matchHeaders(
     ...columnOfKey.keys(),
     ...problems.flatMap((p) => (p.key === undefined ? [] : [p.key])),
   ]);
-  // A mechanism column lets rows derive the duty figures (ENGINE.md §3a); without one, their
+  // A mechanism column lets rows derive the duty figures (docs/model.md (Motion from the mechanism)); without one, their
   // columns are as required as before motion existed.
   const withMotion = attempted.has("motion.mechanism");
   const missing = IMPORT_FIELDS.filter(

@@ -13,7 +13,7 @@ import {
 import { headerFor, type HeaderMatch } from "./headers";
 import type { SheetData } from "./read";
 
-/** The site's values for the fields a row may leave blank (ENGINE.md §2 duty). */
+/** The site's values for the fields a row may leave blank (docs/model.md duty). */
 export interface SiteDefaults {
   hoursPerYear: number;
   ambientC: number;
@@ -185,7 +185,7 @@ export function validateRows(
       dutyRequired(values, cells, columnOf, match.missing, rowNumber, errors);
       crossFieldChecks(values, cells, columnOf, rowNumber, errors);
     } else {
-      // ENGINE.md §3a derives these; a blank is stored as a placeholder the engine never gets.
+      // docs/model.md (Motion from the mechanism) derives these; a blank is stored as a placeholder the engine never gets.
       for (const slot of DUTY_SLOTS) values[slot] ??= 0;
     }
 
@@ -244,7 +244,7 @@ function noMotionWithoutMechanism(
 }
 
 /**
- * The row's MotionInput (ENGINE.md §3a), checked by the engine's own schema so that the importer
+ * The row's MotionInput (docs/model.md (Motion from the mechanism)), checked by the engine's own schema so that the importer
  * accepts exactly what the engine does; each problem is reported at the column it concerns.
  * Blank cells are left out, so the engine's defaults apply.
  */
@@ -267,7 +267,7 @@ function motionOf(
 }
 
 /**
- * The row's step-loss event build-up (ENGINE.md §8) when any of its cells is filled. The engine
+ * The row's step-loss event build-up (docs/model.md (The business case)) when any of its cells is filled. The engine
  * refuses a cost per event beside it, so a filled cost cell is an error here too.
  */
 function eventOf(
@@ -320,7 +320,7 @@ function reportNested(
   }
 }
 
-/** ENGINE.md §2: peakTorqueNm ≥ loadTorqueNm; movePct + holdPct ≤ 100 (the rest is off). */
+/** docs/model.md: peakTorqueNm ≥ loadTorqueNm; movePct + holdPct ≤ 100 (the rest is off). */
 function crossFieldChecks(
   values: readonly Value[],
   cells: readonly string[],

@@ -12,7 +12,7 @@ export interface AxisRow {
   quantity: number;
   openLoop: LoopStatusView;
   closedLoop: LoopStatusView;
-  /** Per unit (ENGINE.md §9: per-axis loop figures are for one unit). */
+  /** Per unit (docs/model.md: per-axis loop figures are for one unit). */
   torqueFreedNm: number;
   torqueFreedPct: number | null;
   speedHeadroomPct: number | null;

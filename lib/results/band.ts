@@ -3,7 +3,7 @@ import { formatNumber } from "./format";
 
 export type BandPosition = Band;
 
-/** Where a saving lands against the claimed band; both ends count as inside (ENGINE.md §6). */
+/** Where a saving lands against the claimed band; both ends count as inside (docs/model.md (Energy and cooling)). */
 export function bandPosition(savingPct: number, band: { lowPct: number; highPct: number }): Band {
   if (savingPct < band.lowPct) return "below";
   if (savingPct > band.highPct) return "above";

@@ -13,7 +13,7 @@ export interface MachineEnergyRow {
 }
 
 /**
- * Drive energy before and after per machine: per-axis figures are for one unit (ENGINE.md §9),
+ * Drive energy before and after per machine: per-axis figures are for one unit (docs/model.md),
  * so each counts quantity times. Machines appear in the order of the result, those without
  * axes included (with zeros), so the chart lists every machine of the case.
  */

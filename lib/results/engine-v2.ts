@@ -129,7 +129,7 @@ export interface BreakEvenLine {
 const positive = (amount: string) => new Money(amount).greaterThan(0);
 
 /**
- * The two break-even values of ENGINE.md §8 in words. The engine returns null both when the NPV
+ * The two break-even values of docs/model.md (The business case) in words. The engine returns null both when the NPV
  * does not rise with the driver and when the answer would be negative; the two read very
  * differently, so the slope is read from the case: the tariff moves the NPV only through the
  * energy saved, the lost-step factor only through the value of avoided events.
@@ -229,7 +229,7 @@ export interface ValueSourceRow {
 
 /**
  * The physics scenario's yearly flows split by where the money comes from, with the sum of each
- * row; the rows add up to the cash flows (ENGINE.md §8), which the last row states for checking.
+ * row; the rows add up to the cash flows (docs/model.md (The business case)), which the last row states for checking.
  * Rows that are zero in every year are left out, so a case without tax shows no tax row.
  */
 export function valueBySource(
@@ -283,7 +283,7 @@ export interface MotionRow {
   inertiaRatioText: string;
 }
 
-/** The axes whose duty came from their mechanism and move (ENGINE.md §3a), as the engine used it. */
+/** The axes whose duty came from their mechanism and move (docs/model.md (Motion from the mechanism)), as the engine used it. */
 export function motionRows(result: CaseResult): MotionRow[] {
   const rows: MotionRow[] = [];
   for (const axis of result.axes) {
@@ -321,7 +321,7 @@ export function formatInertia(value: number): string {
 // ---------------------------------------------------------------- holding
 
 export interface HoldingView {
-  /** What today's drive holds at its idle current (ENGINE.md §7). */
+  /** What today's drive holds at its idle current (docs/model.md (Torque margin and speed)). */
   capabilityNm: number;
   /** The load at standstill, when the axis carries one (null also while the input is unknown). */
   loadNm: number | null;

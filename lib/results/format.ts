@@ -2,7 +2,7 @@ import { IRR_HIGHEST_RATE, npv } from "@/lib/engine/finance";
 import { Money, roundMoney } from "@/lib/engine/money";
 
 /**
- * Display formatting for the results view. Money arrives as decimal strings (ENGINE.md §1) and is
+ * Display formatting for the results view. Money arrives as decimal strings (docs/model.md) and is
  * rounded half-even to the currency's minor unit before Intl sees it, so the screen shows the
  * same cents as the workbook.
  */
@@ -75,7 +75,7 @@ export function formatPct(value: number | null, fractionDigits = 1): string {
 }
 
 /**
- * The engine's IRR is a rate (0.12 = 12 %), sought between −99 % and 1,000 % (ENGINE.md §8). A
+ * The engine's IRR is a rate (0.12 = 12 %), sought between −99 % and 1,000 % (docs/model.md (The business case)). A
  * null there can mean a return beyond 1,000 %: an outlay repaid within weeks still has NPV > 0
  * at that rate, which reads very differently from flows that never repay.
  */

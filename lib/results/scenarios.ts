@@ -70,7 +70,7 @@ export interface ScenarioHeadline {
 
 /**
  * The headline figures of each scenario. The band scenarios assume the claimed fraction of
- * today's drive and cooling energy (ENGINE.md §8), so their energy and CO₂ follow from the
+ * today's drive and cooling energy (docs/model.md (The business case)), so their energy and CO₂ follow from the
  * open-loop totals; the physics scenario takes the engine's totals as they are.
  */
 export function scenarioHeadlines(

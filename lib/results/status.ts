@@ -18,7 +18,7 @@ const STATUS: Record<string, { words: string; tone: StatusTone }> = {
   undersized: { words: "Kit too small", tone: "danger" },
 };
 
-/** A loop's status in words and tone (ENGINE.md §7), never by colour alone. */
+/** A loop's status in words and tone (docs/model.md (Torque margin and speed)), never by colour alone. */
 export function loopStatus(loop: LoopResult, requiredPct: number | null): LoopStatusView {
   const known = STATUS[loop.status] ?? { words: loop.status, tone: "neutral" as const };
   const margin =

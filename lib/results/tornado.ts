@@ -1,7 +1,7 @@
 import type { CaseResult, ParsedCase, SensitivityDriver } from "@/lib/engine";
 import { Money } from "@/lib/engine/money";
 
-/** The sensitivity drivers of ENGINE.md §8 in words. */
+/** The sensitivity drivers of docs/model.md (The business case) in words. */
 export const DRIVER_LABELS: Record<SensitivityDriver, string> = {
   tariff: "Electricity tariff",
   hoursPerYear: "Running hours per year",

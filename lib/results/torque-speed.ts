@@ -6,7 +6,7 @@ export interface TorqueSpeedView {
   /** Torque capability of each loop; the open loop may stop where its datasheet curve ends. */
   open: CurvePoint[];
   closed: CurvePoint[];
-  /** Capability less the required margin: T·(1 − required/100), ENGINE.md §7. */
+  /** Capability less the required margin: T·(1 − required/100), docs/model.md (Torque margin and speed). */
   openUsable: CurvePoint[];
   closedUsable: CurvePoint[];
   operatingPoint: { speedRpm: number; peakTorqueNm: number };
@@ -50,7 +50,7 @@ function lastUsefulRpm(curve: CurvePoint[]): number {
 export function torqueSpeedView(
   axis: ParsedAxis,
   margins: ParsedMargins,
-  // An axis sized from its mechanism (ENGINE.md §3a) has its speed and peak in the result only.
+  // An axis sized from its mechanism (docs/model.md (Motion from the mechanism)) has its speed and peak in the result only.
   derived?: { speedRpm: number; peakTorqueNm: number } | null,
 ): TorqueSpeedView {
   const openFull = torqueSpeedCurve(axis, "open", SAMPLES);

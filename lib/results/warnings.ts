@@ -8,7 +8,7 @@ import {
 export type WarningCode = AxisWarning | MachineWarning;
 export const WARNING_CODES: readonly WarningCode[] = [...AXIS_WARNINGS, ...MACHINE_WARNINGS];
 
-/** One plain sentence per warning code of ENGINE.md §9, for engineers and finance alike. */
+/** One plain sentence per warning code of docs/model.md, for engineers and finance alike. */
 export const WARNING_SENTENCES: Record<WarningCode, string> = {
   OL_THERMAL_RUNAWAY:
     "Open loop today, the winding gains heat faster than it can shed it, so the model finds no steady temperature.",

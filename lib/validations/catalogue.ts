@@ -23,7 +23,7 @@ export const motorInputSchema = z.object({
   holdingTorqueNm: torque({ positive: true }),
   ratedCurrentA: positive(),
   phaseResistanceOhm: positive(),
-  phaseInductanceMh: positive(), // ENGINE.md §3: the engine needs L > 0 (validation)
+  phaseInductanceMh: positive(), // docs/model.md (Torque at speed): the engine needs L > 0 (validation)
   thermalResistanceKPerW: optional(positive()),
   ratedTempRiseK: positive().default(80),
   insulationClass: choice(["B", "F", "H"]).default("B"),

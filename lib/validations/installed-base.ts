@@ -52,7 +52,7 @@ export const axisFieldsSchema = z.object({
   holdingTorqueNm: torque({ positive: true }),
   ratedCurrentA: positive(),
   phaseResistanceOhm: positive(),
-  phaseInductanceMh: positive(), // ENGINE.md §3: the engine needs L > 0 (validation)
+  phaseInductanceMh: positive(), // docs/model.md (Torque at speed): the engine needs L > 0 (validation)
   thermalResistanceKPerW: optionalNumber(positive()),
   ratedTempRiseK: positive().default(80),
   insulationClass: choice(["B", "F", "H"]).default("B"),
@@ -106,7 +106,7 @@ export const axisInputSchema = axisFieldsSchema
   .extend({ machineId: z.coerce.number().int().positive("Choose a machine") })
   .superRefine(checkAxisConsistency);
 
-// The engine's own schemas for the optional objects of ENGINE.md §2, taken from its axis schema
+// The engine's own schemas for the optional objects of docs/model.md, taken from its axis schema
 // (with the radius/lead and fromRpm/toRpm rules), so that the API refuses exactly what the engine
 // would and stores them as the engine parses them (inertia in kg·m², defaults filled).
 const engineAxis = engineAxisSchema.shape;
@@ -117,7 +117,7 @@ export { stepLossEventSchema };
 // One axis is a few kB even with its motion; a JSON body far larger is not an axis.
 export const MAX_AXIS_BYTES = 256 * 1024;
 
-// Figures that ENGINE.md §3a derives when motion is given; without motion they are required.
+// Figures that docs/model.md (Motion from the mechanism) derives when motion is given; without motion they are required.
 const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peakTorqueNm"] as const;
 
 /**

@@ -57,7 +57,7 @@ export const commentSchema = z.object({
 });
 
 // The finance figures a reviewer may try in the sandbox, checked as the engine checks them
-// (ENGINE.md §2): absent ones keep the proposal's own value.
+// (docs/model.md): absent ones keep the proposal's own value.
 export const whatIfSchema = z
   .object({
     tariffPerKWh: money().optional(),

@@ -8,7 +8,7 @@ type DutyFigure =
   "movePct" | "holdPct" | "speedRpm" | "loadTorqueNm" | "peakTorqueNm" | "holdTorqueNm";
 
 /**
- * A duty figure as the engine used it: with a mechanism and move profile (docs/model.md §3a) the
+ * A duty figure as the engine used it: with a mechanism and move profile (docs/model.md (Motion from the mechanism)) the
  * figures it derived (the result's motion block), else the duty as typed. A result stored by
  * engine v1 has no motion block.
  */
@@ -27,7 +27,7 @@ function curveText(motor: ParsedMotor): string {
   return motor.pullOutCurve.map((p) => `${p.rpm} rpm: ${p.torqueNm} N·m`).join("; ");
 }
 
-/** The inputs of each axis, in SI units (inductance in H; speeds in rpm as ENGINE.md §1 takes them). */
+/** The inputs of each axis, in SI units (inductance in H; speeds in rpm as docs/model.md takes them). */
 export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
   { key: "id", group: "Axis", header: "Axis id", width: 14, value: (r) => safeText(r.axis.id) },
   { key: "label", group: "Axis", header: "Label", width: 28, value: (r) => safeText(r.axis.label) },
@@ -285,7 +285,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     format: "currency",
     value: (r) => money(r.axis.reliability.costPerEvent ?? "0"),
   },
-  // docs/model.md §8: or the cost built from what one event causes (not both).
+  // docs/model.md (The business case): or the cost built from what one event causes (not both).
   {
     key: "eventDowntime",
     group: "Reliability",

@@ -4,7 +4,7 @@ import { NAME } from "./layout";
 
 /** Each axis's money and totals, as formulas over its own row, that the Cash flow sheet sums. */
 export const AXIS_MONEY_COLUMNS: readonly AxisColumn[] = [
-  // ENGINE.md §8: one unit's capex = price·(1 − discount) + installHours·laborRate + commissioning.
+  // docs/model.md (The business case): one unit's capex = price·(1 − discount) + installHours·laborRate + commissioning.
   {
     key: "capexUnit",
     group: "Money and totals (formulas)",

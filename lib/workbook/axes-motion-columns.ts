@@ -7,7 +7,7 @@ import type { AxisColumn, AxisRowContext } from "./axis-column";
 import { FORMATS } from "./formats";
 
 /*
- * The mechanism and move of axes sized from their machine (docs/model.md §3a), and what the
+ * The mechanism and move of axes sized from their machine (docs/model.md (Motion from the mechanism)), and what the
  * engine derived from them. The duty columns beside them already show the derived speed,
  * torques and shares; axes with typed duty figures leave these cells empty.
  */

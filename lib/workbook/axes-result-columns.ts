@@ -3,7 +3,7 @@ import { FORMATS } from "./formats";
 import { safeText } from "./safe-text";
 import { axisWarningText } from "./warning-text";
 
-/** The engine's per-axis results, for one unit (ENGINE.md §9), and the warnings in words. */
+/** The engine's per-axis results, for one unit (docs/model.md), and the warnings in words. */
 export const AXIS_RESULT_COLUMNS: readonly AxisColumn[] = [
   {
     key: "olStatus",

@@ -26,18 +26,18 @@ export const orNull = (value: number | null, text = "n/a"): number | string => v
 /** A number from a money string: spreadsheets compute in doubles, which hold cents exactly enough. */
 export const money = (amount: string): number => Number(amount);
 
-/** The closed-loop status the reliability formula tests (docs/model.md §8: not "undersized"). */
+/** The closed-loop status the reliability formula tests (docs/model.md (The business case): not "undersized"). */
 export const UNDERSIZED = "undersized";
 
 /**
- * Whether the axis avoids step-loss events closed loop (docs/model.md §8): its kit is not
+ * Whether the axis avoids step-loss events closed loop (docs/model.md (The business case)): its kit is not
  * undersized, and a sensorless kit does not run below its minimum speed (open loop in effect).
  * Read from the result's status and warnings, which a result of engine v1 has too.
  */
 export const avoidsEvents = (result: AxisResult): boolean =>
   result.closedLoop.status !== UNDERSIZED && !result.warnings.includes("SENSORLESS_LOW_SPEED");
 
-/** The cost of one event as the Axes sheet's formula computes it (docs/model.md §8), in doubles. */
+/** The cost of one event as the Axes sheet's formula computes it (docs/model.md (The business case)), in doubles. */
 export function eventCostValue(r: AxisRowContext): number {
   const { costPerEvent, event } = r.axis.reliability;
   return (

@@ -66,7 +66,7 @@ const sumOf = (range: string | null): string => (range === null ? "0" : `SUM(${r
 export { coolingOpenLoop };
 
 /**
- * The three scenarios of docs/model.md §8 with live formulas. Years run down the rows,
+ * The three scenarios of docs/model.md (The business case) with live formulas. Years run down the rows,
  * t = 0..30; years beyond Horizon_Years count 0, so the horizon can be changed in the file.
  * CF_0 = −Capex; CF_t is the sum of its value by source (the block below the terms): energy and
  * cooling at the escalated tariff, reliability, maintenance and throughput less service at the
@@ -323,7 +323,7 @@ const BREAK_EVEN_LABELS: Record<keyof typeof CASH_FLOW.breakEven, string> = {
 };
 
 /**
- * docs/model.md §8: the flows are affine in the tariff and in a factor on every axis's events,
+ * docs/model.md (The business case): the flows are affine in the tariff and in a factor on every axis's events,
  * so NPV is too, with the slopes (1 − tax)·kWh·Σ escalation_t·discount_t and
  * (1 − tax)·reliability·Σ inflation_t·discount_t over the shared factor rows. Break-even =
  * where that line crosses 0; "none" when the slope is ≤ 0 or the answer negative, as the engine.
@@ -532,7 +532,7 @@ const SOURCE_LABELS: Record<ValueSource, string> = {
 };
 
 /**
- * Value by source, year by year (docs/model.md §8), so that finance can reconcile every flow:
+ * Value by source, year by year (docs/model.md (The business case)), so that finance can reconcile every flow:
  * years 1..30 across, shared factor rows (0 beyond the horizon), then per scenario one row per
  * source and their sum, which is the scenario's cash flow in the year table above.
  */

@@ -91,7 +91,7 @@ export function coolingOpenLoop(result: CaseResult, input: ParsedCase): number {
   return total;
 }
 
-/** The drive and cooling energy (kWh/yr) a scenario counts (docs/model.md §8). */
+/** The drive and cooling energy (kWh/yr) a scenario counts (docs/model.md (The business case)). */
 export function scenarioKWh(
   input: ParsedCase,
   result: CaseResult,
@@ -199,7 +199,7 @@ export function paybackStatusValue(scenario: Scenario): PaybackStatus {
 
 /**
  * How much the physics scenario's NPV moves per unit of tariff and per unit of the step-loss
- * factor: the flows are affine in both (docs/model.md §8), with the slopes
+ * factor: the flows are affine in both (docs/model.md (The business case)), with the slopes
  * (1 − tax)·kWh·Σ esc_t/(1+r)^t and (1 − tax)·reliability·Σ infl_t/(1+r)^t.
  */
 export function breakEvenSlopes(

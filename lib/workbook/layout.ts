@@ -25,7 +25,7 @@ export const FROZEN: Record<(typeof SHEET)[keyof typeof SHEET], { rows: number; 
     [SHEET.cautions]: { rows: 1, columns: 0 },
   };
 
-/** The horizon of ENGINE.md §2 is a whole number of years from 1 to 30. */
+/** The horizon of docs/model.md is a whole number of years from 1 to 30. */
 export const MAX_HORIZON_YEARS = 30;
 
 export const SCENARIOS = ["physics", "bandLow", "bandHigh"] as const;
@@ -88,7 +88,7 @@ export const CASH_FLOW = {
     irrGuess: 42,
     paybackStatus: 43,
   },
-  /** Break-even values of the physics scenario (docs/model.md §8), in its flow column. */
+  /** Break-even values of the physics scenario (docs/model.md (The business case)), in its flow column. */
   breakEven: {
     tariffSlope: 44,
     tariff: 45,
@@ -112,7 +112,7 @@ export const CASH_FLOW = {
     depreciation: 60,
   },
   /**
-   * Value by source, year by year (docs/model.md §8): one row per source, years 1..30 across
+   * Value by source, year by year (docs/model.md (The business case)): one row per source, years 1..30 across
    * the columns from C, under shared factor rows; each scenario's sum row is its cash flow.
    */
   sources: {

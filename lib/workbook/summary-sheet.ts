@@ -169,7 +169,7 @@ export function writeSummarySheet(
 
   const bandTop = SUMMARY_TABLE_HEADER_ROW + figures.length + 2;
   writeBandPosition(sheet, input, result, bandTop);
-  // docs/model.md §8: where the physics scenario's NPV crosses 0.
+  // docs/model.md (The business case): where the physics scenario's NPV crosses 0.
   const breakEven = breakEvenValues(input, result);
   const breakEvenRows: [string, string, number | string, string][] = [
     [
@@ -195,7 +195,7 @@ export function writeSummarySheet(
     "Savings and payback are estimates from the stated assumptions (Assumptions sheet); read the Cautions sheet.";
 }
 
-/** Where the physics lands against the band claimed in the trade (ENGINE.md §6, inclusive ends). */
+/** Where the physics lands against the band claimed in the trade (docs/model.md (Energy and cooling), inclusive ends). */
 function writeBandPosition(
   sheet: ExcelJS.Worksheet,
   input: ParsedCase,

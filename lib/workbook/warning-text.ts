@@ -1,12 +1,12 @@
 import type { AxisResult, AxisWarning, MachineWarning } from "@/lib/engine";
 
-/** The insulation class limits of IEC 60085 (Table 1) that the engine compares with (ENGINE.md §5). */
+/** The insulation class limits of IEC 60085 (Table 1) that the engine compares with (docs/model.md (Winding temperature)). */
 const CLASS_LIMIT_C: Record<string, number> = { B: 130, F: 155, H: 180 };
 
 const degrees = (value: number | null): string =>
   value === null ? "no steady value" : `${value.toFixed(0)} °C`;
 
-/** One sentence per warning code, for the Axes sheet's warnings column (ENGINE.md §9). */
+/** One sentence per warning code, for the Axes sheet's warnings column (docs/model.md). */
 export function axisWarningText(
   code: AxisWarning,
   axis: AxisResult,

@@ -111,7 +111,7 @@ function expectEngineFigures(calc: ExcelJS.Workbook, result: CaseResult): Record
     close(`Payback_${suffix}`, s.paybackYears, BEYOND_HORIZON);
     close(`DiscountedPayback_${suffix}`, s.discountedPaybackYears, BEYOND_HORIZON);
     close(`ROI_${suffix}`, s.roiPct, "n/a");
-    // Engine v2 (docs/model.md §8); a stored v1 result has no payback status of its own.
+    // Engine v2 (docs/model.md (The business case)); a stored v1 result has no payback status of its own.
     if (s.paybackStatus !== undefined)
       expect(value(`PaybackStatus_${suffix}`)).toBe(s.paybackStatus);
   }
@@ -126,7 +126,7 @@ function expectEngineFigures(calc: ExcelJS.Workbook, result: CaseResult): Record
 const numberOrNull = (money: string | null) => (money === null ? null : Number(money));
 
 /**
- * The value-by-source block as Calc computed it (docs/model.md §8): each source of each year
+ * The value-by-source block as Calc computed it (docs/model.md (The business case)): each source of each year
  * equals the engine's to the cent, and the year's cash flow in the year table is their sum.
  */
 function expectSourcesAddUp(calc: ExcelJS.Workbook, result: CaseResult, horizon: number): void {

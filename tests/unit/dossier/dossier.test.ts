@@ -89,7 +89,7 @@ function expectDrawIsEngine(changed: Json, draw: Draw): void {
     .toFixed();
   for (const axis of changed.axes) {
     axis.duty.hoursPerYear *= f(draw.pct.hoursPerYear);
-    // docs/model.md §8 (v2): the load driver scales load, peak and holding torque alike.
+    // docs/model.md (The business case) (v2): the load driver scales load, peak and holding torque alike.
     axis.duty.loadTorqueNm *= f(draw.pct.loadTorque);
     axis.duty.peakTorqueNm *= f(draw.pct.loadTorque);
     axis.duty.holdTorqueNm = (axis.duty.holdTorqueNm ?? 0) * f(draw.pct.loadTorque);

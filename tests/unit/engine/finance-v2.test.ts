@@ -13,7 +13,7 @@ import {
 import { irr } from "@/lib/engine/finance";
 import { Money } from "@/lib/engine/money";
 
-// Engine v2 money, docs/model.md §8. Every expected value below is worked by hand from the rule
+// Engine v2 money, docs/model.md (The business case). Every expected value below is worked by hand from the rule
 // quoted beside it (arithmetic on the case's own inputs); the physics figures (kWh saved) are the
 // engine's and only pass through.
 
@@ -44,7 +44,7 @@ function taxedHand(taxRatePct: number): Json {
   return input;
 }
 
-describe("cost of a step-loss event built from downtime, scrap and restart labour (docs/model.md §8)", () => {
+describe("cost of a step-loss event built from downtime, scrap and restart labour (docs/model.md (The business case))", () => {
   const built = () => {
     const input = hand();
     input.finance.downtimeCostPerHour = "400";
@@ -79,7 +79,7 @@ describe("cost of a step-loss event built from downtime, scrap and restart labou
     ).toBe(true);
   });
 
-  it("a sensorless kit below its minimum speed avoids no events (docs/model.md §4, §8)", () => {
+  it("a sensorless kit below its minimum speed avoids no events (docs/model.md (Currents at the operating point), §8)", () => {
     const input = built();
     input.axes[0].retrofit.kit.sensing = "sensorless";
     input.axes[0].duty.speedRpm = 30; // below the default sensorlessMinRpm of 60
@@ -89,7 +89,7 @@ describe("cost of a step-loss event built from downtime, scrap and restart labou
   });
 });
 
-describe("inflation, tax and straight-line depreciation worked by hand (docs/model.md §8)", () => {
+describe("inflation, tax and straight-line depreciation worked by hand (docs/model.md (The business case))", () => {
   const result = evaluateCase(taxedHand(25));
   const physics = result.scenarios.physics;
   const kWh = dec(result.totals.energySavedKWhPerYear);
@@ -161,7 +161,7 @@ describe("inflation, tax and straight-line depreciation worked by hand (docs/mod
   });
 });
 
-describe("value by source adds up to each cash flow exactly (docs/model.md §8)", () => {
+describe("value by source adds up to each cash flow exactly (docs/model.md (The business case))", () => {
   const check = (result: CaseResult) => {
     for (const s of scenariosOf(result)) {
       for (const source of VALUE_SOURCES)
@@ -229,7 +229,7 @@ describe("value by source adds up to each cash flow exactly (docs/model.md §8)"
   });
 });
 
-describe("payback status (docs/model.md §8)", () => {
+describe("payback status (docs/model.md (The business case))", () => {
   it('"reached" when the simple payback falls within the horizon', () => {
     const s = evaluateCase(hand()).scenarios.physics;
     expect(s.paybackYears).not.toBeNull();
@@ -254,7 +254,7 @@ describe("payback status (docs/model.md §8)", () => {
   });
 });
 
-describe("break-even values (docs/model.md §8: NPV is affine in the tariff and in the event factor)", () => {
+describe("break-even values (docs/model.md (The business case): NPV is affine in the tariff and in the event factor)", () => {
   /** The hand case with a dear kit, tax, inflation and escalation: NPV < 0 at today's figures. */
   const dear = (): Json => {
     const input = taxedHand(30);
@@ -296,7 +296,7 @@ describe("break-even values (docs/model.md §8: NPV is affine in the tariff and 
   });
 });
 
-describe("sensitivity drivers of engine v2 (docs/model.md §8)", () => {
+describe("sensitivity drivers of engine v2 (docs/model.md (The business case))", () => {
   const result = evaluateCase(fixtureCase);
   const row = (driver: string) => result.sensitivity.find((r) => r.driver === driver)!;
 
@@ -351,7 +351,7 @@ describe("sensitivity drivers of engine v2 (docs/model.md §8)", () => {
   });
 });
 
-describe("IRR by the v2 rule (docs/model.md §8)", () => {
+describe("IRR by the v2 rule (docs/model.md (The business case))", () => {
   const flows = (values: number[]) => values.map((v) => dec(v));
 
   it("numpy-financial irr docstring: IRR(−100, 39, 59, 55, 20) = 0.2809484211599611 (bisection to 1e-12)", () => {

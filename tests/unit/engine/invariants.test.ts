@@ -175,7 +175,7 @@ describe("physical invariants (ENGINE.md §3–§6)", () => {
         fc.double({ min: 1, max: 3, noNaN: true }),
         (d, efficiencyGain, kitStandbyW) => {
           // Slow enough that neither drive runs short of voltage: at speed an open-loop drive may
-          // draw less than its setting while the kit pays for field weakening (docs/model.md §4).
+          // draw less than its setting while the kit pays for field weakening (docs/model.md (Currents at the operating point)).
           const input = caseFor({
             ...d,
             sensing: "encoder",

@@ -185,7 +185,7 @@ describe("motion in a case: validation and results", () => {
   });
 });
 
-describe("torque at speed with a free current angle (docs/model.md §3)", () => {
+describe("torque at speed with a free current angle (docs/model.md (Torque at speed))", () => {
   const motorArb = fc.record({
     holdingTorqueNm: fc.double({ min: 0.2, max: 6, noNaN: true }),
     ratedCurrentA: fc.double({ min: 0.5, max: 6, noNaN: true }),
@@ -362,7 +362,7 @@ describe("torque at speed with a free current angle (docs/model.md §3)", () => 
   });
 });
 
-describe("currents at the operating point and holding (docs/model.md §4, §5, §7)", () => {
+describe("currents at the operating point and holding (docs/model.md (Currents at the operating point), §5, §7)", () => {
   it("the default thermal resistance reproduces the datasheet rise exactly (common practice: the rise a datasheet states)", () => {
     const input = hand();
     Object.assign(input.axes[0].drive, {

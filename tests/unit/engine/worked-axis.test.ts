@@ -3,7 +3,7 @@ import handCase from "@/tests/fixtures/engine-hand-case.json";
 import { evaluateCase } from "@/lib/engine";
 
 /*
- * One axis worked step by step from the written model (docs/model.md §3–§8), independently of
+ * One axis worked step by step from the written model (docs/model.md (Torque at speed)–§8), independently of
  * the engine's code: plain formulas, no shortcuts, one line per rule.
  * Invented NEMA 23 class motor: T_H 1.26 N·m, I_R 2.8 A, R20 0.9 Ω, L 3.2 mH, Nr 50,
  * kh 0.004 W/Hz, ke 2e-6 W/Hz². Drive 48 V, 2.8 A peak, micro, idle 50 %, η 90 %, standby 2 W.
@@ -27,7 +27,7 @@ const rAt = (t: number) => r20 * (1 + alpha * (t - 20));
 const temp = (a: number, b: number) =>
   (40 + rth * (a * (1 - 20 * alpha) + b)) / (1 - rth * a * alpha);
 
-/** Largest i_q in the current disc |i| ≤ iLim and the voltage disc at speed rpm (docs/model.md §3). */
+/** Largest i_q in the current disc |i| ≤ iLim and the voltage disc at speed rpm (docs/model.md (Torque at speed)). */
 function iqMax(iLim: number, r: number, rpm: number, v = 48): number {
   const w = (2 * Math.PI * rpm) / 60;
   const e = k1 * w;
@@ -92,7 +92,7 @@ const clIn = {
 const clE = (4000 * (0.4 * clIn.move + 0.4 * clIn.hold + 0.2 * clIn.off)) / 1000;
 const clTorque = torqueAt(iMax, clR, n);
 
-describe("one axis worked step by step from the model (docs/model.md §3–§8)", () => {
+describe("one axis worked step by step from the model (docs/model.md (Torque at speed)–§8)", () => {
   it("open loop: the bus drives the setting at 300 rpm; temperature, losses, power, energy", () => {
     const o = axis.openLoop;
     expect(o.currentMoveA).toBe(2.8);

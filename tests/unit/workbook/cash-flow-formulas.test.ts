@@ -27,7 +27,7 @@ describe("Cash flow sheet formulas (ENGINE.md §8)", () => {
     expect(formulaOf(sheet.getCell("B4"))).toBe("Tariff*(1+TariffEscalation_Pct/100)^($A4-1)");
   });
 
-  it("builds the value by source from escalation, inflation, tax and straight-line depreciation (docs/model.md §8)", async () => {
+  it("builds the value by source from escalation, inflation, tax and straight-line depreciation (docs/model.md (The business case))", async () => {
     const { workbook } = await buildWorkbookOf();
     const sheet = sheetOf(workbook, "Cash flow");
     const f = (address: string) => formulaOf(sheet.getCell(address));
@@ -55,7 +55,7 @@ describe("Cash flow sheet formulas (ENGINE.md §8)", () => {
     expect(f("D81")).toBe("BandLow_Pct/100*CoolingOpenLoop_kWh*Tariff*D$64");
   });
 
-  it("gives payback status and the break-even values as formulas (docs/model.md §8)", async () => {
+  it("gives payback status and the break-even values as formulas (docs/model.md (The business case))", async () => {
     const { workbook } = await buildWorkbookOf();
     const sheet = sheetOf(workbook, "Cash flow");
     const f = (address: string) => formulaOf(sheet.getCell(address));

@@ -11,7 +11,7 @@ const REQUIRED_NAMES = {
   Payback_Physics: { sheet: "Cash flow", address: "C39" },
   NPV_BandLow: { sheet: "Cash flow", address: "I37" },
   NPV_BandHigh: { sheet: "Cash flow", address: "O37" },
-  // docs/model.md §8, engine v2.
+  // docs/model.md (The business case), engine v2.
   PaybackStatus_Physics: { sheet: "Cash flow", address: "C43" },
   BreakEven_Tariff: { sheet: "Cash flow", address: "C45" },
   BreakEven_StepLossFactor: { sheet: "Cash flow", address: "C47" },

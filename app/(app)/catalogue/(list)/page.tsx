@@ -22,7 +22,7 @@ function first(v: string | string[] | undefined) {
 
 /**
  * A price from its decimal string, never through a float: roundMoney rounds half-even to the
- * currency's minor unit (ENGINE.md §1), the whole part is grouped as a BigInt, and Intl only
+ * currency's minor unit (docs/model.md), the whole part is grouped as a BigInt, and Intl only
  * supplies where the symbol, separators and digits go.
  */
 function formatPrice(price: string, currency: string) {
@@ -81,7 +81,7 @@ function HelpList({ items }: { items: [term: string, text: string][] }) {
   );
 }
 
-// The defaults below are those of KitInput and MotorInput in ENGINE.md §2.
+// The defaults below are those of KitInput and MotorInput in docs/model.md.
 const KIT_HELP: [string, string][] = [
   ["Price", "per axis, before any discount of the case; the business case keeps it exact."],
   [

@@ -3,7 +3,7 @@ import { jsonError, readJsonBody, withApi } from "@/lib/api/handler";
 import { requireUser } from "@/lib/auth";
 import { caseInputSchema, evaluateParsedCase, formatIssues, formatPath } from "@/lib/engine";
 
-// A CaseInput in, the engine's CaseResult out (ENGINE.md §9), for any signed-in user.
+// A CaseInput in, the engine's CaseResult out (docs/model.md), for any signed-in user.
 export const MAX_CASE_BYTES = 20 * 1024 * 1024;
 
 export const POST = withApi(async (request: Request) => {

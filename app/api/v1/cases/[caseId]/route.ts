@@ -4,7 +4,7 @@ import { withApi } from "@/lib/api/handler";
 import { idFromRoute } from "@/lib/api/params";
 import { requireRole } from "@/lib/auth";
 
-// The case with `input`, the full CaseInput the engine receives for it (ENGINE.md §2).
+// The case with `input`, the full CaseInput the engine receives for it (docs/model.md).
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ caseId: string }> }) => {
     const caller = await requireRole("engineer", "manager", "admin");

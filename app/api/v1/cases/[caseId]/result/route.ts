@@ -3,7 +3,7 @@ import { withApi } from "@/lib/api/handler";
 import { idFromRoute } from "@/lib/api/params";
 import { requireRole } from "@/lib/auth";
 
-// The CaseResult of ENGINE.md §9 for the case as it stands now.
+// The CaseResult of docs/model.md for the case as it stands now.
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ caseId: string }> }) => {
     const caller = await requireRole("engineer", "manager", "admin");

@@ -26,7 +26,7 @@ export const GET = withApi(async (request: Request, context: Context) => {
 });
 
 // A new axis on one of the site's machines; `motion`, `event` and `resonance` as in the engine's
-// CaseInput (ENGINE.md §2). Answers 201 with the stored axis.
+// CaseInput (docs/model.md). Answers 201 with the stored axis.
 export const POST = withApi(async (request: Request, context: Context) => {
   const caller = await requireRole("engineer", "manager", "admin");
   const siteId = idFromRoute((await context.params).siteId);
