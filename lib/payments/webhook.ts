@@ -2,7 +2,7 @@ import "server-only";
 import Stripe from "stripe";
 import { recordPaymentEvent, type RecordedEvent } from "@/db/queries/payments";
 import { deliverMail } from "@/lib/mail/queue";
-import { paymentConfig } from "./config";
+import { MISSING_WEBHOOK_SECRET, PaymentConfigError, paymentConfig } from "./config";
 
 export class BadSignatureError extends Error {}
 
@@ -16,9 +16,12 @@ export async function handlePaymentWebhook(
   rawBody: string,
   signature: string | null,
 ): Promise<RecordedEvent> {
+  const { webhookSecret } = paymentConfig();
+  // An empty key would make the signature computable by anyone: refuse before verifying.
+  if (!webhookSecret) throw new PaymentConfigError(MISSING_WEBHOOK_SECRET);
   let event: Stripe.Event;
   try {
-    event = Stripe.webhooks.constructEvent(rawBody, signature ?? "", paymentConfig().webhookSecret);
+    event = Stripe.webhooks.constructEvent(rawBody, signature ?? "", webhookSecret);
   } catch (error) {
     throw new BadSignatureError(error instanceof Error ? error.message : "bad signature");
   }
