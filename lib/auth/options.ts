@@ -3,6 +3,7 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { recordAudit } from "@/db/queries/audit";
 import { findUserForSignIn } from "@/db/queries/users";
 import { signInSchema } from "@/lib/validations/sign-in";
+import { sameOriginPath } from "./callback-url";
 import { hashPassword, verifyPassword } from "./password";
 import { clearFailures, describeWait, recordFailure, retryAfterMs } from "./rate-limit";
 
@@ -73,6 +74,12 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
+    // next-auth's default accepts any url starting with "/", which a browser may read as another
+    // host ("/\evil.example"); only paths that stay on our origin are kept.
+    async redirect({ url, baseUrl }) {
+      const path = sameOriginPath(url, baseUrl);
+      return path ? `${baseUrl}${path}` : baseUrl;
+    },
     async jwt({ token, user }) {
       if (user) {
         token.uid = Number(user.id);
