@@ -1,7 +1,7 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { recordAudit } from "@/db/queries/audit";
-import { findUserForSignIn } from "@/db/queries/users";
+import { findUserForSignIn, revokeSessions } from "@/db/queries/users";
 import { signInSchema } from "@/lib/validations/sign-in";
 import { sameOriginPath } from "./callback-url";
 import { hashPassword, verifyPassword } from "./password";
@@ -69,6 +69,7 @@ export const authOptions: NextAuthOptions = {
           name: user.name,
           role: user.role,
           accountId: user.accountId,
+          sessionVersion: user.sessionVersion,
         };
       },
     }),
@@ -85,6 +86,7 @@ export const authOptions: NextAuthOptions = {
         token.uid = Number(user.id);
         token.role = user.role;
         token.accountId = user.accountId ?? null;
+        token.sv = user.sessionVersion;
       }
       return token;
     },
@@ -95,8 +97,17 @@ export const authOptions: NextAuthOptions = {
         name: token.name ?? "",
         role: token.role!,
         accountId: token.accountId ?? null,
+        // getSessionUser compares it with the user's current version on every request.
+        sessionVersion: typeof token.sv === "number" ? token.sv : null,
       };
       return session;
+    },
+  },
+  events: {
+    // Signing out ends the session on the server too: a copy of the token saved before stops
+    // working (OWASP ASVS 3.3.1), not only the cookie in this browser.
+    async signOut({ token }) {
+      if (typeof token?.uid === "number") revokeSessions(token.uid);
     },
   },
 };
