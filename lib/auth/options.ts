@@ -4,21 +4,13 @@ import { recordAudit } from "@/db/queries/audit";
 import { findUserForSignIn, revokeSessions } from "@/db/queries/users";
 import { signInSchema } from "@/lib/validations/sign-in";
 import { sameOriginPath } from "./callback-url";
+import { clientAddress } from "./client-address";
 import { hashPassword, verifyPassword } from "./password";
 import { clearFailures, describeWait, recordFailure, retryAfterMs } from "./rate-limit";
 
 const UNKNOWN_USER_HASH = hashPassword("no user has this password");
 
 export const WRONG_CREDENTIALS = "That e-mail and password do not match an active user.";
-
-function clientAddress(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.["x-forwarded-for"];
-  const first = typeof forwarded === "string" ? forwarded.split(",")[0].trim() : "";
-  return (
-    first ||
-    (typeof headers?.["x-real-ip"] === "string" ? (headers["x-real-ip"] as string) : "local")
-  );
-}
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 8 * 60 * 60 },
