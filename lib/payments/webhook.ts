@@ -6,6 +6,18 @@ import { MISSING_WEBHOOK_SECRET, PaymentConfigError, paymentConfig } from "./con
 
 export class BadSignatureError extends Error {}
 
+// constructEvent refuses signatures older than its tolerance (300 s) but not ones dated in the
+// future, which a leaked signing secret could use to mint events that stay valid for long.
+export const FUTURE_TOLERANCE_S = 300;
+
+function signedAt(signature: string | null): number | null {
+  const t = signature
+    ?.split(",")
+    .map((part) => part.trim().split("="))
+    .find(([k]) => k === "t")?.[1];
+  return t && /^\d+$/.test(t) ? Number(t) : null;
+}
+
 /**
  * Verifies a webhook with the SDK's constructEvent against the raw body, records it once (the
  * receipt is queued in the same transaction when this event unlocked a dossier), then hands the
@@ -24,6 +36,10 @@ export async function handlePaymentWebhook(
     event = Stripe.webhooks.constructEvent(rawBody, signature ?? "", webhookSecret);
   } catch (error) {
     throw new BadSignatureError(error instanceof Error ? error.message : "bad signature");
+  }
+  const t = signedAt(signature);
+  if (t === null || t > Math.floor(Date.now() / 1000) + FUTURE_TOLERANCE_S) {
+    throw new BadSignatureError("The signature's timestamp lies in the future");
   }
   const session =
     event.type === "checkout.session.completed"
