@@ -3,6 +3,7 @@ import "@fontsource/lato/700.css";
 import "@fontsource/lato/900.css";
 import "./globals.css";
 import type { Metadata, Viewport } from "next";
+import { connection } from "next/server";
 import type { ReactNode } from "react";
 import { Providers } from "@/components/providers";
 
@@ -14,7 +15,10 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { themeColor: "#123433" };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+// Every page renders per request: the script nonce of proxy.ts's CSP is new each time, and a page
+// prerendered at build time would carry scripts without it, which the browser would refuse.
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  await connection();
   return (
     <html lang="en">
       <body className="min-h-screen">

@@ -6,6 +6,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
+import { sameOriginPath } from "@/lib/auth/callback-url";
 import { signInSchema, type SignInInput } from "@/lib/validations/sign-in";
 
 type DemoUser = { email: string; label: string; password: string };
@@ -39,8 +40,9 @@ export function SignInForm({
       );
       return;
     }
-    // The root page sends each role to its own home.
-    window.location.assign(callbackUrl ?? "/");
+    // The root page sends each role to its own home. The page checked the callback already; it is
+    // checked again against the origin the browser is on, as the last step before navigating.
+    window.location.assign(sameOriginPath(callbackUrl, window.location.origin) ?? "/");
   }
 
   return (

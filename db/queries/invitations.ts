@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from "node:crypto";
-import { and, eq, isNull, ne } from "drizzle-orm";
+import { and, eq, isNull, ne, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { accounts, invitations, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
@@ -138,7 +138,11 @@ export function acceptInvitation(token: string, password: string, now = new Date
         ),
       )
       .run();
-    tx.update(users).set({ passwordHash }).where(eq(users.id, invitation.userId)).run();
+    // A new password ends the sessions opened with the old one.
+    tx.update(users)
+      .set({ passwordHash, sessionVersion: sql`${users.sessionVersion} + 1` })
+      .where(eq(users.id, invitation.userId))
+      .run();
     return tx
       .select({ id: users.id, email: users.email })
       .from(users)

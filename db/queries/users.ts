@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, like, or, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, like, or, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { accounts, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
@@ -49,6 +49,36 @@ export function findActiveUserById(id: number): SessionUser | undefined {
     .where(and(eq(users.id, id), eq(users.active, true)))
     .get();
   return row ?? undefined;
+}
+
+// The session version a new token is issued under.
+export function sessionVersionOf(id: number): number | undefined {
+  return db.select({ v: users.sessionVersion }).from(users).where(eq(users.id, id)).get()?.v;
+}
+
+// The token's user when the token was issued under their current session version, else undefined:
+// signing out, deactivation and a role change end every token issued before.
+export function findSessionUser(id: number, version: number): SessionUser | undefined {
+  const row = db
+    .select({
+      id: users.id,
+      email: users.email,
+      name: users.name,
+      role: users.role,
+      accountId: users.accountId,
+    })
+    .from(users)
+    .where(and(eq(users.id, id), eq(users.active, true), eq(users.sessionVersion, version)))
+    .get();
+  return row ?? undefined;
+}
+
+// Ends every session of the user (server side; their saved tokens stop working).
+export function revokeSessions(id: number) {
+  db.update(users)
+    .set({ sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, id))
+    .run();
 }
 
 const sortColumns = {
@@ -126,7 +156,11 @@ export function changeRole(caller: SessionUser, input: ChangeRoleInput) {
   }
   assertAccountExists(input.accountId);
   const accountId = input.role === "reviewer" ? input.accountId : null;
-  db.update(users).set({ role: input.role, accountId }).where(eq(users.id, target.id)).run();
+  // A new role ends the user's sessions, so no token keeps the old role's claims.
+  db.update(users)
+    .set({ role: input.role, accountId, sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, target.id))
+    .run();
   recordAudit({
     actor: caller,
     action: "user.role",
@@ -140,7 +174,10 @@ export function setUserActive(caller: SessionUser, userId: number, active: boole
   assertRole(caller, "admin");
   const target = getUserOrThrow(userId);
   if (target.id === caller.id && !active) throw new ConflictError("You cannot deactivate yourself");
-  db.update(users).set({ active }).where(eq(users.id, target.id)).run();
+  db.update(users)
+    .set({ active, sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, target.id))
+    .run();
   recordAudit({
     actor: caller,
     action: active ? "user.activate" : "user.deactivate",

@@ -10,3 +10,4 @@ export * from "./review";
 export * from "./mail";
 export * from "./revisions";
 export * from "./dossiers";
+export * from "./sign-in-throttle";

@@ -16,6 +16,9 @@ export const users = sqliteTable(
     // Only reviewers belong to a customer account; vendor staff have none.
     accountId: integer("account_id").references(() => accounts.id, { onDelete: "set null" }),
     active: integer("active", { mode: "boolean" }).notNull().default(true),
+    // Each session token carries the version it was issued under; signing out, deactivation and a
+    // role change raise it, so every token issued before stops working on its next request.
+    sessionVersion: integer("session_version").notNull().default(0),
     createdAt: text("created_at")
       .notNull()
       .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`),

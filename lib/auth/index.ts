@@ -1,7 +1,7 @@
 import "server-only";
 import { getServerSession } from "next-auth";
 import { notFound, redirect } from "next/navigation";
-import { findActiveUserById } from "@/db/queries/users";
+import { findSessionUser } from "@/db/queries/users";
 import { ForbiddenError, UnauthorizedError } from "@/lib/errors";
 import { authOptions } from "./options";
 import type { Role } from "./roles";
@@ -9,12 +9,14 @@ import type { SessionUser } from "./session-user";
 
 export type { SessionUser };
 
-// The signed-in caller as the database has them now, or null.
+// The signed-in caller as the database has them now, or null. A token issued before the user's
+// current session version (signed out, deactivated, role changed, password set) counts as none.
 export async function getSessionUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);
   const id = session?.user?.id;
-  if (!id) return null;
-  return findActiveUserById(id) ?? null;
+  const version = session?.user?.sessionVersion;
+  if (!id || typeof version !== "number") return null;
+  return findSessionUser(id, version) ?? null;
 }
 
 // For route handlers and server actions: throws typed errors that map to 401 / 403.

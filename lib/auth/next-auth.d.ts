@@ -2,12 +2,20 @@ import type { Role } from "@/db/schema/users";
 
 declare module "next-auth" {
   interface Session {
-    user: { id: number; email: string; name: string; role: Role; accountId: number | null };
+    user: {
+      id: number;
+      email: string;
+      name: string;
+      role: Role;
+      accountId: number | null;
+      sessionVersion: number | null;
+    };
   }
   interface User {
     id: string;
     role: Role;
     accountId: number | null;
+    sessionVersion: number;
   }
 }
 
@@ -16,5 +24,6 @@ declare module "next-auth/jwt" {
     uid?: number;
     role?: Role;
     accountId?: number | null;
+    sv?: number;
   }
 }

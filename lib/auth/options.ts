@@ -1,23 +1,16 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { recordAudit } from "@/db/queries/audit";
-import { findUserForSignIn } from "@/db/queries/users";
+import { findUserForSignIn, revokeSessions } from "@/db/queries/users";
 import { signInSchema } from "@/lib/validations/sign-in";
+import { sameOriginPath } from "./callback-url";
+import { clientAddress } from "./client-address";
 import { hashPassword, verifyPassword } from "./password";
 import { clearFailures, describeWait, recordFailure, retryAfterMs } from "./rate-limit";
 
 const UNKNOWN_USER_HASH = hashPassword("no user has this password");
 
 export const WRONG_CREDENTIALS = "That e-mail and password do not match an active user.";
-
-function clientAddress(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.["x-forwarded-for"];
-  const first = typeof forwarded === "string" ? forwarded.split(",")[0].trim() : "";
-  return (
-    first ||
-    (typeof headers?.["x-real-ip"] === "string" ? (headers["x-real-ip"] as string) : "local")
-  );
-}
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 8 * 60 * 60 },
@@ -68,16 +61,24 @@ export const authOptions: NextAuthOptions = {
           name: user.name,
           role: user.role,
           accountId: user.accountId,
+          sessionVersion: user.sessionVersion,
         };
       },
     }),
   ],
   callbacks: {
+    // next-auth's default accepts any url starting with "/", which a browser may read as another
+    // host ("/\evil.example"); only paths that stay on our origin are kept.
+    async redirect({ url, baseUrl }) {
+      const path = sameOriginPath(url, baseUrl);
+      return path ? `${baseUrl}${path}` : baseUrl;
+    },
     async jwt({ token, user }) {
       if (user) {
         token.uid = Number(user.id);
         token.role = user.role;
         token.accountId = user.accountId ?? null;
+        token.sv = user.sessionVersion;
       }
       return token;
     },
@@ -88,8 +89,17 @@ export const authOptions: NextAuthOptions = {
         name: token.name ?? "",
         role: token.role!,
         accountId: token.accountId ?? null,
+        // getSessionUser compares it with the user's current version on every request.
+        sessionVersion: typeof token.sv === "number" ? token.sv : null,
       };
       return session;
+    },
+  },
+  events: {
+    // Signing out ends the session on the server too: a copy of the token saved before stops
+    // working (OWASP ASVS 3.3.1), not only the cookie in this browser.
+    async signOut({ token }) {
+      if (typeof token?.uid === "number") revokeSessions(token.uid);
     },
   },
 };

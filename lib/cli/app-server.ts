@@ -10,6 +10,8 @@ import { needsBuild } from "./build-check";
 // Commands run from the project root (npm scripts, tests, the bundled benchmarks).
 export const ROOT = process.cwd();
 const NEXT_BIN = path.join(ROOT, "node_modules", "next", "dist", "bin", "next");
+// Gives the server each request's peer address for the sign-in throttle (lib/auth/client-address.ts).
+const PEER_PRELOAD = path.join(ROOT, "lib", "cli", "peer-address.mjs");
 
 // Applies the migrations and seeds the demo scenario into an empty database.
 export function prepareDatabase(file: string): boolean {
@@ -44,6 +46,10 @@ export function spawnNext(
     stdio,
     env: {
       ...env,
+      // NODE_OPTIONS rather than an argument: it reaches any worker process Next.js forks too.
+      NODE_OPTIONS: [env.NODE_OPTIONS, `--import ${JSON.stringify(PEER_PRELOAD)}`]
+        .filter(Boolean)
+        .join(" "),
       NODE_ENV: mode === "dev" ? "development" : "production",
       NEXT_TELEMETRY_DISABLED: "1",
     },

@@ -2,10 +2,13 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { DEFAULT_DATABASE_PATH } from "../../db/client";
+import { assertPaymentEnv } from "../payments/config";
 
 // Fills in the environment the server needs when nothing is set: a port, the database file,
 // the public URL and a session secret kept beside the database so sessions survive a restart.
+// Refuses a real payment key without its webhook secret before anything else starts.
 export function prepareRuntimeEnv(env: NodeJS.ProcessEnv = process.env) {
+  assertPaymentEnv(env);
   env.PORT ||= "3000";
   env.DATABASE_PATH = path.resolve(env.DATABASE_PATH || DEFAULT_DATABASE_PATH);
   env.NEXTAUTH_URL ||= `http://localhost:${env.PORT}`;

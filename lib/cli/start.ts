@@ -1,4 +1,5 @@
 import { ensureBuild, prepareDatabase, spawnNext, startLocalMail } from "./app-server";
+import { PaymentConfigError } from "../payments/config";
 import { startLocalPayments } from "./payment-fake";
 import { prepareRuntimeEnv } from "./runtime-env";
 
@@ -35,6 +36,9 @@ async function main() {
 }
 
 main().catch((error) => {
-  console.error(error);
+  // A configuration mistake gets its message alone, without a stack trace to read past.
+  console.error(
+    error instanceof PaymentConfigError ? `Loopshift cannot start: ${error.message}` : error,
+  );
   process.exit(1);
 });

@@ -2,9 +2,21 @@ import "server-only";
 import Stripe from "stripe";
 import { recordPaymentEvent, type RecordedEvent } from "@/db/queries/payments";
 import { deliverMail } from "@/lib/mail/queue";
-import { paymentConfig } from "./config";
+import { MISSING_WEBHOOK_SECRET, PaymentConfigError, paymentConfig } from "./config";
 
 export class BadSignatureError extends Error {}
+
+// constructEvent refuses signatures older than its tolerance (300 s) but not ones dated in the
+// future, which a leaked signing secret could use to mint events that stay valid for long.
+export const FUTURE_TOLERANCE_S = 300;
+
+function signedAt(signature: string | null): number | null {
+  const t = signature
+    ?.split(",")
+    .map((part) => part.trim().split("="))
+    .find(([k]) => k === "t")?.[1];
+  return t && /^\d+$/.test(t) ? Number(t) : null;
+}
 
 /**
  * Verifies a webhook with the SDK's constructEvent against the raw body, records it once (the
@@ -16,11 +28,18 @@ export async function handlePaymentWebhook(
   rawBody: string,
   signature: string | null,
 ): Promise<RecordedEvent> {
+  const { webhookSecret } = paymentConfig();
+  // An empty key would make the signature computable by anyone: refuse before verifying.
+  if (!webhookSecret) throw new PaymentConfigError(MISSING_WEBHOOK_SECRET);
   let event: Stripe.Event;
   try {
-    event = Stripe.webhooks.constructEvent(rawBody, signature ?? "", paymentConfig().webhookSecret);
+    event = Stripe.webhooks.constructEvent(rawBody, signature ?? "", webhookSecret);
   } catch (error) {
     throw new BadSignatureError(error instanceof Error ? error.message : "bad signature");
+  }
+  const t = signedAt(signature);
+  if (t === null || t > Math.floor(Date.now() / 1000) + FUTURE_TOLERANCE_S) {
+    throw new BadSignatureError("The signature's timestamp lies in the future");
   }
   const session =
     event.type === "checkout.session.completed"

@@ -1,3 +1,4 @@
+import { displayName } from "./display-name";
 import { z } from "zod";
 import { QUOTE_STAGES } from "@/db/schema/quotes";
 import { int, money, num } from "@/lib/engine/schema-fields";
@@ -25,11 +26,7 @@ export const salesSettingsSchema = z.object({
 
 export const sendProposalSchema = z.object({
   email: z.string().trim().toLowerCase().email("Enter the reviewer's e-mail address"),
-  name: z
-    .string()
-    .trim()
-    .min(1, "Enter the reviewer's name")
-    .max(120, "Keep the name under 120 characters"),
+  name: displayName("Enter the reviewer's name"),
 });
 
 export const DECISIONS = ["accept", "changes", "decline"] as const;

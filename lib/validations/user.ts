@@ -1,3 +1,4 @@
+import { displayName } from "./display-name";
 import { z } from "zod";
 import { ROLES } from "@/db/schema/users";
 
@@ -25,7 +26,7 @@ function requireAccountForReviewer(
 export const createUserSchema = z
   .object({
     email: z.string().trim().toLowerCase().email("Enter a valid e-mail address"),
-    name: z.string().trim().min(1, "Enter a name").max(120, "Keep the name under 120 characters"),
+    name: displayName("Enter a name"),
     role: roleField,
     accountId: accountField,
     password: z

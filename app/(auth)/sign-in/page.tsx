@@ -3,16 +3,11 @@ import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { Wordmark } from "@/components/shell/brand-mark";
 import { getSessionUser } from "@/lib/auth";
+import { sameOriginPath } from "@/lib/auth/callback-url";
 import { homeFor } from "@/lib/auth/roles";
 import { demoUsers, isDemoMode } from "@/lib/demo";
 
 export const metadata: Metadata = { title: "Sign in" };
-
-// Only same-site paths may be a destination after signing in.
-function safeCallback(value: string | string[] | undefined): string | undefined {
-  const v = Array.isArray(value) ? value[0] : value;
-  return v && v.startsWith("/") && !v.startsWith("//") ? v : undefined;
-}
 
 export default async function SignInPage({
   searchParams,
@@ -32,7 +27,11 @@ export default async function SignInPage({
         <p className="mt-1 text-steel-700">Use the e-mail address your administrator registered.</p>
       </div>
       <SignInForm
-        callbackUrl={safeCallback(params.callbackUrl)}
+        // Only a path on the app's own origin may be the destination after signing in.
+        callbackUrl={sameOriginPath(
+          params.callbackUrl,
+          process.env.NEXTAUTH_URL ?? "http://localhost",
+        )}
         demoUsers={isDemoMode() ? demoUsers() : []}
       />
     </div>

@@ -1,0 +1,1 @@
+ALTER TABLE `users` ADD `session_version` integer DEFAULT 0 NOT NULL;
