@@ -332,6 +332,8 @@ const caseObject = (axis: typeof axisInputSchema) =>
 
 /** Ids unique, and every axis names a machine of the case; checks the types it relies on. */
 function checkCaseReferences(input: unknown, ctx: z.RefinementCtx): void {
+  // Runs even when the body is not an object (reportEveryProblem), e.g. a JSON `null`.
+  if (typeof input !== "object" || input === null) return;
   const fields = input as { machines?: unknown; axes?: unknown };
   const machineIds = checkUniqueIds(fields.machines, "machines", ctx, "machine");
   checkUniqueIds(fields.axes, "axes", ctx, "axis");

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import { caseInputSchema } from "../engine/schema";
 import { atLeast, money, pct } from "../engine/schema-fields";
 
@@ -25,10 +26,10 @@ export const createCaseSchema = z.object({
     .trim()
     .min(1, "Enter a name for the case")
     .max(120, "Keep the name under 120 characters"),
-  siteId: z.coerce.number().int().positive("Choose a site"),
+  siteId: idSchema("Choose a site"),
 });
 
-const recordId = z.coerce.number().int().positive();
+const recordId = idSchema();
 
 export const caseAxesSchema = z.object({
   // Repeats collapse: picking an axis twice is picking it once.

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import { atLeast, choice, int, money, pct, positive, torque } from "@/lib/engine/schema-fields";
 
 const optional = <T extends z.ZodType>(schema: T) =>
@@ -41,7 +42,7 @@ export const kitInputSchema = z.object({
     .toUpperCase()
     .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
   sensing: choice(["encoder", "sensorless"]).default("encoder"),
-  motorId: optional(z.coerce.number().int().positive()),
+  motorId: optional(idSchema()),
   maxCurrentPeakA: optional(positive()),
   busVoltageV: optional(positive()),
   efficiencyPct: positive().max(100, "must be at most 100").default(92),

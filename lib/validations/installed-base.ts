@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import {
   atLeast,
   choice,
@@ -103,7 +104,7 @@ export function checkAxisConsistency(
 }
 
 export const axisInputSchema = axisFieldsSchema
-  .extend({ machineId: z.coerce.number().int().positive("Choose a machine") })
+  .extend({ machineId: idSchema("Choose a machine") })
   .superRefine(checkAxisConsistency);
 
 // The engine's own schemas for the optional objects of ENGINE.md §2, taken from its axis schema
@@ -128,7 +129,7 @@ const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peak
  */
 export const axisApiSchema = axisFieldsSchema
   .extend({
-    machineId: int(1),
+    machineId: idSchema(),
     movePct: pct().optional(),
     holdPct: pct().optional(),
     speedRpm: atLeast(0).optional(),

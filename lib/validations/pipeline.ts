@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import { QUOTE_STAGES } from "@/db/schema/quotes";
 import { int, money, num } from "@/lib/engine/schema-fields";
 
@@ -81,7 +82,7 @@ const dateOnly = z
 export const quoteUpdateSchema = z
   .object({
     stage: stageField.optional(),
-    ownerId: z.coerce.number().int().positive("Choose an owner").optional(),
+    ownerId: idSchema("Choose an owner").optional(),
     expectedCloseOn: dateOnly.optional(),
   })
   .strict()
