@@ -1,5 +1,6 @@
 import { NextResponse } from "next/server";
 import { ZodError } from "zod";
+import { NonFiniteResultError } from "@/lib/engine/evaluate";
 import { ConflictError, ForbiddenError, NotFoundError, UnauthorizedError } from "@/lib/errors";
 
 export class PayloadTooLargeError extends Error {
@@ -27,7 +28,8 @@ export function withApi<Args extends unknown[]>(handler: (...args: Args) => Prom
         error instanceof ForbiddenError ||
         error instanceof NotFoundError ||
         error instanceof ConflictError ||
-        error instanceof PayloadTooLargeError
+        error instanceof PayloadTooLargeError ||
+        error instanceof NonFiniteResultError
       ) {
         return jsonError(error.status, error.message);
       }

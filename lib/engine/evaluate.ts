@@ -20,7 +20,40 @@ export function evaluateCase(input: unknown): CaseResult {
 
 /** For input that already went through caseInputSchema (e.g. from safeParse). */
 export function evaluateParsedCase(input: ParsedCase): CaseResult {
-  return resultOf(prepareCase(input));
+  return assertFiniteResult(resultOf(prepareCase(input)));
+}
+
+/**
+ * A figure of the result is NaN or infinite: the schema's bounds (FIELD_BOUNDS) are meant to
+ * make this impossible, so it marks a gap in them. Callers answer 422 instead of publishing
+ * "NaN" as an NPV (ENGINE.md §1: every figure is a finite number or a decimal string).
+ */
+export class NonFiniteResultError extends Error {
+  readonly status = 422;
+  constructor(readonly path: string) {
+    super(`The case gives a figure out of range (${path}); check its inputs for extreme values`);
+    this.name = "NonFiniteResultError";
+  }
+}
+
+// Money strings come from decimal.js, which prints NaN and ±Infinity as words.
+const NON_FINITE_TEXT = /^[+-]?(NaN|Infinity)$/;
+
+/** Throws NonFiniteResultError at the first number or decimal string that is not finite. */
+export function assertFiniteResult<T>(result: T): T {
+  const visit = (value: unknown, path: string): void => {
+    if (typeof value === "number") {
+      if (!Number.isFinite(value)) throw new NonFiniteResultError(path);
+    } else if (typeof value === "string") {
+      if (NON_FINITE_TEXT.test(value)) throw new NonFiniteResultError(path);
+    } else if (Array.isArray(value)) {
+      value.forEach((item, i) => visit(item, `${path}[${i}]`));
+    } else if (typeof value === "object" && value !== null) {
+      for (const [key, item] of Object.entries(value)) visit(item, path ? `${path}.${key}` : key);
+    }
+  };
+  visit(result, "");
+  return result;
 }
 
 /** The sensitivity of §8 at any swing, each driver moved alone (the dossier asks for several). */

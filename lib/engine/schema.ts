@@ -2,6 +2,9 @@ import { z } from "zod";
 import {
   atLeast,
   bool,
+  bounded,
+  boundedInt,
+  holdingTorque,
   choice,
   inertia,
   id,
@@ -21,19 +24,19 @@ import {
  * `prefault({})` so that a missing object is parsed — and filled — like an empty one.
  */
 
-const curvePoint = obj({ rpm: atLeast(0), torqueNm: torque() });
+const curvePoint = obj({ rpm: bounded("speedRpm"), torqueNm: torque() });
 
 export const motorInputSchema = obj({
-  rotorTeeth: int(1).default(50),
-  holdingTorqueNm: torque({ positive: true }),
-  ratedCurrentA: positive(),
-  phaseResistanceOhm: positive(),
-  phaseInductanceMh: positive(),
-  thermalResistanceKPerW: positive().optional(),
-  ratedTempRiseK: positive().default(80), // common practice: R_th = rise / (2·I_R²·R20)
+  rotorTeeth: boundedInt("rotorTeeth").default(50),
+  holdingTorqueNm: holdingTorque(),
+  ratedCurrentA: bounded("ratedCurrentA"),
+  phaseResistanceOhm: bounded("phaseResistanceOhm"),
+  phaseInductanceMh: bounded("phaseInductanceMh"),
+  thermalResistanceKPerW: bounded("thermalResistanceKPerW").optional(),
+  ratedTempRiseK: bounded("ratedTempRiseK").default(80), // common practice: R_th = rise / (2·I_R²·R20)
   insulationClass: choice(["B", "F", "H"]).default("B"),
-  hysteresisWPerHz: atLeast(0).default(0),
-  eddyWPerHz2: atLeast(0).default(0),
+  hysteresisWPerHz: bounded("hysteresisWPerHz").default(0),
+  eddyWPerHz2: bounded("eddyWPerHz2").default(0),
   pullOutCurve: list(curvePoint)
     .min(1, "must hold at least one point")
     .superRefine((points, ctx) => {
@@ -56,20 +59,20 @@ export const kitInputSchema = obj({
   price: money(),
   sensing: choice(["encoder", "sensorless"]).default("encoder"),
   motor: motorInputSchema.optional(),
-  maxCurrentPeakA: positive().optional(),
-  busVoltageV: positive().optional(),
+  maxCurrentPeakA: bounded("maxCurrentPeakA").optional(),
+  busVoltageV: bounded("busVoltageV").optional(),
   efficiencyPct: positive().max(100, "must be at most 100").default(92),
-  standbyW: atLeast(0).default(3),
+  standbyW: bounded("standbyW").default(3),
   // docs/model.md: 0.5 W, 0 when sensorless; kitEncoderW() fills it since the default depends on sensing.
-  encoderW: atLeast(0).optional(),
+  encoderW: bounded("standbyW").optional(),
   minCurrentPct: pct().default(10),
-  sensorlessMinRpm: atLeast(0).default(60),
+  sensorlessMinRpm: bounded("speedRpm").default(60),
 });
 
 /** docs/model.md (Torque at speed): an open-loop mid-band dip, a model rather than a measured curve. */
 const resonanceSchema = obj({
-  fromRpm: atLeast(0),
-  toRpm: atLeast(0),
+  fromRpm: bounded("speedRpm"),
+  toRpm: bounded("speedRpm"),
   deratePct: pct(),
 }).superRefine((r, ctx) => {
   if (r.toRpm < r.fromRpm)
@@ -81,14 +84,14 @@ const resonanceSchema = obj({
 });
 
 const driveSchema = obj({
-  busVoltageV: positive(),
-  currentSettingA: atLeast(0),
+  busVoltageV: bounded("busVoltageV"),
+  currentSettingA: bounded("currentSettingA"),
   currentConvention: choice(["peak", "rms"]).default("peak"),
   stepMode: choice(["full", "half", "half-compensated", "micro"]).default("micro"),
-  microsteps: int(1).default(16),
+  microsteps: boundedInt("microsteps").default(16),
   idleCurrentPct: pct().default(50),
   efficiencyPct: positive().max(100, "must be at most 100").default(90),
-  standbyW: atLeast(0).default(2),
+  standbyW: bounded("standbyW").default(2),
   resonance: resonanceSchema.optional(),
 });
 
@@ -100,26 +103,26 @@ const efficiency = () => positive().max(100, "must be at most 100");
 /** docs/model.md (Motion from the mechanism): one axis's mechanism and move profile. */
 export const motionInputSchema = obj({
   mechanism: choice(MECHANISMS),
-  radiusMm: positive().optional(),
-  leadMm: positive().optional(),
+  radiusMm: bounded("radiusMm").optional(),
+  leadMm: bounded("leadMm").optional(),
   // absent = belt 95, rack 90, screw 90, rotary 100 (common practice)
   efficiencyPct: efficiency().optional(),
-  gearRatio: positive().default(1),
+  gearRatio: bounded("gearRatio").default(1),
   gearEfficiencyPct: efficiency().default(100),
-  massKg: atLeast(0).default(0),
+  massKg: bounded("massKg").default(0),
   loadInertiaKgM2: inertia().default(0),
   motorInertiaKgM2: inertia().default(0),
   inclineDeg: atLeast(0).max(90, "must be at most 90 (vertical)").default(0),
-  frictionCoeff: atLeast(0).default(0),
-  externalForceN: atLeast(0).default(0),
+  frictionCoeff: bounded("frictionCoeff").default(0),
+  externalForceN: bounded("externalForceN").default(0),
   externalTorqueNm: torque().default(0),
-  stroke: positive(),
-  moveTimeS: positive(),
+  stroke: bounded("stroke"),
+  moveTimeS: bounded("moveTimeS"),
   accelSharePct: positive().max(50, "must be at most 50").default(25),
-  dwellTimeS: atLeast(0).default(0),
+  dwellTimeS: bounded("dwellTimeS").default(0),
   returnMove: bool().default(true),
   energizedPct: pct().default(100),
-  maxInertiaRatio: positive().default(10), // common practice for open-loop steppers
+  maxInertiaRatio: bounded("maxInertiaRatio").default(10), // common practice for open-loop steppers
 });
 
 /** The radius or lead each mechanism needs; checks the types it relies on. */
@@ -141,28 +144,28 @@ function checkMotion(motion: unknown, ctx: z.RefinementCtx): void {
 }
 
 const dutySchema = obj({
-  hoursPerYear: atLeast(0).max(8784, "must be at most 8784 (the hours of a leap year)"),
+  hoursPerYear: bounded("hoursPerYear"),
   // Required unless motion supplies them (checkAxisDuty); ignored when motion is given.
   movePct: pct().optional(),
   holdPct: pct().optional(),
-  speedRpm: atLeast(0).optional(),
+  speedRpm: bounded("speedRpm").optional(),
   loadTorqueNm: torque().optional(),
   peakTorqueNm: torque().optional(),
   holdTorqueNm: torque().default(0),
-  ambientC: num().min(-273.15, "must be at least -273.15").default(40),
+  ambientC: bounded("ambientC").default(40),
   motion: motionInputSchema.superRefine(checkMotion, { when: () => true }).optional(),
 });
 
 /** docs/model.md (The business case): the cost of one step-loss event, built up from what it causes. */
 export const stepLossEventSchema = obj({
-  downtimeMinutes: atLeast(0).default(0),
-  scrapParts: atLeast(0).default(0),
+  downtimeMinutes: bounded("downtimeMinutes").default(0),
+  scrapParts: bounded("scrapParts").default(0),
   scrapCostPerPart: money().default("0"),
-  restartLaborHours: atLeast(0).default(0),
+  restartLaborHours: bounded("restartLaborHours").default(0),
 });
 
 const reliabilitySchema = obj({
-  stepLossEventsPerYear: atLeast(0).default(0),
+  stepLossEventsPerYear: bounded("stepLossEventsPerYear").default(0),
   // Absent = 0, or built from `event`; giving both is refused (checkReliability).
   costPerEvent: money().optional(),
   avoidedPct: pct().default(90),
@@ -180,7 +183,7 @@ const reliabilitySchema = obj({
 const retrofitSchema = obj({
   kit: kitInputSchema,
   discountPct: pct().default(0),
-  installHours: atLeast(0).default(0),
+  installHours: bounded("installHours").default(0),
   commissioningCost: money().default("0"),
   maintenanceSavingPerYear: money().default("0"),
 });
@@ -189,7 +192,7 @@ const axisObject = obj({
   id: id(),
   label: text(),
   machineId: id(),
-  quantity: int(1).default(1),
+  quantity: boundedInt("quantity").default(1),
   motor: motorInputSchema,
   drive: driveSchema,
   duty: dutySchema,
@@ -244,16 +247,16 @@ export const axisInputSchema = axisObject.superRefine(checkAxisDuty, reportEvery
 
 const financeSchema = obj({
   tariffPerKWh: money(),
-  tariffEscalationPct: num().gt(-100, "must be greater than -100").default(0),
-  discountRatePct: num().gt(-100, "must be greater than -100").default(8),
+  tariffEscalationPct: bounded("ratePct").default(0),
+  discountRatePct: bounded("ratePct").default(8),
   horizonYears: int(1, 30).default(5),
   laborRatePerHour: money().default("0"),
   downtimeCostPerHour: money().default("0"),
   projectOneTimeCost: money().default("0"),
   annualServiceCost: money().default("0"),
-  coolingCop: positive().nullable().default(null),
-  gridKgCo2PerKWh: atLeast(0).default(0),
-  inflationPct: num().gt(-100, "must be greater than -100").default(0),
+  coolingCop: bounded("coolingCop").nullable().default(null),
+  gridKgCo2PerKWh: bounded("gridKgCo2PerKWh").default(0),
+  inflationPct: bounded("ratePct").default(0),
   taxRatePct: num().min(0, "must be at least 0").lt(100, "must be less than 100").default(0),
   depreciationYears: int(1, 30).default(5),
 });
@@ -263,8 +266,8 @@ const requiredMargin = () => atLeast(0).lt(100, "must be less than 100");
 const machineSchema = obj({
   id: id(),
   name: text(),
-  downtimeHours: atLeast(0).default(0),
-  throughputGainPct: atLeast(0).default(0),
+  downtimeHours: bounded("downtimeHours").default(0),
+  throughputGainPct: bounded("throughputGainPct").default(0),
   marginPerOutputHour: money().default("0"),
 });
 
@@ -274,8 +277,8 @@ export const marginsSchema = obj({
 });
 
 const bandSchema = obj({
-  lowPct: num().default(25), // trade claim for closed-loop energy gains: 25–50 %
-  highPct: num().default(50),
+  lowPct: bounded("bandPct").default(25), // trade claim for closed-loop energy gains: 25–50 %
+  highPct: bounded("bandPct").default(50),
 }).superRefine((band, ctx) => {
   if (band.highPct < band.lowPct) {
     ctx.addIssue({
@@ -323,7 +326,7 @@ const caseObject = (axis: typeof axisInputSchema) =>
     sensitivity: obj({
       swingPct: atLeast(0).max(100, "must be at most 100").default(20),
     }).prefault({}),
-    thermal: obj({ lifeHalvingK: positive().default(10) }).prefault({}), // rule of thumb; IEC 60216
+    thermal: obj({ lifeHalvingK: bounded("lifeHalvingK").default(10) }).prefault({}), // rule of thumb; IEC 60216
     machines: list(machineSchema),
     axes: list(axis)
       .min(1, "must hold at least 1 axis")
@@ -332,6 +335,8 @@ const caseObject = (axis: typeof axisInputSchema) =>
 
 /** Ids unique, and every axis names a machine of the case; checks the types it relies on. */
 function checkCaseReferences(input: unknown, ctx: z.RefinementCtx): void {
+  // Runs even when the body is not an object (reportEveryProblem), e.g. a JSON `null`.
+  if (typeof input !== "object" || input === null) return;
   const fields = input as { machines?: unknown; axes?: unknown };
   const machineIds = checkUniqueIds(fields.machines, "machines", ctx, "machine");
   checkUniqueIds(fields.axes, "axes", ctx, "axis");

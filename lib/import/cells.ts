@@ -1,4 +1,5 @@
 import type { ImportField } from "./fields";
+import { boundMessages } from "@/lib/engine/schema-fields";
 import { toSi } from "./units";
 
 /** A cell's value in the field's SI unit, or what is wrong with it and how to fix it. */
@@ -80,6 +81,14 @@ function notANumberMessage(field: ImportField, text: string, unit: string, heade
 const show = (value: number) => String(Number(value.toPrecision(12)));
 
 function boundsMessage(field: ImportField, si: number, typed: number): string | undefined {
+  if (field.bound) {
+    // The engine's own bounds and wording, so a cell is refused exactly as the API refuses it.
+    const { min, minExclusive, max } = field.bound;
+    const messages = boundMessages(field.bound);
+    if (minExclusive ? !(si > min) : si < min) return `${messages.min} (received ${show(typed)})`;
+    if (si > max) return `${messages.max} (received ${show(typed)})`;
+    return undefined;
+  }
   if (field.min !== undefined) {
     if (field.minExclusive ? !(si > field.min) : si < field.min) {
       return `must be ${field.minExclusive ? "greater than" : "at least"} ${field.min} (received ${show(typed)})`;

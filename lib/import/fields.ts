@@ -1,6 +1,7 @@
 import type { Axis, StoredStepLossEvent } from "@/db/schema/installed-base";
 import type { ParsedMotion } from "@/lib/engine/schema";
 import { MECHANISMS } from "@/lib/engine/schema";
+import { FIELD_BOUNDS, type FieldBound } from "@/lib/engine/schema-fields";
 
 /** Unit conversion a column may carry; "none" columns take their one unit only (or none). */
 export type QuantityKind = "torque" | "inductance" | "speed" | "inertia" | "none";
@@ -53,6 +54,8 @@ export interface ImportField {
    */
   requiredUnlessMotion?: true;
   choices?: readonly string[];
+  /** The engine's bounds (FIELD_BOUNDS) in the field's SI unit; they replace min and max. */
+  bound?: FieldBound;
   /** Bounds in the field's SI unit; minExclusive makes min a "greater than". */
   min?: number;
   minExclusive?: boolean;
@@ -89,88 +92,82 @@ const SPECS = {
     help: "Name of the axis on its machine, such as X feed or Z lift.",
   },
   quantity: {
+    bound: FIELD_BOUNDS.quantity,
     label: "Quantity",
     quantity: "none",
     unit: null,
     type: "int",
     required: false,
     default: 1,
-    min: 1,
     synonyms: ["Qty"],
     help: "Number of identical axes this row stands for.",
   },
   rotorTeeth: {
+    bound: FIELD_BOUNDS.rotorTeeth,
     label: "Rotor teeth",
     quantity: "none",
     unit: null,
     type: "int",
     required: false,
     default: 50,
-    min: 1,
     help: "Rotor teeth of the hybrid stepper motor: 50 for a 1.8° step, 100 for a 0.9° step.",
   },
   holdingTorqueNm: {
+    bound: FIELD_BOUNDS.holdingTorqueNm,
     label: "Holding torque",
     quantity: "torque",
     unit: "N·m",
     type: "number",
     required: true,
-    min: 0,
-    minExclusive: true,
     help: "Datasheet holding torque of the motor: both phases on at rated current, at standstill.",
   },
   ratedCurrentA: {
+    bound: FIELD_BOUNDS.ratedCurrentA,
     label: "Rated current",
     quantity: "none",
     unit: "A",
     type: "number",
     required: true,
-    min: 0,
-    minExclusive: true,
     synonyms: ["Rated phase current"],
     help: "Datasheet rated current per phase.",
   },
   phaseResistanceOhm: {
+    bound: FIELD_BOUNDS.phaseResistanceOhm,
     label: "Phase resistance",
     quantity: "none",
     unit: "Ω",
     type: "number",
     required: true,
-    min: 0,
-    minExclusive: true,
     synonyms: ["Resistance per phase"],
     help: "Datasheet resistance of one phase winding at 20 °C.",
   },
   phaseInductanceMh: {
+    bound: FIELD_BOUNDS.phaseInductanceMh,
     label: "Phase inductance",
     quantity: "inductance",
     unit: "mH",
     type: "number",
     required: true,
-    min: 0,
-    minExclusive: true,
     synonyms: ["Inductance per phase"],
     help: "Datasheet inductance of one phase winding.",
   },
   thermalResistanceKPerW: {
+    bound: FIELD_BOUNDS.thermalResistanceKPerW,
     label: "Thermal resistance",
     quantity: "none",
     unit: "K/W",
     type: "number",
     required: false,
-    min: 0,
-    minExclusive: true,
     help: "Winding-to-ambient thermal resistance of the mounted motor; leave blank to derive it from the rated temperature rise.",
   },
   ratedTempRiseK: {
+    bound: FIELD_BOUNDS.ratedTempRiseK,
     label: "Rated temperature rise",
     quantity: "none",
     unit: "K",
     type: "number",
     required: false,
     default: 80,
-    min: 0,
-    minExclusive: true,
     help: "Winding temperature rise at rated current from the datasheet; 80 K when not given is common practice, not a published value.",
   },
   insulationClass: {
@@ -184,43 +181,42 @@ const SPECS = {
     help: "Thermal class of the winding insulation (IEC 60085): B 130 °C, F 155 °C, H 180 °C.",
   },
   hysteresisWPerHz: {
+    bound: FIELD_BOUNDS.hysteresisWPerHz,
     label: "Hysteresis loss coefficient",
     quantity: "none",
     unit: "W/Hz",
     type: "number",
     required: false,
     default: 0,
-    min: 0,
     help: "Iron-loss coefficient kh in P = kh·f + ke·f², f the electrical frequency; 0 when the datasheet does not give it.",
   },
   eddyWPerHz2: {
+    bound: FIELD_BOUNDS.eddyWPerHz2,
     label: "Eddy-current loss coefficient",
     quantity: "none",
     unit: "W/Hz²",
     type: "number",
     required: false,
     default: 0,
-    min: 0,
     help: "Iron-loss coefficient ke in P = kh·f + ke·f², f the electrical frequency; 0 when the datasheet does not give it.",
   },
   busVoltageV: {
+    bound: FIELD_BOUNDS.busVoltageV,
     label: "Bus voltage",
     quantity: "none",
     unit: "V",
     type: "number",
     required: true,
-    min: 0,
-    minExclusive: true,
     synonyms: ["DC bus voltage"],
     help: "DC supply voltage of the drive.",
   },
   currentSettingA: {
+    bound: FIELD_BOUNDS.currentSettingA,
     label: "Drive current setting",
     quantity: "none",
     unit: "A",
     type: "number",
     required: true,
-    min: 0,
     synonyms: ["Current setting"],
     help: "Phase current the drive is set to today.",
   },
@@ -245,13 +241,13 @@ const SPECS = {
     help: "How the drive steps the motor today: microstepping, full steps (two phases on), half steps, or half steps with compensated current.",
   },
   microsteps: {
+    bound: FIELD_BOUNDS.microsteps,
     label: "Microsteps",
     quantity: "none",
     unit: null,
     type: "int",
     required: false,
     default: 16,
-    min: 1,
     help: "Microsteps per full step set on the drive; it sets the resolution only.",
   },
   idleCurrentPct: {
@@ -278,24 +274,23 @@ const SPECS = {
     help: "Electrical efficiency of the drive's power stage.",
   },
   driveStandbyW: {
+    bound: FIELD_BOUNDS.standbyW,
     label: "Drive standby power",
     quantity: "none",
     unit: "W",
     type: "number",
     required: false,
     default: 2,
-    min: 0,
     help: "Power the drive draws for its own electronics whenever it is on.",
   },
   hoursPerYear: {
+    bound: FIELD_BOUNDS.hoursPerYear,
     label: "Hours per year",
     quantity: "none",
     unit: "h",
     type: "number",
     required: false,
     siteDefault: true,
-    min: 0,
-    max: 8784,
     synonyms: ["Operating hours per year"],
     help: "Hours a year the machine runs; leave blank to take the site's hours per year.",
   },
@@ -322,65 +317,64 @@ const SPECS = {
     help: "Share of the running hours the axis holds its position energised; for the rest it is off.",
   },
   speedRpm: {
+    bound: FIELD_BOUNDS.speedRpm,
     label: "Speed",
     quantity: "speed",
     unit: "rpm",
     type: "number",
     required: false,
     requiredUnlessMotion: true,
-    min: 0,
     synonyms: ["Motor speed"],
     help: "Motor shaft speed while the axis moves.",
   },
   loadTorqueNm: {
+    bound: FIELD_BOUNDS.dutyTorqueNm,
     label: "Load torque",
     quantity: "torque",
     unit: "N·m",
     type: "number",
     required: false,
     requiredUnlessMotion: true,
-    min: 0,
     help: "RMS load torque at the motor shaft while moving: friction, process force and the acceleration share.",
   },
   peakTorqueNm: {
+    bound: FIELD_BOUNDS.dutyTorqueNm,
     label: "Peak torque",
     quantity: "torque",
     unit: "N·m",
     type: "number",
     required: false,
     requiredUnlessMotion: true,
-    min: 0,
     help: "Highest torque at the motor shaft while moving, usually when accelerating; at least the load torque.",
   },
   holdTorqueNm: {
+    bound: FIELD_BOUNDS.dutyTorqueNm,
     label: "Standstill load torque",
     quantity: "torque",
     unit: "N·m",
     type: "number",
     required: false,
     default: 0,
-    min: 0,
     help: "Load the motor must hold at standstill, such as gravity on a vertical axis; 0 on a horizontal axis.",
   },
   ambientC: {
+    bound: FIELD_BOUNDS.ambientC,
     label: "Ambient temperature",
     quantity: "none",
     unit: "°C",
     type: "number",
     required: false,
     siteDefault: true,
-    min: -40,
-    max: 80,
     help: "Air temperature around the motor; leave blank to take the site's ambient temperature.",
   },
   stepLossEventsPerYear: {
+    bound: FIELD_BOUNDS.stepLossEventsPerYear,
     label: "Step-loss events per year",
     quantity: "none",
     unit: null,
     type: "number",
     required: false,
     default: 0,
-    min: 0,
     help: "Times a year this axis loses steps and causes a crash, scrap or a restart.",
   },
   costPerEvent: {
@@ -416,6 +410,7 @@ const SPECS = {
     help: "What the motor drives: belt, rack, screw or rotary. With a mechanism the speed, torques and move and hold shares are derived from the motion columns and may stay blank.",
   },
   "motion.radiusMm": {
+    bound: FIELD_BOUNDS.radiusMm,
     label: "Pulley or pinion radius",
     quantity: "none",
     unit: "mm",
@@ -424,6 +419,7 @@ const SPECS = {
     help: "Pitch radius of the belt pulley or the rack pinion; required for a belt or a rack.",
   },
   "motion.leadMm": {
+    bound: FIELD_BOUNDS.leadMm,
     label: "Screw lead",
     quantity: "none",
     unit: "mm",
@@ -440,6 +436,7 @@ const SPECS = {
     help: "Efficiency of the belt, rack, screw or rotary stage; blank takes belt 95, rack 90, screw 90, rotary 100 (common practice, not a published value).",
   },
   "motion.gearRatio": {
+    bound: FIELD_BOUNDS.gearRatio,
     label: "Gear ratio",
     quantity: "none",
     unit: null,
@@ -456,6 +453,7 @@ const SPECS = {
     help: "Efficiency of the gearbox; blank is 100 (no gearbox).",
   },
   "motion.massKg": {
+    bound: FIELD_BOUNDS.massKg,
     label: "Moving mass",
     quantity: "none",
     unit: "kg",
@@ -464,6 +462,7 @@ const SPECS = {
     help: "Mass the belt, rack or screw moves, carriage and payload together; blank is 0.",
   },
   "motion.loadInertiaKgM2": {
+    bound: FIELD_BOUNDS.inertiaKgM2,
     label: "Load inertia",
     quantity: "inertia",
     unit: "kg·m²",
@@ -472,6 +471,7 @@ const SPECS = {
     help: "Inertia at the mechanism's shaft: pulleys, screw, rotary table; blank is 0.",
   },
   "motion.motorInertiaKgM2": {
+    bound: FIELD_BOUNDS.inertiaKgM2,
     label: "Rotor inertia",
     quantity: "inertia",
     unit: "kg·m²",
@@ -488,6 +488,7 @@ const SPECS = {
     help: "Angle of the travel above horizontal, 0 to 90: 90 is a vertical axis whose forward move goes up. Blank is 0.",
   },
   "motion.frictionCoeff": {
+    bound: FIELD_BOUNDS.frictionCoeff,
     label: "Friction coefficient",
     quantity: "none",
     unit: null,
@@ -496,6 +497,7 @@ const SPECS = {
     help: "Coulomb friction coefficient of the guide on its normal force; blank is 0.",
   },
   "motion.externalForceN": {
+    bound: FIELD_BOUNDS.externalForceN,
     label: "Process force",
     quantity: "none",
     unit: "N",
@@ -504,6 +506,7 @@ const SPECS = {
     help: "Force of the process against the motion of a belt, rack or screw; blank is 0.",
   },
   "motion.externalTorqueNm": {
+    bound: FIELD_BOUNDS.dutyTorqueNm,
     label: "Process torque",
     quantity: "torque",
     unit: "N·m",
@@ -512,6 +515,7 @@ const SPECS = {
     help: "Torque of the process against the motion at a rotary mechanism's shaft; blank is 0.",
   },
   "motion.stroke": {
+    bound: FIELD_BOUNDS.stroke,
     label: "Stroke",
     quantity: "none",
     unit: null,
@@ -520,6 +524,7 @@ const SPECS = {
     help: "Length of one move: millimetres for a belt, rack or screw, degrees for a rotary mechanism; required with a mechanism.",
   },
   "motion.moveTimeS": {
+    bound: FIELD_BOUNDS.moveTimeS,
     label: "Move duration",
     quantity: "none",
     unit: "s",
@@ -536,6 +541,7 @@ const SPECS = {
     help: "Share of the move spent accelerating (the same share decelerating), at most 50; blank is 25 (common practice).",
   },
   "motion.dwellTimeS": {
+    bound: FIELD_BOUNDS.dwellTimeS,
     label: "Dwell after each move",
     quantity: "none",
     unit: "s",
@@ -560,6 +566,7 @@ const SPECS = {
     help: "Share of the running hours in which the axis cycles; blank is 100.",
   },
   "motion.maxInertiaRatio": {
+    bound: FIELD_BOUNDS.maxInertiaRatio,
     label: "Highest inertia ratio",
     quantity: "none",
     unit: null,
@@ -570,6 +577,7 @@ const SPECS = {
   // docs/model.md (The business case): the cost of one step-loss event built up from what it causes, priced with the
   // case's downtime cost and labour rate. Any of these columns filled builds it.
   "event.downtimeMinutes": {
+    bound: FIELD_BOUNDS.downtimeMinutes,
     label: "Downtime per step-loss event",
     quantity: "none",
     unit: "min",
@@ -578,6 +586,7 @@ const SPECS = {
     help: "Minutes the machine stands after one step-loss event; priced at the case's downtime cost per hour.",
   },
   "event.scrapParts": {
+    bound: FIELD_BOUNDS.scrapParts,
     label: "Scrap parts per step-loss event",
     quantity: "none",
     unit: null,
@@ -594,6 +603,7 @@ const SPECS = {
     help: "Cost of one scrapped part in the site's currency.",
   },
   "event.restartLaborHours": {
+    bound: FIELD_BOUNDS.restartLaborHours,
     label: "Restart labour per step-loss event",
     quantity: "none",
     unit: "h",

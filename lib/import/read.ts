@@ -1,3 +1,4 @@
+import { Readable } from "node:stream";
 import ExcelJS from "exceljs";
 import { parseCsv } from "./csv";
 import { ImportFileError } from "./errors";
@@ -121,45 +122,75 @@ async function readXlsx(bytes: Uint8Array, fileName: string): Promise<SheetData[
       "a zip archive without a workbook inside (a document or another archive)",
     );
   }
-  const workbook = new ExcelJS.Workbook();
+  // Streamed, not loaded: exceljs's WorkbookReader hands over one row at a time, so a sheet over
+  // the row cap or the text cap is refused at the row that crosses it, before the rest of the
+  // file is unpacked or parsed (a full load of a 200 MB workbook took seconds and ~750 MB).
+  // exceljs reads cell values and formulas only: it runs no macros (vbaProject.bin is not
+  // parsed) and fetches nothing an external link points to.
+  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from([Buffer.from(bytes)]), {
+    sharedStrings: "cache",
+    styles: "cache",
+    hyperlinks: "ignore",
+    worksheets: "emit",
+    entries: "ignore",
+  });
+  const sheets: SheetData[] = [];
   try {
-    // exceljs reads cell values and formulas only: it runs no macros (vbaProject.bin is not
-    // parsed) and fetches nothing an external link points to.
-    // exceljs types its input as an ArrayBuffer; a copy (at most the upload limit) is one.
-    await workbook.xlsx.load(new Uint8Array(bytes).buffer);
-  } catch {
+    for await (const worksheet of reader)
+      sheets.push(await readWorksheetStream(worksheet, fileName));
+  } catch (error) {
+    if (error instanceof ImportFileError) throw error;
     throw new ImportFileError(
       422,
       `"${fileName}" looks like an Excel workbook but cannot be read; open it in Excel, save it again as .xlsx and upload that`,
     );
   }
-  return workbook.worksheets.map((worksheet) => {
-    const sheet = readWorksheet(worksheet);
-    checkRowCount(sheet, fileName, "xlsx");
-    return sheet;
-  });
+  return sheets;
 }
+
+/** Text a sheet's cells may hold in all: 20,000 rows of every import column is some 10 MB. */
+export const MAX_SHEET_TEXT_CHARS = 50_000_000;
 
 const NO_CELLS: string[] = [];
 
-function readWorksheet(worksheet: ExcelJS.Worksheet): SheetData {
+async function readWorksheetStream(
+  worksheet: ExcelJS.stream.xlsx.WorksheetReader,
+  fileName: string,
+): Promise<SheetData> {
+  const name = (worksheet as unknown as { name: string }).name;
   const headers: string[] = [];
   const rows: string[][] = [];
-  worksheet.eachRow({ includeEmpty: false }, (row, rowNumber) => {
+  let dataRows = 0;
+  let chars = 0;
+  for await (const row of worksheet as unknown as AsyncIterable<ExcelJS.Row>) {
     const cells: string[] = [];
     row.eachCell({ includeEmpty: false }, (cell, column) => {
-      cells[column - 1] = cellText(cell);
+      const text = cellText(cell);
+      chars += text.length;
+      cells[column - 1] = text;
     });
-    for (let c = 0; c < cells.length; c++) if (cells[c] === undefined) cells[c] = "";
-    if (rowNumber === 1) {
-      headers.push(...cells.map((h) => h.trim()));
-      return;
+    if (chars > MAX_SHEET_TEXT_CHARS) {
+      throw new ImportFileError(
+        413,
+        `Sheet "${name}" of "${fileName}" holds more than ${(MAX_SHEET_TEXT_CHARS / 1_000_000).toLocaleString("en-US")} million characters of text; the limit is that — remove long texts or split the file`,
+      );
     }
-    while (rows.length < rowNumber - 2) rows.push(NO_CELLS);
+    for (let c = 0; c < cells.length; c++) if (cells[c] === undefined) cells[c] = "";
+    if (row.number === 1) {
+      headers.push(...cells.map((h) => h.trim()));
+      continue;
+    }
+    if (!isBlank(cells) && ++dataRows > MAX_DATA_ROWS) {
+      throw new ImportFileError(
+        422,
+        `Sheet "${name}" of "${fileName}" has more than ${MAX_DATA_ROWS.toLocaleString("en-US")} rows; the limit is ${MAX_DATA_ROWS.toLocaleString("en-US")} — split the file`,
+      );
+    }
+    while (rows.length < row.number - 2) rows.push(NO_CELLS);
     rows.push(cells);
-  });
+  }
   while (rows.length > 0 && isBlank(rows[rows.length - 1])) rows.pop();
-  return { name: worksheet.name, headers, rows };
+  return { name, headers, rows };
 }
 
 /**
@@ -173,9 +204,11 @@ export function cellText(cell: ExcelJS.Cell): string {
   if (typeof value === "number") return String(value);
   if (typeof value === "boolean") return value ? "TRUE" : "FALSE";
   if (value instanceof Date) return dateText(value);
+  // exceljs's streaming reader gives the other cells of a shared formula an empty formula (it
+  // drops the shared index): they read as "=", still a formula, never the cached result.
   if ("formula" in value || "sharedFormula" in value) {
-    const formula = cell.formula ?? ("formula" in value ? value.formula : value.sharedFormula);
-    return `=${formula}`;
+    const formula = "formula" in value ? value.formula : value.sharedFormula;
+    return `=${formula ?? ""}`;
   }
   if ("richText" in value) return value.richText.map((part) => part.text).join("");
   if ("hyperlink" in value) {

@@ -1,6 +1,7 @@
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import { caseInputSchema } from "../engine/schema";
-import { atLeast, money, pct } from "../engine/schema-fields";
+import { bounded, money, pct } from "../engine/schema-fields";
 
 // The engine's own sub-schemas, taken from its CaseInput schema so that a case's stored
 // assumptions are validated — and defaulted — exactly as the engine will validate them.
@@ -25,10 +26,10 @@ export const createCaseSchema = z.object({
     .trim()
     .min(1, "Enter a name for the case")
     .max(120, "Keep the name under 120 characters"),
-  siteId: z.coerce.number().int().positive("Choose a site"),
+  siteId: idSchema("Choose a site"),
 });
 
-const recordId = z.coerce.number().int().positive();
+const recordId = idSchema();
 
 export const caseAxesSchema = z.object({
   // Repeats collapse: picking an axis twice is picking it once.
@@ -41,7 +42,7 @@ export const caseAxesSchema = z.object({
 export const axisRetrofitSchema = z.object({
   kitId: recordId,
   discountPct: pct().default(0),
-  installHours: atLeast(0).default(0),
+  installHours: bounded("installHours").default(0),
   commissioningCost: money().default("0"),
   maintenanceSavingPerYear: money().default("0"),
 });

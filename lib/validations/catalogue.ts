@@ -1,5 +1,15 @@
 import { z } from "zod";
-import { atLeast, choice, int, money, pct, positive, torque } from "@/lib/engine/schema-fields";
+import { idSchema } from "@/lib/api/params";
+import {
+  bounded,
+  boundedInt,
+  choice,
+  holdingTorque,
+  int,
+  money,
+  pct,
+  positive,
+} from "@/lib/engine/schema-fields";
 
 const optional = <T extends z.ZodType>(schema: T) =>
   z.preprocess((v) => (v === "" || v === undefined ? null : v), schema.nullable());
@@ -19,16 +29,16 @@ export const motorInputSchema = z.object({
   code,
   name,
   frameSize: int(8, 60),
-  rotorTeeth: int(1).default(50),
-  holdingTorqueNm: torque({ positive: true }),
-  ratedCurrentA: positive(),
-  phaseResistanceOhm: positive(),
-  phaseInductanceMh: positive(), // docs/model.md (Torque at speed): the engine needs L > 0 (validation)
-  thermalResistanceKPerW: optional(positive()),
-  ratedTempRiseK: positive().default(80),
+  rotorTeeth: boundedInt("rotorTeeth").default(50),
+  holdingTorqueNm: holdingTorque(),
+  ratedCurrentA: bounded("ratedCurrentA"),
+  phaseResistanceOhm: bounded("phaseResistanceOhm"),
+  phaseInductanceMh: bounded("phaseInductanceMh"), // docs/model.md (Torque at speed): the engine needs L > 0
+  thermalResistanceKPerW: optional(bounded("thermalResistanceKPerW")),
+  ratedTempRiseK: bounded("ratedTempRiseK").default(80),
   insulationClass: choice(["B", "F", "H"]).default("B"),
-  hysteresisWPerHz: atLeast(0).default(0),
-  eddyWPerHz2: atLeast(0).default(0),
+  hysteresisWPerHz: bounded("hysteresisWPerHz").default(0),
+  eddyWPerHz2: bounded("eddyWPerHz2").default(0),
 });
 
 export const kitInputSchema = z.object({
@@ -41,14 +51,14 @@ export const kitInputSchema = z.object({
     .toUpperCase()
     .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
   sensing: choice(["encoder", "sensorless"]).default("encoder"),
-  motorId: optional(z.coerce.number().int().positive()),
-  maxCurrentPeakA: optional(positive()),
-  busVoltageV: optional(positive()),
+  motorId: optional(idSchema()),
+  maxCurrentPeakA: optional(bounded("maxCurrentPeakA")),
+  busVoltageV: optional(bounded("busVoltageV")),
   efficiencyPct: positive().max(100, "must be at most 100").default(92),
-  standbyW: atLeast(0).default(3),
-  encoderW: optional(atLeast(0)),
+  standbyW: bounded("standbyW").default(3),
+  encoderW: optional(bounded("standbyW")),
   minCurrentPct: pct().default(10),
-  sensorlessMinRpm: atLeast(0).default(60),
+  sensorlessMinRpm: bounded("speedRpm").default(60),
 });
 
 export type MotorCatalogueInput = z.infer<typeof motorInputSchema>;

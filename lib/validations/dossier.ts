@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import { currencyMinorUnits } from "../engine/money";
 
 /**
@@ -85,5 +86,5 @@ export const dossierPriceSchema = z
 export type DossierPrice = z.output<typeof dossierPriceSchema>;
 
 export const checkoutRequestSchema = z.object({
-  proposalId: z.coerce.number().int().positive("Name the proposal by its id"),
+  proposalId: idSchema("Name the proposal by its id"),
 });

@@ -1,10 +1,11 @@
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import {
-  atLeast,
+  bounded,
+  boundedInt,
   choice,
-  int,
+  holdingTorque,
   money,
-  num,
   pct,
   positive,
   torque,
@@ -26,9 +27,9 @@ export const siteInputSchema = z.object({
     .toUpperCase()
     .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
   tariffPerKWh: money(),
-  gridKgCo2PerKWh: atLeast(0).default(0),
-  ambientC: num().min(-40, "must be at least -40 °C").max(80, "must be at most 80 °C").default(40),
-  hoursPerYear: atLeast(0).max(8784, "must be at most 8784, the hours of a leap year"),
+  gridKgCo2PerKWh: bounded("gridKgCo2PerKWh").default(0),
+  ambientC: bounded("ambientC").default(40),
+  hoursPerYear: bounded("hoursPerYear"),
 });
 
 export const machineInputSchema = z.object({
@@ -39,45 +40,45 @@ export const machineInputSchema = z.object({
     .max(120)
     .optional()
     .transform((v) => v || null),
-  downtimeHours: atLeast(0).default(0),
+  downtimeHours: bounded("downtimeHours").default(0),
   throughputGainPct: pct().default(0),
   marginPerOutputHour: money().default("0"),
 });
 
 export const axisFieldsSchema = z.object({
   label: name("axis label"),
-  quantity: int(1).default(1),
-  // motor (datasheet values)
-  rotorTeeth: int(1).default(50),
-  holdingTorqueNm: torque({ positive: true }),
-  ratedCurrentA: positive(),
-  phaseResistanceOhm: positive(),
-  phaseInductanceMh: positive(), // docs/model.md (Torque at speed): the engine needs L > 0 (validation)
-  thermalResistanceKPerW: optionalNumber(positive()),
-  ratedTempRiseK: positive().default(80),
+  quantity: boundedInt("quantity").default(1),
+  // motor (datasheet values); bounds are the engine's (FIELD_BOUNDS), never restated here
+  rotorTeeth: boundedInt("rotorTeeth").default(50),
+  holdingTorqueNm: holdingTorque(),
+  ratedCurrentA: bounded("ratedCurrentA"),
+  phaseResistanceOhm: bounded("phaseResistanceOhm"),
+  phaseInductanceMh: bounded("phaseInductanceMh"), // docs/model.md (Torque at speed): the engine needs L > 0
+  thermalResistanceKPerW: optionalNumber(bounded("thermalResistanceKPerW")),
+  ratedTempRiseK: bounded("ratedTempRiseK").default(80),
   insulationClass: choice(["B", "F", "H"]).default("B"),
-  hysteresisWPerHz: atLeast(0).default(0),
-  eddyWPerHz2: atLeast(0).default(0),
+  hysteresisWPerHz: bounded("hysteresisWPerHz").default(0),
+  eddyWPerHz2: bounded("eddyWPerHz2").default(0),
   // drive (as set today)
-  busVoltageV: positive(),
-  currentSettingA: atLeast(0),
+  busVoltageV: bounded("busVoltageV"),
+  currentSettingA: bounded("currentSettingA"),
   currentConvention: choice(["peak", "rms"]).default("peak"),
   stepMode: choice(["full", "half", "half-compensated", "micro"]).default("micro"),
-  microsteps: int(1).default(16),
+  microsteps: boundedInt("microsteps").default(16),
   idleCurrentPct: pct().default(50),
   driveEfficiencyPct: positive().max(100, "must be at most 100").default(90),
-  driveStandbyW: atLeast(0).default(2),
+  driveStandbyW: bounded("standbyW").default(2),
   // duty
-  hoursPerYear: atLeast(0).max(8784, "must be at most 8784"),
+  hoursPerYear: bounded("hoursPerYear"),
   movePct: pct(),
   holdPct: pct(),
-  speedRpm: atLeast(0),
+  speedRpm: bounded("speedRpm"),
   loadTorqueNm: torque(),
   peakTorqueNm: torque(),
   holdTorqueNm: torque().default(0),
-  ambientC: num().default(40),
+  ambientC: bounded("ambientC").default(40),
   // reliability
-  stepLossEventsPerYear: atLeast(0).default(0),
+  stepLossEventsPerYear: bounded("stepLossEventsPerYear").default(0),
   costPerEvent: money().default("0"),
   avoidedPct: pct().default(90),
 });
@@ -103,7 +104,7 @@ export function checkAxisConsistency(
 }
 
 export const axisInputSchema = axisFieldsSchema
-  .extend({ machineId: z.coerce.number().int().positive("Choose a machine") })
+  .extend({ machineId: idSchema("Choose a machine") })
   .superRefine(checkAxisConsistency);
 
 // The engine's own schemas for the optional objects of docs/model.md, taken from its axis schema
@@ -128,10 +129,10 @@ const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peak
  */
 export const axisApiSchema = axisFieldsSchema
   .extend({
-    machineId: int(1),
+    machineId: idSchema(),
     movePct: pct().optional(),
     holdPct: pct().optional(),
-    speedRpm: atLeast(0).optional(),
+    speedRpm: bounded("speedRpm").optional(),
     loadTorqueNm: torque().optional(),
     peakTorqueNm: torque().optional(),
     // Absent = "0", or built from `event`; both at once is refused, as the engine does.

@@ -1,7 +1,8 @@
 import { displayName } from "./display-name";
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import { QUOTE_STAGES } from "@/db/schema/quotes";
-import { int, money, num } from "@/lib/engine/schema-fields";
+import { bounded, int, money } from "@/lib/engine/schema-fields";
 
 const stageField = z.enum(QUOTE_STAGES, {
   error: `Choose one of the stages: ${QUOTE_STAGES.join(", ")}`,
@@ -58,14 +59,8 @@ export const commentSchema = z.object({
 export const whatIfSchema = z
   .object({
     tariffPerKWh: money().optional(),
-    tariffEscalationPct: num()
-      .gt(-100, "must be greater than -100")
-      .max(100, "must be at most 100")
-      .optional(),
-    discountRatePct: num()
-      .gt(-100, "must be greater than -100")
-      .max(100, "must be at most 100")
-      .optional(),
+    tariffEscalationPct: bounded("ratePct").optional(),
+    discountRatePct: bounded("ratePct").optional(),
     horizonYears: int(1, 30).optional(),
   })
   .strict();
@@ -78,7 +73,7 @@ const dateOnly = z
 export const quoteUpdateSchema = z
   .object({
     stage: stageField.optional(),
-    ownerId: z.coerce.number().int().positive("Choose an owner").optional(),
+    ownerId: idSchema("Choose an owner").optional(),
     expectedCloseOn: dateOnly.optional(),
   })
   .strict()

@@ -1,5 +1,6 @@
 import { displayName } from "./display-name";
 import { z } from "zod";
+import { idSchema } from "@/lib/api/params";
 import { ROLES } from "@/db/schema/users";
 
 const roleField = z.enum(ROLES, { error: "Choose one of: engineer, manager, reviewer, admin" });
@@ -38,15 +39,19 @@ export const createUserSchema = z
 
 export const changeRoleSchema = z
   .object({
-    userId: z.coerce.number().int().positive(),
+    userId: idSchema(),
     role: roleField,
     accountId: accountField,
   })
   .superRefine(requireAccountForReviewer);
 
 export const setActiveSchema = z.object({
-  userId: z.coerce.number().int().positive(),
-  active: z.preprocess((v) => v === true || v === "true", z.boolean()),
+  userId: idSchema(),
+  // Only a yes or a no: anything else used to read as "deactivate", a write nobody asked for.
+  active: z.preprocess(
+    (v) => (v === "true" ? true : v === "false" ? false : v),
+    z.boolean({ error: "must be true or false" }),
+  ),
 });
 
 export const USER_SORTS = ["name", "email", "role", "createdAt"] as const;

@@ -5,6 +5,7 @@ import { createAxis, updateAxis } from "@/db/queries/axes";
 import { createMachine, updateMachine } from "@/db/queries/machines";
 import { createSite, updateSite } from "@/db/queries/sites";
 import { runAction } from "@/lib/actions/run";
+import { requireId } from "@/lib/api/params";
 import type { Role } from "@/lib/auth/roles";
 import {
   axisInputSchema,
@@ -19,7 +20,7 @@ export async function createSiteAction(accountId: number, values: unknown) {
     EDITORS,
     siteInputSchema,
     values,
-    (caller, data) => createSite(caller, accountId, data).id,
+    (caller, data) => createSite(caller, requireId(accountId), data).id,
   );
   if (result.ok) revalidatePath(`/accounts/${accountId}`);
   return result;
@@ -27,7 +28,7 @@ export async function createSiteAction(accountId: number, values: unknown) {
 
 export async function updateSiteAction(siteId: number, values: unknown) {
   const result = await runAction(EDITORS, siteInputSchema, values, (caller, data) =>
-    updateSite(caller, siteId, data),
+    updateSite(caller, requireId(siteId), data),
   );
   if (result.ok) revalidatePath(`/sites/${siteId}`);
   return result;
@@ -38,7 +39,7 @@ export async function createMachineAction(siteId: number, values: unknown) {
     EDITORS,
     machineInputSchema,
     values,
-    (caller, data) => createMachine(caller, siteId, data).id,
+    (caller, data) => createMachine(caller, requireId(siteId), data).id,
   );
   if (result.ok) revalidatePath(`/sites/${siteId}`);
   return result;
@@ -46,7 +47,7 @@ export async function createMachineAction(siteId: number, values: unknown) {
 
 export async function updateMachineAction(machineId: number, values: unknown) {
   const result = await runAction(EDITORS, machineInputSchema, values, (caller, data) =>
-    updateMachine(caller, machineId, data),
+    updateMachine(caller, requireId(machineId), data),
   );
   if (result.ok) revalidatePath("/sites", "layout");
   return result;
@@ -55,8 +56,9 @@ export async function updateMachineAction(machineId: number, values: unknown) {
 export async function saveAxisAction(axisId: number | null, values: unknown) {
   const result = await runAction(EDITORS, axisInputSchema, values, (caller, data) => {
     if (axisId === null) return createAxis(caller, data).id;
-    updateAxis(caller, axisId, data);
-    return axisId;
+    const id = requireId(axisId);
+    updateAxis(caller, id, data);
+    return id;
   });
   if (result.ok) revalidatePath("/sites", "layout");
   return result;

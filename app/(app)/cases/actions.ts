@@ -10,6 +10,7 @@ import {
   updateAssumptions,
 } from "@/db/queries/cases";
 import { runAction } from "@/lib/actions/run";
+import { requireId } from "@/lib/api/params";
 import type { Role } from "@/lib/auth/roles";
 import {
   axisRetrofitSchema,
@@ -37,7 +38,7 @@ export async function createCaseAction(values: unknown) {
 
 export async function updateAssumptionsAction(caseId: number, values: unknown) {
   const result = await runAction(EDITORS, caseAssumptionsSchema, values, (caller, data) =>
-    updateAssumptions(caller, caseId, data),
+    updateAssumptions(caller, requireId(caseId), data),
   );
   if (result.ok) refresh(caseId);
   return result;
@@ -45,7 +46,7 @@ export async function updateAssumptionsAction(caseId: number, values: unknown) {
 
 export async function setCaseAxesAction(caseId: number, values: unknown) {
   const result = await runAction(EDITORS, caseAxesSchema, values, (caller, data) =>
-    setCaseAxes(caller, caseId, data.axisIds),
+    setCaseAxes(caller, requireId(caseId), data.axisIds),
   );
   if (result.ok) refresh(caseId);
   return result;
@@ -53,7 +54,7 @@ export async function setCaseAxesAction(caseId: number, values: unknown) {
 
 export async function setAxisRetrofitAction(caseId: number, axisId: number, values: unknown) {
   const result = await runAction(EDITORS, axisRetrofitSchema, values, (caller, data) =>
-    setAxisRetrofit(caller, caseId, axisId, data),
+    setAxisRetrofit(caller, requireId(caseId), requireId(axisId), data),
   );
   if (result.ok) refresh(caseId);
   return result;

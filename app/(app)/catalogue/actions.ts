@@ -5,18 +5,15 @@ import { z } from "zod";
 import { saveKit, saveMotor, setCatalogueActive } from "@/db/queries/catalogue";
 import { failed, invalid, type ActionResult } from "@/lib/actions/result";
 import { requireRole } from "@/lib/auth";
-import { ConflictError, NotFoundError } from "@/lib/errors";
+import { idSchema, requireId } from "@/lib/api/params";
+import { ConflictError } from "@/lib/errors";
 import { kitInputSchema, motorInputSchema } from "@/lib/validations/catalogue";
 
 // An id from the page: absent for a new row; anything else that is not a positive whole number
 // cannot name a row, so it reads as "no such row" rather than as a field error.
-const rowId = z.coerce.number().int().positive();
-
-function parseId(id: unknown, what: string): number | undefined {
+function parseRowId(id: unknown, what: string): number | undefined {
   if (id === undefined || id === null) return undefined;
-  const parsed = rowId.safeParse(id);
-  if (!parsed.success) throw new NotFoundError(`No such ${what}`);
-  return parsed.data;
+  return requireId(id, `No such ${what}`);
 }
 
 // The only conflict a save can meet is a code already in use, so it belongs beside the code field.
@@ -33,7 +30,7 @@ function failedSave(error: unknown): ActionResult<never> {
 
 const setActiveSchema = z.object({
   kind: z.enum(["kit", "motor"]),
-  id: rowId,
+  id: idSchema(),
   active: z.boolean(),
 });
 
@@ -43,7 +40,7 @@ export async function saveKitAction(
 ): Promise<ActionResult<{ id: number }>> {
   try {
     const caller = await requireRole("admin");
-    const kitId = parseId(id, "kit");
+    const kitId = parseRowId(id, "kit");
     const parsed = kitInputSchema.safeParse(values);
     if (!parsed.success) return invalid(parsed.error);
     const row = saveKit(caller, parsed.data, kitId);
@@ -60,7 +57,7 @@ export async function saveMotorAction(
 ): Promise<ActionResult<{ id: number }>> {
   try {
     const caller = await requireRole("admin");
-    const motorId = parseId(id, "motor");
+    const motorId = parseRowId(id, "motor");
     const parsed = motorInputSchema.safeParse(values);
     if (!parsed.success) return invalid(parsed.error);
     const row = saveMotor(caller, parsed.data, motorId);

@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { saveDossierSettings, setDossierPrice } from "@/db/queries/dossiers";
 import { runAction } from "@/lib/actions/run";
+import { requireId } from "@/lib/api/params";
 import { dossierPriceSchema, uncertaintySettingsSchema } from "@/lib/validations/dossier";
 
 export async function saveDossierSettingsAction(proposalId: number, values: unknown) {
@@ -10,7 +11,7 @@ export async function saveDossierSettingsAction(proposalId: number, values: unkn
     ["engineer", "manager", "admin"],
     uncertaintySettingsSchema,
     values,
-    (caller, data) => saveDossierSettings(caller, proposalId, data),
+    (caller, data) => saveDossierSettings(caller, requireId(proposalId), data),
   );
   if (result.ok) revalidatePath(`/dossiers/${proposalId}`);
   return result;

@@ -4,6 +4,7 @@ import { revalidatePath } from "next/cache";
 import { addComment } from "@/db/queries/proposal-review";
 import { approveDiscount, sendProposal, updateQuote } from "@/db/queries/quotes";
 import { runAction } from "@/lib/actions/run";
+import { requireId } from "@/lib/api/params";
 import type { Role } from "@/lib/auth/roles";
 import { caseIdSchema } from "@/lib/validations/case";
 import { commentSchema, quoteUpdateSchema, sendProposalSchema } from "@/lib/validations/pipeline";
@@ -19,7 +20,7 @@ function refresh(proposalId: number) {
 
 export async function sendProposalAction(proposalId: number, values: unknown) {
   const result = await runAction(VENDOR, sendProposalSchema, values, (caller, data) =>
-    sendProposal(caller, proposalId, data),
+    sendProposal(caller, requireId(proposalId), data),
   );
   if (result.ok) refresh(proposalId);
   return result;
@@ -35,7 +36,7 @@ export async function approveDiscountAction(proposalId: number) {
 
 export async function updateQuoteAction(proposalId: number, values: unknown) {
   const result = await runAction(["manager"], quoteUpdateSchema, values, (caller, data) =>
-    updateQuote(caller, proposalId, data),
+    updateQuote(caller, requireId(proposalId), data),
   );
   if (result.ok) refresh(proposalId);
   return result;
@@ -43,7 +44,7 @@ export async function updateQuoteAction(proposalId: number, values: unknown) {
 
 export async function addVendorCommentAction(proposalId: number, values: unknown) {
   const result = await runAction(VENDOR, commentSchema, values, (caller, data) =>
-    addComment(caller, proposalId, data.body),
+    addComment(caller, requireId(proposalId), data.body),
   );
   if (result.ok) refresh(proposalId);
   return result;

@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { addComment, decideProposal } from "@/db/queries/proposal-review";
 import { runAction } from "@/lib/actions/run";
+import { requireId } from "@/lib/api/params";
 import { commentSchema, decisionSchema } from "@/lib/validations/pipeline";
 
 function refresh(proposalId: number) {
@@ -12,7 +13,7 @@ function refresh(proposalId: number) {
 
 export async function decideAction(proposalId: number, values: unknown) {
   const result = await runAction(["reviewer"], decisionSchema, values, (caller, data) =>
-    decideProposal(caller, proposalId, data),
+    decideProposal(caller, requireId(proposalId), data),
   );
   if (result.ok) refresh(proposalId);
   return result;
@@ -20,7 +21,7 @@ export async function decideAction(proposalId: number, values: unknown) {
 
 export async function addReviewerCommentAction(proposalId: number, values: unknown) {
   const result = await runAction(["reviewer"], commentSchema, values, (caller, data) =>
-    addComment(caller, proposalId, data.body),
+    addComment(caller, requireId(proposalId), data.body),
   );
   if (result.ok) refresh(proposalId);
   return result;

@@ -291,7 +291,11 @@ describe("importing the build-up of a step-loss event (ENGINE.md §8)", () => {
       "Scrap parts per step-loss event": "-1",
     });
     expect(result.errors).toEqual([
-      { row: 2, column: "Scrap parts per step-loss event", message: "must be at least 0" },
+      {
+        row: 2,
+        column: "Scrap parts per step-loss event",
+        message: "must be at least 0 (received -1)",
+      },
     ]);
   });
 });

@@ -101,7 +101,7 @@ describe("faults.csv: faults in several rows and columns, each at its spreadshee
         message:
           '"€12" is not an amount; enter the cost per step-loss event as a number such as 12.50, in the site\'s currency, without a currency sign or thousands separator',
       },
-      { row: 8, column: "Rated current [A]", message: "must be greater than 0 (received -5)" },
+      { row: 8, column: "Rated current [A]", message: "must be at least 0.01 A (received -5)" },
       {
         row: 9,
         column: "Phase inductance [mH]",
@@ -231,8 +231,9 @@ describe("per-cell rules", () => {
   });
 
   it("bounds: greater than 0, at least 0, at most 100, at most 8784 hours, ambient −40…80 °C", () => {
+    // The engine's FIELD_BOUNDS, with their units (issue 13).
     expect(messageFor({ "Holding torque [N·m]": "0" })).toEqual([
-      "must be greater than 0 (received 0)",
+      "must be at least 0.001 N·m (received 0)",
     ]);
     expect(messageFor({ "Load torque [N·m]": "-0.1" })).toEqual([
       "must be at least 0 (received -0.1)",
@@ -241,10 +242,10 @@ describe("per-cell rules", () => {
       "must be at most 100 (received 101)",
     ]);
     expect(messageFor({ "Hours per year [h]": "9000" })).toEqual([
-      "must be at most 8784 (received 9000)",
+      "must be at most 8784 h (the hours of a leap year) (received 9000)",
     ]);
     expect(messageFor({ "Ambient temperature [°C]": "-50" })).toEqual([
-      "must be at least -40 (received -50)",
+      "must be at least -40 °C (received -50)",
     ]);
   });
 

@@ -32,7 +32,11 @@ describe("winding temperature before and after", () => {
 
   it("flags a winding above its class", () => {
     const raw = rawCase();
-    Object.assign(raw.axes[0].duty, { ambientC: 120 });
+    // The hottest ambient FIELD_BOUNDS allows (80 °C, issue 13) and a drive set to twice the
+    // rated current: the open-loop winding passes its class B limit.
+    Object.assign(raw.axes[0].duty, { ambientC: 80 });
+    const motor = raw.axes[0].motor as { ratedCurrentA: number };
+    Object.assign(raw.axes[0].drive, { currentSettingA: motor.ratedCurrentA * 2 });
     const evaluated = evaluateCase(raw);
     const row = windingTemperatures(evaluated, caseInputSchema.parse(raw))[0];
     expect(evaluated.axes[0].warnings).toContain("OL_WINDING_OVER_CLASS");

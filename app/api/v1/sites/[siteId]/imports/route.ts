@@ -24,6 +24,14 @@ function parseMapping(text: FormDataEntryValue | null): MappingOverride | undefi
   );
 }
 
+// Absent means a real import; "true" or "false" say which; anything else is a mistake the caller
+// should hear about rather than an import they did not mean to run.
+function parseDryRun(value: FormDataEntryValue | null): boolean {
+  if (value === null || value === "false") return false;
+  if (value === "true") return true;
+  throw new ImportFileError(422, 'dryRun must be "true" or "false"');
+}
+
 // multipart: file (required), dryRun ("true" validates only), mapping (JSON), sheet (name).
 export const POST = withApi(
   async (request: Request, context: { params: Promise<{ siteId: string }> }) => {
@@ -48,7 +56,7 @@ export const POST = withApi(
         );
       if (file.size > MAX_IMPORT_BYTES)
         return jsonError(413, "The file is larger than 10 MB; split it into smaller files");
-      const dryRun = form.get("dryRun") === "true";
+      const dryRun = parseDryRun(form.get("dryRun"));
       const checked = await checkImportFile(new Uint8Array(await file.arrayBuffer()), file.name, {
         sheet: form.get("sheet") ? String(form.get("sheet")) : undefined,
         mapping: parseMapping(form.get("mapping")),
