@@ -3,6 +3,8 @@
 import { revalidatePath } from "next/cache";
 import { saveDossierSettings, setDossierPrice } from "@/db/queries/dossiers";
 import { runAction } from "@/lib/actions/run";
+import { requireRole } from "@/lib/auth";
+import { closeOpenCheckout } from "@/lib/payments/checkout";
 import { dossierPriceSchema, uncertaintySettingsSchema } from "@/lib/validations/dossier";
 
 export async function saveDossierSettingsAction(proposalId: number, values: unknown) {
@@ -22,4 +24,12 @@ export async function setDossierPriceAction(values: unknown) {
   );
   if (result.ok) revalidatePath("/admin/payments");
   return result;
+}
+
+// The cancel page's "Close the checkout" button (a form action, so it answers nothing: the page
+// re-renders without the open checkout). Another account's proposal throws not-found.
+export async function closeDossierCheckoutAction(proposalId: number): Promise<void> {
+  const caller = await requireRole("engineer", "manager", "admin");
+  await closeOpenCheckout(caller, proposalId);
+  revalidatePath(`/dossiers/${proposalId}/cancelled`);
 }
