@@ -1,9 +1,11 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { notFound } from "next/navigation";
 import { saveDossierSettings, setDossierPrice } from "@/db/queries/dossiers";
 import { runAction } from "@/lib/actions/run";
 import { requireRole } from "@/lib/auth";
+import { ForbiddenError, NotFoundError } from "@/lib/errors";
 import { closeOpenCheckout } from "@/lib/payments/checkout";
 import { dossierPriceSchema, uncertaintySettingsSchema } from "@/lib/validations/dossier";
 
@@ -27,9 +29,15 @@ export async function setDossierPriceAction(values: unknown) {
 }
 
 // The cancel page's "Close the checkout" button (a form action, so it answers nothing: the page
-// re-renders without the open checkout). Another account's proposal throws not-found.
+// re-renders without the open checkout). Another account's proposal, or a role that never buys,
+// gets the not-found page, as a proposal that does not exist would: no 500, nothing confirmed.
 export async function closeDossierCheckoutAction(proposalId: number): Promise<void> {
-  const caller = await requireRole("engineer", "manager", "admin");
-  await closeOpenCheckout(caller, proposalId);
+  try {
+    const caller = await requireRole("engineer", "manager", "admin");
+    await closeOpenCheckout(caller, proposalId);
+  } catch (error) {
+    if (error instanceof NotFoundError || error instanceof ForbiddenError) notFound();
+    throw error;
+  }
   revalidatePath(`/dossiers/${proposalId}/cancelled`);
 }
