@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { ZodError } from "zod";
 import { NonFiniteResultError } from "@/lib/engine/evaluate";
 import { ConflictError, ForbiddenError, NotFoundError, UnauthorizedError } from "@/lib/errors";
+import { isCrossSiteWrite } from "./same-origin";
 
 export class PayloadTooLargeError extends Error {
   readonly status = 413;
@@ -11,10 +12,15 @@ export function jsonError(status: number, error: string, extra: Record<string, u
   return NextResponse.json({ error, ...extra }, { status });
 }
 
-// Wraps a route handler's body: typed errors become their JSON status, anything unexpected a
-// 500 whose details stay in the server log.
+// Wraps a route handler's body: a cookie-authenticated write from another site is refused before
+// the handler runs (every handler gets it, none can forget it); typed errors become their JSON
+// status, anything unexpected a 500 whose details stay in the server log.
 export function withApi<Args extends unknown[]>(handler: (...args: Args) => Promise<Response>) {
   return async (...args: Args): Promise<Response> => {
+    const request = args[0];
+    if (request instanceof Request && isCrossSiteWrite(request)) {
+      return jsonError(403, "This request did not come from Loopshift's own pages");
+    }
     try {
       return await handler(...args);
     } catch (error) {

@@ -1,6 +1,10 @@
 import "server-only";
 import { getDossierAccess, readDossierPrice } from "@/db/queries/dossiers";
-import { recordCheckoutSession } from "@/db/queries/payments";
+import {
+  latestOpenCheckout,
+  markCheckoutExpired,
+  recordCheckoutSession,
+} from "@/db/queries/payments";
 import { VENDOR_ROLES } from "@/db/queries/proposals";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError } from "@/lib/errors";
@@ -52,4 +56,24 @@ export async function createDossierCheckout(caller: SessionUser, proposalId: num
     currency: price.currency,
   });
   return { url: session.url, sessionId: session.id };
+}
+
+/**
+ * Expires the caller's open checkout of a proposal at the provider, so a checkout page left
+ * open in another tab cannot be paid later by mistake. A POST (the cancel page's button), never
+ * a page load: a GET must not change anything, whoever's link leads to it.
+ */
+export async function closeOpenCheckout(caller: SessionUser, proposalId: number) {
+  assertRole(caller, ...VENDOR_ROLES);
+  const open = latestOpenCheckout(caller, proposalId);
+  if (!open) return { closed: false };
+  try {
+    await stripeClient().checkout.sessions.expire(open.id);
+  } catch (error) {
+    // Paid in the meantime, or already expired: the provider knows; the webhook decides.
+    console.error("could not expire the checkout session", error);
+    return { closed: false };
+  }
+  markCheckoutExpired(caller, proposalId, open.id);
+  return { closed: true };
 }

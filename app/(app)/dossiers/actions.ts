@@ -1,9 +1,13 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { notFound } from "next/navigation";
 import { saveDossierSettings, setDossierPrice } from "@/db/queries/dossiers";
 import { runAction } from "@/lib/actions/run";
 import { requireId } from "@/lib/api/params";
+import { requireRole } from "@/lib/auth";
+import { ForbiddenError, NotFoundError } from "@/lib/errors";
+import { closeOpenCheckout } from "@/lib/payments/checkout";
 import { dossierPriceSchema, uncertaintySettingsSchema } from "@/lib/validations/dossier";
 
 export async function saveDossierSettingsAction(proposalId: number, values: unknown) {
@@ -23,4 +27,18 @@ export async function setDossierPriceAction(values: unknown) {
   );
   if (result.ok) revalidatePath("/admin/payments");
   return result;
+}
+
+// The cancel page's "Close the checkout" button (a form action, so it answers nothing: the page
+// re-renders without the open checkout). Another account's proposal, or a role that never buys,
+// gets the not-found page, as a proposal that does not exist would: no 500, nothing confirmed.
+export async function closeDossierCheckoutAction(proposalId: number): Promise<void> {
+  try {
+    const caller = await requireRole("engineer", "manager", "admin");
+    await closeOpenCheckout(caller, requireId(proposalId));
+  } catch (error) {
+    if (error instanceof NotFoundError || error instanceof ForbiddenError) notFound();
+    throw error;
+  }
+  revalidatePath(`/dossiers/${proposalId}/cancelled`);
 }

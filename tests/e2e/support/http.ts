@@ -17,23 +17,44 @@ export class CookieJar {
   }
 }
 
-export async function request(jar: CookieJar | null, path: string, init: RequestInit = {}) {
+const UNSAFE = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+// Sends what a browser on our own pages sends: the cookie, and for a write the page's Origin
+// (the handlers refuse cookie-authenticated writes without it). A test of a forged request
+// states its own Origin, which is then left as it is.
+// `base` is another server than the shared one (a test that starts and kills its own).
+export async function request(
+  jar: CookieJar | null,
+  path: string,
+  init: RequestInit = {},
+  base = baseUrl(),
+) {
   const headers = new Headers(init.headers);
   if (jar) headers.set("cookie", jar.header());
-  const res = await fetch(`${baseUrl()}${path}`, { ...init, headers, redirect: "manual" });
+  if (UNSAFE.has((init.method ?? "GET").toUpperCase()) && !headers.has("origin")) {
+    headers.set("origin", new URL(base).origin);
+  }
+  const res = await fetch(`${base}${path}`, { ...init, headers, redirect: "manual" });
   jar?.store(res);
   return res;
 }
 
 // Signs in through next-auth's credentials callback, as the sign-in form does.
-export async function signInOverHttp(email: string, password: string) {
+export async function signInOverHttp(email: string, password: string, base = baseUrl()) {
   const jar = new CookieJar();
-  const csrf = (await (await request(jar, "/api/auth/csrf")).json()) as { csrfToken: string };
-  const res = await request(jar, "/api/auth/callback/credentials", {
-    method: "POST",
-    headers: { "content-type": "application/x-www-form-urlencoded" },
-    body: new URLSearchParams({ csrfToken: csrf.csrfToken, email, password, json: "true" }),
-  });
+  const csrf = (await (await request(jar, "/api/auth/csrf", {}, base)).json()) as {
+    csrfToken: string;
+  };
+  const res = await request(
+    jar,
+    "/api/auth/callback/credentials",
+    {
+      method: "POST",
+      headers: { "content-type": "application/x-www-form-urlencoded" },
+      body: new URLSearchParams({ csrfToken: csrf.csrfToken, email, password, json: "true" }),
+    },
+    base,
+  );
   const body = (await res.json()) as { url: string };
   const error = new URL(body.url).searchParams.get("error");
   return { jar, error };

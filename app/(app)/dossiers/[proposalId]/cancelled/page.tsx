@@ -3,15 +3,17 @@ import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess } from "@/db/queries/dossiers";
-import { latestOpenCheckout, markCheckoutExpired } from "@/db/queries/payments";
+import { latestOpenCheckout } from "@/db/queries/payments";
 import { requirePageUser } from "@/lib/auth";
 import { idParam, orNotFound } from "@/lib/pages";
-import { stripeClient } from "@/lib/payments/client";
+import { closeDossierCheckoutAction } from "../../actions";
 
 export const metadata: Metadata = { title: "Checkout cancelled" };
 
-// Where the checkout's "cancel" leads. The open session is expired at the provider, so the
-// page left behind in another tab cannot be paid later by mistake.
+// Where the checkout's "cancel" leads. Loading it changes nothing (anyone's link can lead here);
+// the open session is expired at the provider only by the button, a POST, so the checkout page
+// left behind in another tab cannot be paid later by mistake. Left alone, it expires at the
+// provider by itself.
 export default async function CancelledPage({
   params,
 }: {
@@ -20,16 +22,7 @@ export default async function CancelledPage({
   const user = await requirePageUser("engineer", "manager", "admin");
   const id = idParam((await params).proposalId);
   const { proposal, grant } = orNotFound(() => getDossierAccess(user, id));
-  const open = latestOpenCheckout(user, id);
-  if (open) {
-    try {
-      await stripeClient().checkout.sessions.expire(open.id);
-      markCheckoutExpired(user, id, open.id);
-    } catch (error) {
-      // Paid in the meantime, or already expired: the provider knows; the webhook decides.
-      console.error("could not expire the checkout session", error);
-    }
-  }
+  const open = grant ? null : latestOpenCheckout(user, id);
   return (
     <div className="mx-auto max-w-2xl space-y-6">
       <PageHeader title={`Dossier: ${proposal.caseName}, proposal v${proposal.version}`} />
@@ -41,6 +34,17 @@ export default async function CancelledPage({
               ? "This dossier was already paid for, so it stays unlocked; nothing more was charged."
               : "Nothing was charged and the dossier stays locked. You can buy it whenever you are ready."}
           </p>
+          {open && (
+            <form action={closeDossierCheckoutAction.bind(null, id)}>
+              <p className="text-steel-800">
+                The checkout page may still be open in another tab. Close it so it cannot be paid by
+                mistake.
+              </p>
+              <button type="submit" className={buttonClass("primary")}>
+                Close the checkout
+              </button>
+            </form>
+          )}
           <Link href={`/dossiers/${id}`} className={buttonClass("secondary")}>
             Back to the dossier
           </Link>
