@@ -82,9 +82,9 @@ export function AppShell({
           {children}
         </main>
         <footer className="border-t border-steel-200 px-4 py-3 text-caption text-steel-600 md:px-8">
-          Figures are estimates from datasheet values and the stated assumptions. Retrofit work is
-          electrical work on machinery: isolate and lock out, qualified persons only, and follow the
-          machine&apos;s risk assessment and local codes.
+          Figures are estimates from datasheet values and the stated assumptions. Converting an axis
+          is work on live machinery: qualified people only, machine isolated and locked out, its
+          risk assessment and local codes followed.
         </footer>
       </div>
     </div>

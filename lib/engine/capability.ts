@@ -74,7 +74,7 @@ export function voltageDisc(m: TorqueModel, rpm: number): VoltageDisc {
 
 /**
  * The largest torque current i_q in both the current disc (radius I_lim about 0) and the voltage
- * disc, in closed form so that every implementation returns the same number (docs/model.md (Torque at speed)):
+ * disc, without iterating, so that another implementation gets the same figure (docs/model.md (Torque at speed)):
  * the top of the current disc, the top of the voltage disc, or a crossing of the two circles;
  * 0 when the discs do not meet.
  */
@@ -184,7 +184,7 @@ export const usableTorqueNm = (torqueNm: number, requiredPct: number): number =>
 
 /**
  * Highest speed at which the usable torque still covers the peak, by exactly the bisection of
- * docs/model.md (Torque margin and speed), so that every implementation returns the same number.
+ * docs/model.md (Torque margin and speed), so that another implementation gets the same figure.
  */
 export function maxSpeedRpm(
   capability: Capability,

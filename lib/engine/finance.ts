@@ -39,10 +39,10 @@ const IRR_HIGH = IRR_HIGHEST_RATE;
 const IRR_TOLERANCE = 1e-12;
 
 /**
- * IRR as docs/model.md (The business case) (engine v2) defines it, so that every implementation returns the same
- * number: null unless CF_0 < 0, some later flow is > 0 and NPV(−0.99)·NPV(10) < 0; then
- * bisection on [−0.99, 10], keeping the half whose ends differ in sign, until the bracket is
- * 1e-12 wide; the answer is its midpoint (a midpoint where NPV is exactly 0 ends the search).
+ * IRR as docs/model.md (The business case) (engine v2) defines it, so that any other implementation lands on the
+ * same rate: no rate unless the first flow is negative, a later one positive and NPV changes sign
+ * between −0.99 and 10; then halve that bracket, always keeping the half over which NPV changes
+ * sign, until it is 1e-12 wide; the answer is its midpoint (a midpoint where NPV is exactly 0 ends the search).
  * With several roots this picks one deterministically. Engine v1 scanned the interval and took
  * the root closest to 0; for flows with one sign change (one root) both give the same rate.
  */

@@ -91,7 +91,8 @@ export const METHOD_SECTIONS: MethodSection[] = [
       },
       {
         kind: "table",
-        caption: "Current vector and copper loss by step mode, for a per-phase setting I",
+        caption:
+          "By step mode: the current vector at rest and while running, and the copper loss, for a per-phase setting I",
         head: ["step mode", "vector at rest", "vector while running", "copper loss"],
         rows: [
           ["full step, two phases on", "√2·I", "(4/π)·I ≈ 1.273·I", "2·I²·R"],
@@ -204,7 +205,7 @@ export const METHOD_SECTIONS: MethodSection[] = [
       },
       {
         kind: "p",
-        text: "A sensorless kit has no back-EMF to read at standstill, so it holds the way the open loop does today. Below its minimum estimating speed it does not really close the loop: it runs at full current, keeps the open-loop margin and avoids no lost steps. With a mechanism, the top speed is used for the whole move; for both loops this understates the saving rather than overstating it.",
+        text: "A sensorless kit has no back-EMF to read at standstill, so it holds the way the open loop does today. Below its minimum estimating speed it does not really close the loop: it runs at full current, keeps the open-loop margin and avoids no lost steps. When the duty comes from a mechanism, both loops are taken at the move's top speed throughout; that can only make the saving look smaller than it is, never larger.",
       },
     ],
   },
@@ -484,7 +485,7 @@ export const METHOD_SOURCES: SourceRow[] = [
     source: "textbook relation; fact of the trade",
   },
   {
-    check: "Stability limit of the load angle",
+    check: "Largest stable load angle",
     value: "90° electrical, one full step",
     source: "fact of the trade",
   },
