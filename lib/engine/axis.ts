@@ -1,12 +1,10 @@
 import { capabilityNm } from "./capability";
 import {
   closedLoopDemand,
-  closedLoopMovingA,
   holdingCapabilityNm,
   kitEncoderW,
   kitMaxCurrentA,
   kitMotor,
-  openLoopMovingMagnitudeA,
   openLoopSettingA,
 } from "./currents";
 import { isBeyondCurve, monotoneCurve } from "./curves";
@@ -52,17 +50,15 @@ export interface PhysicsScale {
   idleCurrent: number;
 }
 
-export const NO_SCALE: PhysicsScale = { loadTorque: 1, idleCurrent: 1 };
-
 /** Relative tolerance so that a setting exactly at the rating (e.g. √2·I_rms) is not flagged. */
 const RATING_TOLERANCE = 1e-9;
 
-/** The axis with every idle current scaled, capped at 100 % (the idle-current driver). */
-function withIdleScaled(axis: ParsedAxis, factor: number): ParsedAxis {
-  if (factor === 1) return axis;
-  const idleCurrentPct = Math.min(100, axis.drive.idleCurrentPct * factor);
-  return { ...axis, drive: { ...axis.drive, idleCurrentPct } };
-}
+/** The idle current as a share of the setting, %, scaled and capped at 100 (the idle-current driver). */
+const idlePctAt = (axis: ParsedAxis, factor: number): number =>
+  factor === 1 ? axis.drive.idleCurrentPct : Math.min(100, axis.drive.idleCurrentPct * factor);
+
+/** A capability with nothing besides the model: shared, as it never changes. */
+const MODEL_ONLY: LoopSpec["shape"] = Object.freeze({});
 
 /** Today's open-loop drive on the axis, as a loop to evaluate (docs/model.md (Torque at speed), §4). */
 function openLoopSpec(
@@ -70,26 +66,23 @@ function openLoopSpec(
   duty: AxisDuty,
   requiredPct: number,
   searchMaxSpeed: boolean,
+  idleCurrentPct = axis.drive.idleCurrentPct,
 ): LoopSpec & { shortStatus: "step-loss" } {
   const { motor, drive } = axis;
   const setting = openLoopSettingA(drive);
-  const limitA = runVectorFactor(drive.stepMode) * setting;
-  const torqueCurrentA =
-    (duty.loadTorqueNm + dragTorqueNm(motor, duty.speedRpm)) / torqueConstant(motor);
   const curve = motor.pullOutCurve ? monotoneCurve(motor.pullOutCurve) : undefined;
   return {
     motor,
     busVoltageV: drive.busVoltageV,
-    currentLimitA: limitA,
+    currentLimitA: runVectorFactor(drive.stepMode) * setting,
     copperFactor: copperFactor(drive.stepMode),
     moveA: setting,
-    holdA: (setting * drive.idleCurrentPct) / 100,
-    // The chopper's setting, scaled by the share of I_lim it still reaches at speed.
-    movingAtSpeed: (disc) =>
-      limitA === 0
-        ? 0
-        : (setting * openLoopMovingMagnitudeA(limitA, torqueCurrentA, disc)) / limitA,
-    drive: { efficiencyPct: drive.efficiencyPct, fixedW: drive.standbyW },
+    holdA: (setting * idleCurrentPct) / 100,
+    moving: "chopper",
+    torqueCurrentA:
+      (duty.loadTorqueNm + dragTorqueNm(motor, duty.speedRpm)) / torqueConstant(motor),
+    efficiencyPct: drive.efficiencyPct,
+    fixedW: drive.standbyW,
     // A measured curve already holds whatever resonance the axis has; the dip shapes the model.
     shape: curve
       ? { curve }
@@ -101,7 +94,7 @@ function openLoopSpec(
               derate: drive.resonance.deratePct / 100,
             },
           }
-        : {},
+        : MODEL_ONLY,
     requiredPct,
     shortStatus: "step-loss",
     searchMaxSpeed,
@@ -126,14 +119,13 @@ function closedLoopSpec(
   duty: AxisDuty,
   margins: ParsedMargins,
   searchMaxSpeed: boolean,
+  idleCurrentPct = axis.drive.idleCurrentPct,
 ) {
   const kit = axis.retrofit.kit;
   const motor = kitMotor(axis);
-  const demand = closedLoopDemand(axis, duty);
+  const demand = closedLoopDemand(axis, duty, idleCurrentPct);
   const maxA = kitMaxCurrentA(kit, motor);
   const busVoltageV = kit.busVoltageV ?? axis.drive.busVoltageV;
-  // Set by pass 2: a torque current the bus cannot drive at speed.
-  const voltage = { short: false };
 
   // The motor and bus of today with a measured curve: what it did open loop at today's current
   // it does closed loop too, scaled by the kit's current against today's.
@@ -155,14 +147,11 @@ function closedLoopSpec(
     copperFactor: 1,
     moveA: demand.moveA,
     holdA: demand.holdA,
-    movingAtSpeed: (disc) => {
-      if (demand.lowSpeedSensorless) return maxA;
-      const moving = closedLoopMovingA(demand.moveA, maxA, disc);
-      voltage.short = moving.short;
-      return moving.magnitudeA;
-    },
-    drive: { efficiencyPct: kit.efficiencyPct, fixedW: kit.standbyW + kitEncoderW(kit) },
-    shape: floor ? { floor } : {},
+    moving: demand.lowSpeedSensorless ? "at-limit" : "field-weakening",
+    torqueCurrentA: demand.moveA,
+    efficiencyPct: kit.efficiencyPct,
+    fixedW: kit.standbyW + kitEncoderW(kit),
+    shape: floor ? { floor } : MODEL_ONLY,
     // Below its minimum speed a sensorless kit is open loop in effect, and needs its margin.
     requiredPct: demand.lowSpeedSensorless
       ? margins.openLoopRequiredPct
@@ -170,7 +159,7 @@ function closedLoopSpec(
     shortStatus: "undersized",
     searchMaxSpeed,
   };
-  return { spec, demand, voltage };
+  return { spec, demand };
 }
 
 export function evaluateClosedLoop(
@@ -180,11 +169,11 @@ export function evaluateClosedLoop(
   coolingCop: number | null,
   searchMaxSpeed = true,
 ) {
-  const { spec, demand, voltage } = closedLoopSpec(axis, duty, margins, searchMaxSpeed);
+  const { spec, demand } = closedLoopSpec(axis, duty, margins, searchMaxSpeed);
   const outcome = evaluateLoop(spec, duty, coolingCop);
   // A moving or holding demand above I_max, or a torque current the bus cannot drive at speed,
   // makes the kit undersized whatever the margin.
-  if (demand.demandAboveLimit || voltage.short) outcome.result.status = "undersized";
+  if (demand.demandAboveLimit || outcome.voltageShort) outcome.result.status = "undersized";
   return {
     outcome,
     undersized: outcome.result.status === "undersized",
@@ -194,13 +183,11 @@ export function evaluateClosedLoop(
 
 /** The physics of docs/model.md (Torque at speed)–§7 for one unit of one axis. */
 export function evaluateAxisPhysics(
-  input: ParsedAxis,
+  axis: ParsedAxis,
   ctx: AxisContext,
-  scale: PhysicsScale = NO_SCALE,
   searchMaxSpeed = true,
 ): AxisPhysics {
-  const axis = withIdleScaled(input, scale.idleCurrent);
-  const duty = axisDuty(axis, scale.loadTorque);
+  const duty = axisDuty(axis);
   const { margins, coolingCop } = ctx;
   const open = evaluateOpenLoop(
     axis,
@@ -335,7 +322,7 @@ export function economicsOf(physics: AxisPhysics): AxisEconomics {
  * headroom matters only to a machine that values a throughput gain.
  */
 export function economicsAtScale(
-  input: ParsedAxis,
+  axis: ParsedAxis,
   base: AxisPhysics,
   ctx: AxisContext,
   scale: PhysicsScale,
@@ -343,11 +330,11 @@ export function economicsAtScale(
 ): AxisEconomics {
   const idleOnly = scale.loadTorque === 1;
   if (idleOnly && (scale.idleCurrent === 1 || base.holdShare === 0)) return economicsOf(base);
-  const axis = withIdleScaled(input, scale.idleCurrent);
+  const idlePct = idlePctAt(axis, scale.idleCurrent);
   const duty = idleOnly ? base.duty : axisDuty(axis, scale.loadTorque);
   const { margins, coolingCop } = ctx;
   const open = loopEnergy(
-    openLoopSpec(axis, duty, margins.openLoopRequiredPct, false),
+    openLoopSpec(axis, duty, margins.openLoopRequiredPct, false, idlePct),
     duty,
     coolingCop,
   );
@@ -358,7 +345,7 @@ export function economicsAtScale(
       coolingOpenLoopKWh: open.coolingKWhPerYear,
     };
 
-  const { spec, demand, voltage } = closedLoopSpec(axis, duty, margins, false);
+  const { spec, demand } = closedLoopSpec(axis, duty, margins, false, idlePct);
   const closed = loopEnergy(spec, duty, coolingCop);
   const capability = capabilityOf(spec, closed.thermal.resistanceHotOhm);
   const short =
@@ -366,7 +353,7 @@ export function economicsAtScale(
       marginPct(duty.peakTorqueNm, capabilityNm(capability, duty.speedRpm)),
       spec.requiredPct,
     ) === "short";
-  const undersized = short || demand.demandAboveLimit || voltage.short;
+  const undersized = short || demand.demandAboveLimit || closed.voltageShort;
   return {
     energyOpenLoopKWh: open.energyKWhPerYear,
     energyClosedLoopKWh: closed.energyKWhPerYear,

@@ -63,13 +63,34 @@ export interface VoltageDisc {
 }
 
 export function voltageDisc(m: TorqueModel, rpm: number): VoltageDisc {
+  return discOf(m.k1, m.rotorTeeth, m.inductanceH, m.resistanceOhm, m.busVoltageV, rpm);
+}
+
+/** The voltage disc of a motor at a resistance and bus, without building its TorqueModel first. */
+export function motorVoltageDisc(
+  motor: ParsedMotor,
+  resistanceOhm: number,
+  busVoltageV: number,
+  rpm: number,
+): VoltageDisc {
+  const inductanceH = motor.phaseInductanceMh / 1000;
+  return discOf(torqueConstant(motor), motor.rotorTeeth, inductanceH, resistanceOhm, busVoltageV, rpm);
+}
+
+function discOf(
+  k1: number,
+  rotorTeeth: number,
+  inductanceH: number,
+  r: number,
+  v: number,
+  rpm: number,
+): VoltageDisc {
   const omegaM = rpmToRadPerS(rpm);
-  const e = m.k1 * omegaM;
-  const x = m.rotorTeeth * omegaM * m.inductanceH;
-  const r = m.resistanceOhm;
+  const e = k1 * omegaM;
+  const x = rotorTeeth * omegaM * inductanceH;
   const z2 = r * r + x * x;
   const z = Math.sqrt(z2);
-  return { cd: (-e * x) / z2, cq: (-e * r) / z2, rho: m.busVoltageV / z, d: e / z, e, z };
+  return { cd: (-e * x) / z2, cq: (-e * r) / z2, rho: v / z, d: e / z, e, z };
 }
 
 /**

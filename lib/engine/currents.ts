@@ -15,13 +15,21 @@ export function openLoopSettingA(drive: ParsedAxis["drive"]): number {
     : drive.currentSettingA;
 }
 
-/** Today's holding current per phase: the idle share of the setting. */
-export const openLoopHoldA = (axis: ParsedAxis): number =>
-  (openLoopSettingA(axis.drive) * axis.drive.idleCurrentPct) / 100;
+/**
+ * Today's holding current per phase: the idle share of the setting. The idle-current driver of
+ * the sensitivity passes its scaled share as idleCurrentPct.
+ */
+export const openLoopHoldA = (axis: ParsedAxis, idleCurrentPct = axis.drive.idleCurrentPct): number =>
+  (openLoopSettingA(axis.drive) * idleCurrentPct) / 100;
 
 /** What today's drive holds at standstill: k1·vf_hold·I_set·idle (docs/model.md (Torque margin and speed)). */
-export const holdingCapabilityNm = (axis: ParsedAxis): number =>
-  torqueConstant(axis.motor) * holdVectorFactor(axis.drive.stepMode) * openLoopHoldA(axis);
+export const holdingCapabilityNm = (
+  axis: ParsedAxis,
+  idleCurrentPct = axis.drive.idleCurrentPct,
+): number =>
+  torqueConstant(axis.motor) *
+  holdVectorFactor(axis.drive.stepMode) *
+  openLoopHoldA(axis, idleCurrentPct);
 
 /** Is the point (d, q) of the current plane inside the voltage disc? */
 const inDisc = (disc: VoltageDisc, d: number, q: number): boolean =>
@@ -71,7 +79,11 @@ export interface ClosedLoopDemand {
 }
 
 /** Closed loop, pass 1: the torque current the load asks for, between I_min and I_max. */
-export function closedLoopDemand(axis: ParsedAxis, duty: AxisDuty): ClosedLoopDemand {
+export function closedLoopDemand(
+  axis: ParsedAxis,
+  duty: AxisDuty,
+  idleCurrentPct = axis.drive.idleCurrentPct,
+): ClosedLoopDemand {
   const kit = axis.retrofit.kit;
   const motor = kitMotor(axis);
   const k1 = torqueConstant(motor);
@@ -87,8 +99,7 @@ export function closedLoopDemand(axis: ParsedAxis, duty: AxisDuty): ClosedLoopDe
   if (kit.sensing === "sensorless") {
     // No back-EMF at rest to estimate the position from: it holds with the torque today's drive
     // holds with. The cap alone does not make the kit undersized.
-    const todayHoldNm =
-      torqueConstant(axis.motor) * holdVectorFactor(axis.drive.stepMode) * openLoopHoldA(axis);
+    const todayHoldNm = holdingCapabilityNm(axis, idleCurrentPct);
     holdA = Math.min(Math.max(holdA, todayHoldNm / k1), maxA);
     if (duty.speedRpm < kit.sensorlessMinRpm) {
       moveA = maxA;
@@ -106,19 +117,12 @@ export function closedLoopDemand(axis: ParsedAxis, duty: AxisDuty): ClosedLoopDe
 }
 
 /**
- * Closed loop, pass 2: the least field-weakening current i_d that reaches I_q at the operating
- * speed, and whether the drive can supply it at all (docs/model.md (Currents at the operating point)).
+ * Closed loop, pass 2: the magnitude of the least field-weakening current i_d with I_q at the
+ * operating speed (docs/model.md (Currents at the operating point)); NaN when no i_d reaches I_q
+ * there. A plain number: loopEnergy calls it for every axis in every sensitivity run.
  */
-export function closedLoopMovingA(
-  iq: number,
-  maxA: number,
-  disc: VoltageDisc,
-): { magnitudeA: number; short: boolean } {
+export function fieldWeakeningMagnitudeA(iq: number, disc: VoltageDisc): number {
   const w2 = disc.rho * disc.rho - (iq - disc.cq) * (iq - disc.cq);
-  if (w2 < 0) return { magnitudeA: Math.min(iq, maxA), short: true };
-  const id = Math.min(0, disc.cd + Math.sqrt(w2));
-  const magnitude = Math.hypot(id, iq);
-  return magnitude > maxA
-    ? { magnitudeA: maxA, short: true }
-    : { magnitudeA: magnitude, short: false };
+  if (w2 < 0) return NaN;
+  return Math.hypot(Math.min(0, disc.cd + Math.sqrt(w2)), iq);
 }

@@ -1,18 +1,22 @@
 import {
   capabilityNm,
   maxSpeedRpm,
+  motorVoltageDisc,
   torqueModel,
   usableTorqueNm,
-  voltageDisc,
   type Capability,
-  type VoltageDisc,
 } from "./capability";
+import { fieldWeakeningMagnitudeA, openLoopMovingMagnitudeA } from "./currents";
 import type { AxisDuty } from "./duty";
-import type { DriveLosses } from "./energy";
 import { marginPct, marginStatus } from "./margin";
 import { ironLossW } from "./motor";
 import type { ParsedMotor } from "./schema";
-import { windingTemperature, type ThermalState } from "./thermal";
+import {
+  hotResistanceOhm,
+  steadyWindingTempC,
+  windingTemperature,
+  type ThermalState,
+} from "./thermal";
 import type { LoopResult } from "./types";
 
 /** One loop — today's open-loop drive or the proposed kit — on one axis. */
@@ -26,9 +30,18 @@ export interface LoopSpec {
   /** Pass 1 (voltage ignored): moving and holding currents. */
   moveA: number;
   holdA: number;
-  /** Pass 2: the moving current at the operating point, given the voltage disc at R₁. */
-  movingAtSpeed: (disc: VoltageDisc) => number;
-  drive: DriveLosses;
+  /**
+   * Pass 2, how the moving current meets the voltage disc at R₁: "chopper" (today's drive keeps
+   * the share of I_lim it still reaches), "field-weakening" (the kit adds i_d to reach I_q), or
+   * "at-limit" (a sensorless kit below its minimum speed, at I_max). Data rather than a closure,
+   * so that a spec built per axis and sensitivity run allocates nothing more.
+   */
+  moving: "chopper" | "field-weakening" | "at-limit";
+  /** The torque current the load asks of today's drive, A (the chopper rule reads it). */
+  torqueCurrentA: number;
+  /** Drive efficiency, %, and the power it draws in every state (standby, encoder), W. */
+  efficiencyPct: number;
+  fixedW: number;
   /** What bounds or shapes the capability besides the model (curve, resonance, floor). */
   shape: Omit<Capability, "model">;
   requiredPct: number;
@@ -47,28 +60,41 @@ export interface LoopOutcome<S extends string> {
   capability: Capability;
   /** Margin negative, or no torque at speed. */
   short: boolean;
+  /** See LoopEnergy.voltageShort. */
+  voltageShort: boolean;
 }
 
-function thermalOf(
-  spec: LoopSpec,
-  duty: AxisDuty,
-  moveA: number,
-  holdA: number,
-  ironW: number,
-): ThermalState {
-  const { motor } = spec;
-  return windingTemperature(motor, duty.ambientC, {
-    copperAt20W:
-      motor.phaseResistanceOhm *
-      spec.copperFactor *
-      (duty.move * moveA * moveA + duty.hold * holdA * holdA),
-    ironW: duty.move * ironW,
-  });
+/** A: the copper loss at 20 °C averaged over the running hours, W. */
+const copperAt20W = (spec: LoopSpec, duty: AxisDuty, moveA: number): number =>
+  spec.motor.phaseResistanceOhm *
+  spec.copperFactor *
+  (duty.move * moveA * moveA + duty.hold * spec.holdA * spec.holdA);
+
+/** Pass 2: the moving current at the operating point, and whether the kit runs short of voltage. */
+function movingAtSpeed(spec: LoopSpec, duty: AxisDuty, resistanceOhm: number) {
+  const limitA = spec.currentLimitA;
+  if (spec.moving === "at-limit") return { moveA: limitA, voltageShort: false };
+  const disc = motorVoltageDisc(spec.motor, resistanceOhm, spec.busVoltageV, duty.speedRpm);
+  if (spec.moving === "chopper") {
+    // The chopper's setting, scaled by the share of I_lim it still reaches at speed.
+    const moveA =
+      limitA === 0
+        ? 0
+        : (spec.moveA * openLoopMovingMagnitudeA(limitA, spec.torqueCurrentA, disc)) / limitA;
+    return { moveA, voltageShort: false };
+  }
+  const magnitude = fieldWeakeningMagnitudeA(spec.moveA, disc);
+  if (Number.isNaN(magnitude)) return { moveA: Math.min(spec.moveA, limitA), voltageShort: true };
+  return magnitude > limitA
+    ? { moveA: limitA, voltageShort: true }
+    : { moveA: magnitude, voltageShort: false };
 }
 
 /** The currents, temperature, losses and energy of one loop: what the business case needs. */
 export interface LoopEnergy {
   moveA: number;
+  /** Closed loop: no current within I_max reaches the torque current at speed (undersized). */
+  voltageShort: boolean;
   thermal: ThermalState;
   copperMoveW: number;
   copperHoldW: number;
@@ -88,11 +114,18 @@ export interface LoopEnergy {
 export function loopEnergy(spec: LoopSpec, duty: AxisDuty, coolingCop: number | null): LoopEnergy {
   const { motor } = spec;
   const ironW = ironLossW(motor, duty.speedRpm);
-  const pass1 = thermalOf(spec, duty, spec.moveA, spec.holdA, ironW);
-  const moveA = spec.movingAtSpeed(
-    voltageDisc(modelOf(spec, pass1.resistanceHotOhm), duty.speedRpm),
+  const ironAveragedW = duty.move * ironW;
+  const pass1C = steadyWindingTempC(
+    motor,
+    duty.ambientC,
+    copperAt20W(spec, duty, spec.moveA),
+    ironAveragedW,
   );
-  const thermal = thermalOf(spec, duty, moveA, spec.holdA, ironW);
+  const { moveA, voltageShort } = movingAtSpeed(spec, duty, hotResistanceOhm(motor, pass1C));
+  const thermal = windingTemperature(motor, duty.ambientC, {
+    copperAt20W: copperAt20W(spec, duty, moveA),
+    ironW: ironAveragedW,
+  });
 
   const r = thermal.resistanceHotOhm;
   const cf = spec.copperFactor;
@@ -101,8 +134,8 @@ export function loopEnergy(spec: LoopSpec, duty: AxisDuty, coolingCop: number | 
 
   // §6: P_in = P_motor/η + standby in each state; the drive loss P_in − P_motor heats the cabinet.
   const motorMoveW = duty.mechanicalW + ironW + copperMoveW;
-  const eta = spec.drive.efficiencyPct / 100;
-  const fixedW = spec.drive.fixedW;
+  const eta = spec.efficiencyPct / 100;
+  const fixedW = spec.fixedW;
   const inputPowerW = {
     move: motorMoveW / eta + fixedW,
     hold: copperHoldW / eta + fixedW,
@@ -118,6 +151,7 @@ export function loopEnergy(spec: LoopSpec, duty: AxisDuty, coolingCop: number | 
   const hours = duty.hoursPerYear;
   return {
     moveA,
+    voltageShort,
     thermal,
     copperMoveW,
     copperHoldW,
@@ -184,5 +218,6 @@ export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
     thermal,
     capability,
     short: byMargin === "short",
+    voltageShort: energy.voltageShort,
   };
 }

@@ -188,7 +188,7 @@ const retrofitSchema = obj({
   maintenanceSavingPerYear: money().default("0"),
 });
 
-const axisObject = obj({
+export const axisObject = obj({
   id: id(),
   label: text(),
   machineId: id(),
@@ -206,7 +206,7 @@ const axisObject = obj({
  */
 const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peakTorqueNm"] as const;
 
-function checkAxisDuty(axis: unknown, ctx: z.RefinementCtx): void {
+export function checkAxisDuty(axis: unknown, ctx: z.RefinementCtx): void {
   if (typeof axis !== "object" || axis === null) return;
   const duty = (axis as { duty?: Record<string, unknown> }).duty;
   if (typeof duty !== "object" || duty === null) return;
@@ -314,7 +314,7 @@ function checkUniqueIds(
 }
 
 /** The fields of a case, around the axis schema given (with or without reportEveryProblem). */
-const caseObject = (axis: typeof axisInputSchema) =>
+export const caseObject = (axis: typeof axisInputSchema) =>
   obj({
     currency: text().regex(
       /^[A-Z]{3}$/,
@@ -334,7 +334,7 @@ const caseObject = (axis: typeof axisInputSchema) =>
   });
 
 /** Ids unique, and every axis names a machine of the case; checks the types it relies on. */
-function checkCaseReferences(input: unknown, ctx: z.RefinementCtx): void {
+export function checkCaseReferences(input: unknown, ctx: z.RefinementCtx): void {
   // Runs even when the body is not an object (reportEveryProblem), e.g. a JSON `null`.
   if (typeof input !== "object" || input === null) return;
   const fields = input as { machines?: unknown; axes?: unknown };

@@ -39,32 +39,41 @@ export interface ThermalState {
 /**
  * Steady winding temperature over the duty mix (docs/model.md (Winding temperature)): T = T_amb + R_th·(A·(1 + α(T − 20)) + B)
  * solved for T; a denominator ≤ 0 means the copper loss grows faster with temperature than the
- * motor can shed it.
+ * motor can shed it, and the answer is NaN (thermal runaway). A plain number, so that the first
+ * pass of the moving current does not build a ThermalState it only reads the resistance of.
  */
+export function steadyWindingTempC(
+  motor: ParsedMotor,
+  ambientC: number,
+  copperAt20W: number,
+  ironW: number,
+): number {
+  const rth = thermalResistanceKPerW(motor);
+  const alpha = COPPER_ALPHA_PER_K;
+  const denominator = 1 - rth * copperAt20W * alpha;
+  if (denominator <= 0) return NaN;
+  return (ambientC + rth * (copperAt20W * (1 - 20 * alpha) + ironW)) / denominator;
+}
+
+/** R(T_w), or R at the insulation class limit under runaway (tempC NaN). */
+export function hotResistanceOhm(motor: ParsedMotor, tempC: number): number {
+  const at = Number.isNaN(tempC) ? INSULATION_CLASS_LIMIT_C[motor.insulationClass] : tempC;
+  return resistanceAt(motor.phaseResistanceOhm, at);
+}
+
+/** The steady state of steadyWindingTempC with what the result and the warnings read of it. */
 export function windingTemperature(
   motor: ParsedMotor,
   ambientC: number,
   load: ThermalLoad,
 ): ThermalState {
-  const rth = thermalResistanceKPerW(motor);
-  const a = load.copperAt20W;
-  const alpha = COPPER_ALPHA_PER_K;
-  const denominator = 1 - rth * a * alpha;
-  const limitC = INSULATION_CLASS_LIMIT_C[motor.insulationClass];
-  if (denominator <= 0) {
-    return {
-      windingTempC: null,
-      resistanceHotOhm: resistanceAt(motor.phaseResistanceOhm, limitC),
-      runaway: true,
-      overClass: false,
-    };
-  }
-  const tempC = (ambientC + rth * (a * (1 - 20 * alpha) + load.ironW)) / denominator;
+  const tempC = steadyWindingTempC(motor, ambientC, load.copperAt20W, load.ironW);
+  const runaway = Number.isNaN(tempC);
   return {
-    windingTempC: tempC,
-    resistanceHotOhm: resistanceAt(motor.phaseResistanceOhm, tempC),
-    runaway: false,
-    overClass: tempC > limitC,
+    windingTempC: runaway ? null : tempC,
+    resistanceHotOhm: hotResistanceOhm(motor, tempC),
+    runaway,
+    overClass: !runaway && tempC > INSULATION_CLASS_LIMIT_C[motor.insulationClass],
   };
 }
 
