@@ -188,7 +188,7 @@ const retrofitSchema = obj({
   maintenanceSavingPerYear: money().default("0"),
 });
 
-export const axisObject = obj({
+const axisObject = obj({
   id: id(),
   label: text(),
   machineId: id(),
@@ -206,7 +206,7 @@ export const axisObject = obj({
  */
 const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peakTorqueNm"] as const;
 
-export function checkAxisDuty(axis: unknown, ctx: z.RefinementCtx): void {
+function checkAxisDuty(axis: unknown, ctx: z.RefinementCtx): void {
   if (typeof axis !== "object" || axis === null) return;
   const duty = (axis as { duty?: Record<string, unknown> }).duty;
   if (typeof duty !== "object" || duty === null) return;
@@ -314,7 +314,7 @@ function checkUniqueIds(
 }
 
 /** The fields of a case, around the axis schema given (with or without reportEveryProblem). */
-export const caseObject = (axis: typeof axisInputSchema) =>
+const caseObject = (axis: typeof axisInputSchema) =>
   obj({
     currency: text().regex(
       /^[A-Z]{3}$/,
@@ -334,7 +334,7 @@ export const caseObject = (axis: typeof axisInputSchema) =>
   });
 
 /** Ids unique, and every axis names a machine of the case; checks the types it relies on. */
-export function checkCaseReferences(input: unknown, ctx: z.RefinementCtx): void {
+function checkCaseReferences(input: unknown, ctx: z.RefinementCtx): void {
   // Runs even when the body is not an object (reportEveryProblem), e.g. a JSON `null`.
   if (typeof input !== "object" || input === null) return;
   const fields = input as { machines?: unknown; axes?: unknown };
