@@ -74,7 +74,14 @@ export function motorVoltageDisc(
   rpm: number,
 ): VoltageDisc {
   const inductanceH = motor.phaseInductanceMh / 1000;
-  return discOf(torqueConstant(motor), motor.rotorTeeth, inductanceH, resistanceOhm, busVoltageV, rpm);
+  return discOf(
+    torqueConstant(motor),
+    motor.rotorTeeth,
+    inductanceH,
+    resistanceOhm,
+    busVoltageV,
+    rpm,
+  );
 }
 
 function discOf(

@@ -19,8 +19,10 @@ export function openLoopSettingA(drive: ParsedAxis["drive"]): number {
  * Today's holding current per phase: the idle share of the setting. The idle-current driver of
  * the sensitivity passes its scaled share as idleCurrentPct.
  */
-export const openLoopHoldA = (axis: ParsedAxis, idleCurrentPct = axis.drive.idleCurrentPct): number =>
-  (openLoopSettingA(axis.drive) * idleCurrentPct) / 100;
+export const openLoopHoldA = (
+  axis: ParsedAxis,
+  idleCurrentPct = axis.drive.idleCurrentPct,
+): number => (openLoopSettingA(axis.drive) * idleCurrentPct) / 100;
 
 /** What today's drive holds at standstill: k1·vf_hold·I_set·idle (docs/model.md (Torque margin and speed)). */
 export const holdingCapabilityNm = (

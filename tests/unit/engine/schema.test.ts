@@ -1,7 +1,9 @@
 import { describe, expect, it } from "vitest";
+import Decimal from "decimal.js";
 import handCase from "@/tests/fixtures/engine-hand-case.json";
 import invalidCase from "@/tests/fixtures/engine-case-invalid.json";
 import { caseInputSchema, evaluateCase, formatIssues } from "@/lib/engine";
+import { MONEY_MAX } from "@/lib/engine/schema-fields";
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any -- fixtures are edited freely before parsing
 type Json = any;
@@ -76,6 +78,30 @@ describe("case input schema (ENGINE.md §2)", () => {
     const parsed = caseInputSchema.parse(input);
     expect(parsed.finance.tariffPerKWh).toBe("0.1000000000000000000000001");
     expect(parsed.axes[0].retrofit.kit.price).toBe("189.1");
+  });
+
+  it("refuses amounts above the money ceiling exactly at its edge, leading zeros and all", () => {
+    // The ceiling is decided without decimal.js for short amounts; decimal.js is the reference.
+    const amounts = [
+      "0",
+      ".5",
+      "+12.50",
+      "999999999999.99",
+      "1000000000000",
+      "1000000000000.00",
+      "1000000000000.01",
+      "0001000000000000.5",
+      "00000000000000000012",
+      "10000000000000",
+      "5.",
+    ];
+    for (const amount of amounts) {
+      const input = hand();
+      input.axes[0].retrofit.kit.price = amount;
+      expect(caseInputSchema.safeParse(input).success, amount).toBe(
+        new Decimal(amount).lte(MONEY_MAX),
+      );
+    }
   });
 
   it("names the path of each problem and what is expected", () => {
