@@ -13,7 +13,7 @@ import { caseAssumptionsSchema, type CaseAssumptions } from "@/lib/validations/c
 
 type Values = z.input<typeof caseAssumptionsSchema>;
 
-// Where each default comes from, said beside the field (docs/model.md, REFERENCES.md).
+// Where each default comes from, said beside the field (docs/model.md, Defaults and Sources of the check values).
 const ESTIMATE = "Estimate: replace with the customer's own figure";
 
 export function AssumptionsForm({

@@ -6,7 +6,7 @@ import {
 } from "../../lib/engine/schema";
 import { DEMO_MOTORS } from "./catalogue";
 
-// The invented installed base of the demo scenario (PRODUCT.md): three customers, their plants,
+// The invented installed base of the demo scenario (docs/product.md): three customers, their plants,
 // machines and a few hundred NEMA 17/23/34 class axes. A seeded generator keeps it the same on
 // every machine.
 
@@ -24,7 +24,7 @@ type AxisTemplate = {
 };
 
 // An axis described by its mechanism and move (docs/model.md (Motion from the mechanism)) instead of typed duty figures,
-// optionally with its step-loss events costed from what one causes (§8).
+// optionally with its step-loss events costed from what one causes (docs/model.md (The business case)).
 type MotionAxisTemplate = {
   label: string;
   motor: string;

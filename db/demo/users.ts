@@ -2,7 +2,7 @@ import type { Role } from "../schema/users";
 
 export const DEMO_PASSWORD = "loopshift-demo";
 
-// Invented demo users of the demo scenario (PRODUCT.md): one per role, plus a second engineer.
+// Invented demo users of the demo scenario (docs/product.md): one per role, plus a second engineer.
 export const DEMO_USERS: { email: string; name: string; role: Role }[] = [
   { email: "admin@example.com", name: "Demo Administrator", role: "admin" },
   { email: "engineer@example.com", name: "Demo Engineer", role: "engineer" },

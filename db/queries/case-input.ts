@@ -95,7 +95,7 @@ function dutyInputOf(axis: Axis): AxisInput["duty"] {
   };
 }
 
-// The engine refuses costPerEvent beside an event (§8): a stored event is the cost.
+// The engine refuses costPerEvent beside an event (docs/model.md (The business case)): a stored event is the cost.
 function reliabilityInputOf(axis: Axis): AxisInput["reliability"] {
   return {
     stepLossEventsPerYear: axis.stepLossEventsPerYear,

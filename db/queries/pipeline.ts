@@ -14,7 +14,7 @@ export type Pipeline = {
   byMonth: { month: string; currency: string; count: number; value: string; weighted: string }[];
 };
 
-// Managers see every quote; an engineer sees the quotes they own (PRODUCT.md roles).
+// Managers see every quote; an engineer sees the quotes they own (docs/product.md (Roles)).
 function pipelineScope(caller: SessionUser): SQL | undefined {
   assertRole(caller, "manager", "engineer");
   return caller.role === "engineer" ? eq(quotes.ownerId, caller.id) : undefined;

@@ -46,7 +46,7 @@ export const machines = sqliteTable(
   (t) => [uniqueIndex("machines_site_name_idx").on(t.siteId, t.name)],
 );
 
-/** docs/model.md (Torque at speed) drive.resonance and §8 reliability.event as the engine parsed them. */
+/** docs/model.md (Torque at speed) drive.resonance and docs/model.md (The business case) reliability.event as the engine parsed them. */
 export type StoredResonance = NonNullable<ParsedAxis["drive"]["resonance"]>;
 export type StoredStepLossEvent = NonNullable<ParsedAxis["reliability"]["event"]>;
 
@@ -55,7 +55,7 @@ export type StoredStepLossEvent = NonNullable<ParsedAxis["reliability"]["event"]
 // machine so that a site's axes page straight off one index.
 // The optional objects of engine v2 (motion, resonance, step-loss event) are JSON columns holding
 // what the engine's own schema parsed, so they need no column per field and load back as the
-// engine reads them. With motion, §3a derives speed, torques and duty shares: the typed duty
+// engine reads them. With motion, docs/model.md (Motion from the mechanism) derives speed, torques and duty shares: the typed duty
 // columns then keep whatever was typed (0 when left blank) and are not sent to the engine. They
 // stay NOT NULL because relaxing them would rebuild this table, which the case rows reference
 // with ON DELETE CASCADE and the input-revision triggers watch — a risk to stored data that a

@@ -38,7 +38,7 @@ export interface AxisDetail {
 }
 
 function statesOf(loop: "open" | "closed", r: LoopResult): StateRow[] {
-  // §6: the iron loss is a moving loss; holding and off draw none.
+  // docs/model.md (Energy and cooling): the iron loss is a moving loss; holding and off draw none.
   return [
     {
       loop,

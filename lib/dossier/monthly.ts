@@ -21,7 +21,7 @@ const TWELVE = new Money(12);
 /**
  * The physics scenario month by month. Each year's flow CF_t is spread evenly over its twelve
  * months: the energy saved, the reliability, maintenance and throughput terms and the service
- * cost accrue as the machines run, and the tariff escalation of §8 steps once a year, so within
+ * cost accrue as the machines run, and the tariff escalation of docs/model.md (The business case) steps once a year, so within
  * a year every month is CF_t/12. The months of a year add up to CF_t (to the 40 digits of the
  * engine's Decimal), the NPV stays the engine's
  * (yearly flows, year-end discounting), and the month the cumulative cash turns non-negative is

@@ -48,7 +48,7 @@ const round4 = (x: number) => Math.round(x * 1e4) / 1e4;
  * seeds well, where xoroshiro128+'s first outputs stay near 1), in a fixed order per draw: tariff,
  * hours, load, step-loss events. Every draw is the engine's physics scenario with those four
  * factors applied together (PreparedCase.at): the load re-solves every axis's closed loop, the
- * others scale the linear terms of §6 and §8.
+ * others scale the linear terms of docs/model.md (Energy and cooling) and §8.
  */
 export function runUncertainty(
   prepared: PreparedCase,

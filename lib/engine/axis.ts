@@ -60,7 +60,7 @@ const idlePctAt = (axis: ParsedAxis, factor: number): number =>
 /** A capability with nothing besides the model: shared, as it never changes. */
 const MODEL_ONLY: LoopSpec["shape"] = Object.freeze({});
 
-/** Today's open-loop drive on the axis, as a loop to evaluate (docs/model.md (Torque at speed), §4). */
+/** Today's open-loop drive on the axis, as a loop to evaluate (docs/model.md (Torque at speed), docs/model.md (Currents at the operating point)). */
 function openLoopSpec(
   axis: ParsedAxis,
   duty: AxisDuty,
@@ -181,7 +181,7 @@ export function evaluateClosedLoop(
   };
 }
 
-/** The physics of docs/model.md (Torque at speed)–§7 for one unit of one axis. */
+/** The physics of docs/model.md (Torque at speed to Torque margin and speed) for one unit of one axis. */
 export function evaluateAxisPhysics(
   axis: ParsedAxis,
   ctx: AxisContext,

@@ -26,7 +26,7 @@ export function evaluateParsedCase(input: ParsedCase): CaseResult {
 /**
  * A figure of the result is NaN or infinite: the schema's bounds (FIELD_BOUNDS) are meant to
  * make this impossible, so it marks a gap in them. Callers answer 422 instead of publishing
- * "NaN" as an NPV (ENGINE.md §1: every figure is a finite number or a decimal string).
+ * "NaN" as an NPV (docs/contracts.md (Numbers and money): every figure is a finite number or a decimal string).
  */
 export class NonFiniteResultError extends Error {
   readonly status = 422;
@@ -80,7 +80,7 @@ function pathOfNonFinite(value: unknown, path: string): string | null {
   return isAllFinite(value) ? null : path;
 }
 
-/** The sensitivity of §8 at any swing, each driver moved alone (the dossier asks for several). */
+/** The sensitivity of docs/model.md (The business case) at any swing, each driver moved alone (the dossier asks for several). */
 export function sensitivityOf(prepared: PreparedCase, swingPct: number): SensitivityRow[] {
   return sensitivity(swingPct, prepared.input.currency, (driver, factor) =>
     prepared.at({ [driver]: factor }),
@@ -93,7 +93,7 @@ export function resultOf(prepared: PreparedCase): CaseResult {
   const { finance } = input;
   const physicsSaving = base.energySavedKWh + base.coolingSavedKWh;
   // Band scenarios: the trade's claimed fraction of today's drive and of today's cooling energy
-  // (§8); "energy" and "cooling" by source carry each.
+  // (docs/model.md (The business case)); "energy" and "cooling" by source carry each.
   const band = (pct: number) =>
     scenario(
       cashFlowSeries(

@@ -159,14 +159,14 @@ export function sumShared(values: Iterable<Decimal>): Decimal {
   return total;
 }
 
-/** Per unit of one axis: what the business case of §8 needs from the physics. */
+/** Per unit of one axis: what the business case of docs/model.md (The business case) needs from the physics. */
 export interface AxisEconomics {
   energyOpenLoopKWh: number;
   energyClosedLoopKWh: number;
   coolingOpenLoopKWh: number;
   coolingClosedLoopKWh: number;
   undersized: boolean;
-  /** Not undersized and not a sensorless kit below its minimum speed (docs/model.md (Currents at the operating point), §8). */
+  /** Not undersized and not a sensorless kit below its minimum speed (docs/model.md (Currents at the operating point), docs/model.md (The business case)). */
   avoidsEvents: boolean;
   speedHeadroomPct: number | null;
 }

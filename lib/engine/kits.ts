@@ -22,7 +22,7 @@ const nm = (value: number) => `${value.toFixed(3)} N·m`;
 
 /**
  * The cheapest kit, by price after the axis's discount, whose closed-loop usable torque at the
- * axis speed covers its peak torque and that is not undersized (docs/model.md (Currents at the operating point), §7). Equal prices
+ * axis speed covers its peak torque and that is not undersized (docs/model.md (Currents at the operating point), docs/model.md (Torque margin and speed)). Equal prices
  * keep the order given.
  */
 export function suggestKit(

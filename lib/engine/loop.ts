@@ -106,8 +106,8 @@ export interface LoopEnergy {
 }
 
 /**
- * Thermal state, losses, power and energy of one loop (docs/model.md (Currents at the operating point)–§6), in the two passes
- * of §4: the pass-1 temperature sets the resistance at which the moving current is put at the
+ * Thermal state, losses, power and energy of one loop (docs/model.md (Currents at the operating point to Energy and cooling)), in the two passes
+ * of docs/model.md (Currents at the operating point): the pass-1 temperature sets the resistance at which the moving current is put at the
  * operating point, and the temperature is solved again with that current. The sensitivity runs
  * stop here; evaluateLoop adds the torque margin and the result.
  */
@@ -132,7 +132,7 @@ export function loopEnergy(spec: LoopSpec, duty: AxisDuty, coolingCop: number | 
   const copperMoveW = cf * moveA * moveA * r;
   const copperHoldW = cf * spec.holdA * spec.holdA * r;
 
-  // §6: P_in = P_motor/η + standby in each state; the drive loss P_in − P_motor heats the cabinet.
+  // docs/model.md (Energy and cooling): P_in = P_motor/η + standby in each state; the drive loss P_in − P_motor heats the cabinet.
   const motorMoveW = duty.mechanicalW + ironW + copperMoveW;
   const eta = spec.efficiencyPct / 100;
   const fixedW = spec.fixedW;
@@ -178,7 +178,7 @@ export const capabilityOf = (spec: LoopSpec, resistanceOhm: number): Capability 
   floor: spec.shape.floor,
 });
 
-/** Energy (loopEnergy) plus the torque margin and max speed of §7, as a LoopResult. */
+/** Energy (loopEnergy) plus the torque margin and max speed of docs/model.md (Torque margin and speed), as a LoopResult. */
 export function evaluateLoop<S extends LoopSpec["shortStatus"]>(
   spec: LoopSpec & { shortStatus: S },
   duty: AxisDuty,

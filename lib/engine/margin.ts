@@ -39,7 +39,7 @@ export function speedHeadroomPct(maxSpeedRpmClosed: number, speedRpm: number): n
 /**
  * The closed-loop speed headroom as the throughput cap of docs/model.md (The business case) uses it, where only
  * min(gain, headroom) counts: a headroom surely at or above the machine's gain comes back as the
- * gain itself, after one torque evaluation instead of the ~24 of the §7 bisection; any other
+ * gain itself, after one torque evaluation instead of the ~24 of the docs/model.md (Torque margin and speed) bisection; any other
  * comes from the bisection, as speedHeadroomPct gives it.
  *
  * Why one evaluation decides it: the usable torque does not rise with speed, so if it covers the

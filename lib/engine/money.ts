@@ -3,7 +3,7 @@ import Decimal from "decimal.js";
 /**
  * The engine's own Decimal constructor, so that the app's other uses of decimal.js keep their
  * settings. docs/model.md asks for precision ≥ 30; 40 significant digits leave room for 30 years
- * of compounding without touching the cents. Half-even is the rounding of §1 for display.
+ * of compounding without touching the cents. Half-even is the rounding of docs/contracts.md (Numbers and money) for display.
  */
 export const Money = Decimal.clone({ precision: 40, rounding: Decimal.ROUND_HALF_EVEN });
 export type Money = Decimal;
@@ -14,7 +14,7 @@ export const HUNDRED = new Money(100);
 
 /**
  * Money in a CaseResult is the unrounded Decimal in plain notation (never exponent notation):
- * §1 rounds only for display and export, and the workbook and reviewers recompute from these.
+ * docs/contracts.md (Numbers and money) rounds only for display and export, and the workbook and reviewers recompute from these.
  * A negative zero prints as "0".
  */
 export function moneyString(value: Decimal): string {

@@ -38,7 +38,7 @@ export interface DriverOutcome extends PhysicsScenarioOutcome {
  * A case with its physics evaluated once, from which the physics scenario can be recomputed
  * under changed drivers without repeating the per-axis work that does not depend on them: the
  * tariff, the hours, the step-loss events, kit price, labor rate, discount rate and throughput
- * gain enter the flows linearly or through the per-machine cap (§6, §8); only a changed load
+ * gain enter the flows linearly or through the per-machine cap (docs/model.md (Energy and cooling), docs/model.md (The business case)); only a changed load
  * torque or idle current solves the axes again (economicsAtScale). evaluateParsedCase builds
  * its scenarios, sensitivity and break-even values through the same functions.
  */
@@ -151,7 +151,7 @@ export function prepareCase(input: ParsedCase): PreparedCase {
       laborTotal ??= sumShared(money.map((m) => m.laborHoursTotal)).times(laborRate);
       const change = factors.laborRate.minus(ONE);
       capexAt = capexAt.plus(laborTotal.times(change));
-      // §8: the labor rate also prices the restart labour of each step-loss event.
+      // docs/model.md (The business case): the labor rate also prices the restart labour of each step-loss event.
       totals = {
         ...totals,
         reliabilityPerYear: totals.reliabilityPerYear.plus(
@@ -207,8 +207,8 @@ export function prepareCase(input: ParsedCase): PreparedCase {
 }
 
 /**
- * Every axis's hours scaled alike: energy and cooling are linear in hours (§6), and so is the
- * throughput value, through the largest hoursPerYear of each machine (§8).
+ * Every axis's hours scaled alike: energy and cooling are linear in hours (docs/model.md (Energy and cooling)), and so is the
+ * throughput value, through the largest hoursPerYear of each machine (docs/model.md (The business case)).
  */
 export function withHoursScaled(totals: FleetTotals, factor: Decimal): FleetTotals {
   const f = factor.toNumber();

@@ -210,7 +210,7 @@ function checkAxisDuty(axis: unknown, ctx: z.RefinementCtx): void {
   if (typeof axis !== "object" || axis === null) return;
   const duty = (axis as { duty?: Record<string, unknown> }).duty;
   if (typeof duty !== "object" || duty === null) return;
-  // With motion, §3a derives these figures and any sent are ignored.
+  // With motion, docs/model.md (Motion from the mechanism) derives these figures and any sent are ignored.
   if (duty.motion !== undefined) return;
   for (const field of MOTION_SUPPLIED)
     if (duty[field] === undefined)
@@ -379,7 +379,7 @@ const acceptValidCase = (input: unknown) => {
 /**
  * CaseInput of docs/model.md. Valid input takes the compiled path, which on a 10,000-axis case
  * allocates less than half of what zod's interpreter does and runs markedly faster (docs/model.md
- * §10). Invalid input costs more than before — the accepting schema's interpreter, then the
+ * docs/contracts.md (Performance)). Invalid input costs more than before — the accepting schema's interpreter, then the
  * reporting one, whose issues are returned — which only a rejected case pays.
  */
 export const caseInputSchema = z.withParser(reportingCaseSchema, acceptValidCase);

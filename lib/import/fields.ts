@@ -28,7 +28,7 @@ export type AxisColumns = Omit<
   | "resonance"
 >;
 
-/** Columns of docs/model.md (Motion from the mechanism)'s MotionInput and of §8's reliability.event, by engine name. */
+/** Columns of docs/model.md (Motion from the mechanism)'s MotionInput and of docs/model.md (The business case)'s reliability.event, by engine name. */
 export type MotionFieldKey = `motion.${keyof ParsedMotion}`;
 export type EventFieldKey = `event.${keyof StoredStepLossEvent}`;
 

@@ -69,7 +69,7 @@ const TYPED_EXAMPLE: Example = {
 /**
  * An invented vertical screw axis described by its mechanism and move (docs/model.md (Motion from the mechanism)): the
  * speed, torques and duty shares stay blank and are derived; its step-loss events are costed
- * from what one causes (§8) instead of a cost per event.
+ * from what one causes (docs/model.md (The business case)) instead of a cost per event.
  */
 const MOTION_EXAMPLE: Example = {
   ...TYPED_EXAMPLE,

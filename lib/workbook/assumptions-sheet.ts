@@ -372,7 +372,7 @@ function writeMachines(
       (counted?.warnings ?? []).map(machineWarningText).join(" "),
     ]);
     const r = row.number;
-    // §8: value = gain/100 · marginPerOutputHour · the largest hoursPerYear of its axes.
+    // docs/model.md (The business case): value = gain/100 · marginPerOutputHour · the largest hoursPerYear of its axes.
     row.getCell(8).value = {
       formula: `F${r}/100*E${r}*G${r}`,
       result: Number(counted?.throughputPerYear ?? 0),

@@ -71,7 +71,7 @@ export const AXIS_MONEY_COLUMNS: readonly AxisColumn[] = [
       result: r.result.totals.coolingSavedKWhPerYear,
     }),
   },
-  // §8: reliability counts only the axes that avoid events (the "Avoids step-loss events" column).
+  // docs/model.md (The business case): reliability counts only the axes that avoid events (the "Avoids step-loss events" column).
   {
     key: "reliability",
     group: "Money and totals (formulas)",

@@ -112,7 +112,7 @@ export function writeCashFlowSheet(
     row.getCell(1).alignment = { horizontal: "left" };
     if (t >= 1) {
       const tariff = row.getCell(2);
-      // §8: the tariff of year t is tariff·(1 + escalation)^(t−1).
+      // docs/model.md (The business case): the tariff of year t is tariff·(1 + escalation)^(t−1).
       tariff.value = {
         formula: `${NAME.tariff}*(1+${NAME.escalation}/100)^($A${row.number}-1)`,
         result: tariffInYear(input, t),
@@ -169,7 +169,7 @@ function writeScenario(
     set(cum, `${cum}${p}+${flow}${r}`, v.cumulative, currency);
     set(disc, `${flow}${r}/(1+${NAME.discountRate}/100)^$A${r}`, v.discounted, currency);
     set(discCum, `${discCum}${p}+${disc}${r}`, v.discountedCumulative, currency);
-    // §8: at the first t whose cumulative reaches 0, payback = (t − 1) + (−cum_(t−1))/CF_t.
+    // docs/model.md (The business case): at the first t whose cumulative reaches 0, payback = (t − 1) + (−cum_(t−1))/CF_t.
     set(
       payback,
       `IF(AND(${inHorizon},${cum}${p}<0,${cum}${r}>=0),$A${r}-1+(-${cum}${p})/${flow}${r},"")`,
@@ -231,7 +231,7 @@ function writeResults(
       cell.numFmt = format;
       defineName(workbook, name, SHEET.cashFlow, { column: flow, row });
     };
-    // §8: physics counts the drive and cooling energy saved; a band scenario counts its fraction
+    // docs/model.md (The business case): physics counts the drive and cooling energy saved; a band scenario counts its fraction
     // of today's (open-loop) drive and cooling energy.
     const savingFormula =
       scenario === "physics"
@@ -249,7 +249,7 @@ function writeResults(
       FORMATS.kWh,
     );
 
-    // §8: NPV = CF_0 + Σ CF_t/(1+r)^t; the spreadsheet NPV() discounts its first value one period.
+    // docs/model.md (The business case): NPV = CF_0 + Σ CF_t/(1+r)^t; the spreadsheet NPV() discounts its first value one period.
     put(
       results.npv,
       scenarioName("NPV", scenario),
@@ -296,7 +296,7 @@ function writeResults(
       paybackValue(s.discountedPaybackYears),
       FORMATS.years,
     );
-    // §8: "reached" with a simple payback; else "beyond-horizon" while the last flow is > 0.
+    // docs/model.md (The business case): "reached" with a simple payback; else "beyond-horizon" while the last flow is > 0.
     put(
       results.paybackStatus,
       scenarioName("PaybackStatus", scenario),
@@ -304,7 +304,7 @@ function writeResults(
       paybackStatusValue(s),
       "@",
     );
-    // §8: ROI % = 100·(Σ_(t≥1) CF_t + CF_0)/Capex.
+    // docs/model.md (The business case): ROI % = 100·(Σ_(t≥1) CF_t + CF_0)/Capex.
     put(
       results.roi,
       scenarioName("ROI", scenario),
@@ -598,7 +598,7 @@ function writeSources(
     blockTitle.value = SCENARIO_TITLE[scenario];
     blockTitle.font = { bold: true };
     const values = sourceValues(input, result, scenario);
-    // §8: physics counts the energy saved; a band scenario its fraction of today's energy.
+    // docs/model.md (The business case): physics counts the energy saved; a band scenario its fraction of today's energy.
     const share =
       scenario === "physics" ? "" : `${scenario === "bandLow" ? NAME.bandLow : NAME.bandHigh}/100*`;
     const energyKWh = scenario === "physics" ? NAME.energySaved : `${share}${NAME.energyOpenLoop}`;
@@ -615,7 +615,7 @@ function writeSources(
       maintenance: (t) => `${NAME.maintenance}*${infl(t)}`,
       throughput: (t) => `${NAME.throughput}*${infl(t)}`,
       service: (t) => `-${NAME.serviceCost}*${infl(t)}`,
-      // §8: tax on the flow before tax less the year's depreciation; negative is a shield.
+      // docs/model.md (The business case): tax on the flow before tax less the year's depreciation; negative is a shield.
       tax: (t) => {
         const c = sourceYearColumn(t);
         return `IF(${inHorizon(t)},-${NAME.taxRate}/100*(SUM(${c}${first}:${c}${lastBeforeTax})-${c}$${sources.depreciationRow}),0)`;

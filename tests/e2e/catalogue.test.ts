@@ -54,7 +54,7 @@ describe("everyone at the vendor reads the catalogue", () => {
     const kit = page.getByTestId("kit-CL23-E");
     await expect(kit.textContent()).resolves.toContain("€189.00");
     await expect(kit.textContent()).resolves.toContain("keeps the axis motor");
-    // ENGINE.md §2 KitInput: an absent max current is √2 × I_R of the motor, an absent bus voltage the axis drive's.
+    // docs/contracts.md (Case input) KitInput: an absent max current is √2 × I_R of the motor, an absent bus voltage the axis drive's.
     await expect(kit.textContent()).resolves.toContain("√2 × rated current of the motor");
     await expect(kit.textContent()).resolves.toContain("the axis drive’s");
     await expect(page.getByTestId("kit-CL23-EM").textContent()).resolves.toContain(

@@ -60,7 +60,7 @@ beforeAll(async () => {
   labSite = theirs.sites.find((s) => s.name === "Assembly and test")!.id;
 });
 
-describe("POST /api/v1/evaluate with engine v2 inputs (ENGINE.md §2, §3a, §8)", () => {
+describe("POST /api/v1/evaluate with engine v2 inputs (docs/contracts.md (Case input), docs/model.md (Motion from the mechanism), docs/model.md (The business case))", () => {
   it("evaluates axes given by their mechanism and move, with an event build-up, as engine 2.0.0 with a motion block", async () => {
     const res = await send(
       engineer,
@@ -75,7 +75,7 @@ describe("POST /api/v1/evaluate with engine v2 inputs (ENGINE.md §2, §3a, §8)
       expect(axis.motion!.speedRpm).toBeGreaterThan(0);
       expect(axis.motion!.peakTorqueNm).toBeGreaterThanOrEqual(axis.motion!.loadTorqueNm);
     }
-    // The vertical screw holds its load at standstill (§3a holdTorqueNm, §9 HOLDING_LOAD).
+    // The vertical screw holds its load at standstill (docs/model.md (Motion from the mechanism) holdTorqueNm, docs/contracts.md (Case result) HOLDING_LOAD).
     expect(result.axes[0].motion!.holdTorqueNm).toBeGreaterThan(0);
     expect(result.axes[0].warnings).toContain("HOLDING_LOAD");
   });
@@ -302,7 +302,7 @@ describe("a proposal issued with engine 1.0.0 (tests/fixtures/proposal-v1.json)"
   });
 });
 
-describe("the case assumptions form with inflation, tax rate and depreciation (ENGINE.md §8)", () => {
+describe("the case assumptions form with inflation, tax rate and depreciation (docs/model.md (The business case))", () => {
   let browser: Browser;
   let page: Page;
   beforeAll(async () => {

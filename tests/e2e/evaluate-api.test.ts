@@ -20,8 +20,8 @@ function post(body: string) {
   });
 }
 
-describe("POST /api/v1/evaluate (PRODUCT.md contract)", () => {
-  it("returns the CaseResult of ENGINE.md §9 for a signed-in user", async () => {
+describe("POST /api/v1/evaluate (docs/contracts.md)", () => {
+  it("returns the CaseResult of docs/contracts.md (Case result) for a signed-in user", async () => {
     const res = await post(fixture);
     expect(res.status).toBe(200);
     const result = caseResultSchema.parse(await res.json());

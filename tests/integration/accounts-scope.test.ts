@@ -5,7 +5,7 @@ import { caller } from "../support/callers";
 
 const names = (rows: { name: string }[]) => rows.map((r) => r.name).sort();
 
-describe("who sees which customer account (PRODUCT.md roles)", () => {
+describe("who sees which customer account (docs/product.md (Roles))", () => {
   it("an engineer sees the accounts they own and those shared with them, nothing else", () => {
     expect(names(listAccounts(caller("engineer@example.com")))).toEqual([
       "Cartonia Packaging Plant",

@@ -175,7 +175,7 @@ describe("the cached result follows every input it is built from", () => {
 });
 
 describe("creating and editing a case", () => {
-  it("starts from the site's tariff and CO₂ factor and the engine's defaults (ENGINE.md §2)", () => {
+  it("starts from the site's tariff and CO₂ factor and the engine's defaults (docs/contracts.md (Case input))", () => {
     const site = siteNamed("South hall");
     const row = createCase(engineer(), { name: "Defaults check", siteId: site.id });
     const found = getCaseOrThrow(engineer(), row.id);

@@ -34,8 +34,8 @@ import { caller } from "../support/callers";
 const engineer = () => caller("engineer@example.com");
 const northHall = () => listSites(engineer()).find((s) => s.name === "North hall")!;
 
-// An invented NEMA 23 axis on 48 V whose duty comes from a vertical screw (ENGINE.md §3a), with
-// its step-loss events costed from what one causes (§8) and a mid-band dip (§3).
+// An invented NEMA 23 axis on 48 V whose duty comes from a vertical screw (docs/model.md (Motion from the mechanism)), with
+// its step-loss events costed from what one causes (docs/model.md (The business case)) and a mid-band dip (docs/model.md (Torque at speed)).
 function screwAxisBody(machineId: number) {
   return {
     machineId,
@@ -65,7 +65,7 @@ function screwAxisBody(machineId: number) {
   };
 }
 
-describe("an axis with motion, an event build-up and a resonance band (ENGINE.md §2)", () => {
+describe("an axis with motion, an event build-up and a resonance band (docs/contracts.md (Case input))", () => {
   it("is stored as the engine parsed it and comes back unchanged", () => {
     const machine = listMachines(engineer(), northHall().id)[0];
     const body = screwAxisBody(machine.id);
@@ -154,7 +154,7 @@ describe("an axis with motion, an event build-up and a resonance band (ENGINE.md
     const typedResult = result.axes.find((a) => a.id === String(typed.id))!;
     expect(typedResult.motion).toBeNull();
     expect(screwResult.motion).not.toBeNull();
-    // §3a relations, not figures: a vertical screw holds its load at rest; it dwells, so it holds.
+    // docs/model.md (Motion from the mechanism) relations, not figures: a vertical screw holds its load at rest; it dwells, so it holds.
     const motion = screwResult.motion!;
     expect(motion.speedRpm).toBeGreaterThan(0);
     expect(motion.peakTorqueNm).toBeGreaterThanOrEqual(motion.loadTorqueNm);
@@ -166,7 +166,7 @@ describe("an axis with motion, an event build-up and a resonance band (ENGINE.md
     expect(evaluateCase(JSON.parse(JSON.stringify(input))).axes).toEqual(result.axes);
   });
 
-  it("its event is priced as ENGINE.md §8 builds it: the same flows as the equal cost per event", () => {
+  it("its event is priced as docs/model.md (The business case) builds it: the same flows as the equal cost per event", () => {
     const site = northHall();
     const machine = listMachines(engineer(), site.id)[0];
     const screw = createAxis(engineer(), axisApiSchema.parse(screwAxisBody(machine.id)));
@@ -174,7 +174,7 @@ describe("an axis with motion, an event build-up and a resonance band (ENGINE.md
     setCaseAxes(engineer(), created.id, [screw.id]);
     const input = buildCaseInput(engineer(), created.id);
     input.finance = { ...input.finance, downtimeCostPerHour: "300", laborRatePerHour: "60" };
-    // §8: downtimeMinutes/60·downtimeCostPerHour + scrapParts·scrapCostPerPart +
+    // docs/model.md (The business case): downtimeMinutes/60·downtimeCostPerHour + scrapParts·scrapCostPerPart +
     // restartLaborHours·laborRatePerHour, here 20/60·300 + 3·4.80 + 0.5·60.
     const cost = new Decimal(20)
       .div(60)
@@ -247,7 +247,7 @@ describe("an import with motion and event columns", () => {
   });
 });
 
-describe("case assumptions of engine v2 (ENGINE.md §2 finance)", () => {
+describe("case assumptions of engine v2 (docs/contracts.md (Case input) finance)", () => {
   it("migration 0007 writes the engine's defaults into a case stored before, and leaves set values alone", () => {
     const site = northHall();
     const fresh = createCase(engineer(), { name: "Stored before v2", siteId: site.id });

@@ -35,7 +35,7 @@ const axisValues = (machineId: number) =>
     peakTorqueNm: 0.45,
   });
 
-describe("the seeded installed base (PRODUCT.md demo scenario)", () => {
+describe("the seeded installed base (docs/product.md, Demo scenario)", () => {
   it("holds a few hundred axes on three invented accounts, and a catalogue of kits and motors", () => {
     const sites = listSites(manager());
     expect(new Set(sites.map((s) => s.accountName)).size).toBe(3);

@@ -209,7 +209,7 @@ function money(calc: ExcelJS.Workbook, name: string, expected: string): void {
   ).toBeLessThan(0.005);
 }
 
-describe("LibreOffice Calc recalculating the exported workbook (REFERENCES.md)", () => {
+describe("LibreOffice Calc recalculating the exported workbook (docs/model.md (Sources of the check values))", () => {
   it("reproduces the engine's figures for the engine fixture case (engine-case.json)", async () => {
     const { result, calc } = await recalculated(fixtureCase);
     const seen = expectEngineFigures(calc, result);

@@ -1,6 +1,6 @@
 import { z } from "zod";
 
-// The CaseResult contract other tools read (docs/model.md §9), written out independently of the
+// The CaseResult contract other tools read (docs/model.md docs/contracts.md (Case result)), written out independently of the
 // engine's own TypeScript types. Strict objects: a missing or an extra key fails the parse.
 // caseResultSchemaV1 is the contract of engine 1.0.0, which proposals issued before keep.
 const money = z.string().regex(/^-?\d+(\.\d+)?$/, "money is a plain decimal string");

@@ -6,7 +6,7 @@ import { inflateRawSync } from "node:zlib";
 import ExcelJS from "exceljs";
 
 /**
- * LibreOffice Calc, headless, as the finance reviewer's spreadsheet (REFERENCES.md: "LibreOffice
+ * LibreOffice Calc, headless, as the finance reviewer's spreadsheet (docs/model.md (Sources of the check values): "LibreOffice
  * Calc opening the exported workbook recalculates every formula; its values must equal the
  * engine's"). Calc keeps the values cached beside formulas in an .xlsx instead of computing them,
  * so the workbook goes to it with every cached formula value removed.

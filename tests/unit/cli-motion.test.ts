@@ -3,19 +3,19 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { caseResultSchema } from "@/tests/support/case-result-schema";
 
-// The command of the PRODUCT.md contract itself, as a user types it.
+// The command of the docs/contracts.md itself, as a user types it.
 const evaluate = (file: string) =>
   spawnSync("npm", ["run", "--silent", "evaluate", "--", file], {
     cwd: process.cwd(),
     encoding: "utf8",
   });
 
-describe("npm run evaluate with engine v2 inputs (ENGINE.md §2, §3a)", () => {
+describe("npm run evaluate with engine v2 inputs (docs/contracts.md (Case input), docs/model.md (Motion from the mechanism))", () => {
   it("evaluates axes given by their mechanism and move, with an event build-up and a resonance band", () => {
     const out = evaluate("tests/fixtures/engine-case-motion.json");
     expect(out.stderr).toBe("");
     expect(out.status).toBe(0);
-    // The §9 contract of engine 2, key by key.
+    // The docs/contracts.md (Case result) contract of engine 2, key by key.
     const result = caseResultSchema.parse(JSON.parse(out.stdout));
     const input = JSON.parse(readFileSync("tests/fixtures/engine-case-motion.json", "utf8"));
     expect(result.axes.map((a) => a.id)).toEqual(input.axes.map((a: { id: string }) => a.id));
@@ -23,7 +23,7 @@ describe("npm run evaluate with engine v2 inputs (ENGINE.md §2, §3a)", () => {
       const motion = axis.motion!;
       expect(motion.speedRpm).toBeGreaterThan(0);
       expect(motion.peakTorqueNm).toBeGreaterThanOrEqual(motion.loadTorqueNm);
-      // §3a: the shares of the running hours add up to energizedPct (90 % and the default 100 %).
+      // docs/model.md (Motion from the mechanism): the shares of the running hours add up to energizedPct (90 % and the default 100 %).
       const energized = input.axes.find((a: { id: string }) => a.id === axis.id).duty.motion
         .energizedPct;
       expect(motion.movePct + motion.holdPct).toBeCloseTo(energized ?? 100, 9);

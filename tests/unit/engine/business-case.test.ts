@@ -10,7 +10,7 @@ const hand = (): Json => structuredClone(handCase) as Json;
 const totalOpenLoopCooling = (r: CaseResult) =>
   r.axes.reduce((s, a) => s + a.quantity * a.openLoop.coolingKWhPerYear, 0);
 
-describe("business case (ENGINE.md §8)", () => {
+describe("business case (docs/model.md (The business case))", () => {
   it("capex adds per-unit kit after discount, labor and commissioning, machine downtime and the project cost", () => {
     const result = evaluateCase(fixtureCase);
     // M1-X: 2 × (189 + 1.5·85 + 40); M1-Z: 249·0.9 + 2·85; M2-FEED: 3 × (129 + 85);
@@ -108,7 +108,7 @@ describe("business case (ENGINE.md §8)", () => {
   });
 });
 
-describe("sensitivity (ENGINE.md §8)", () => {
+describe("sensitivity (docs/model.md (The business case))", () => {
   const result = evaluateCase(fixtureCase);
   const swing = (row: CaseResult["sensitivity"][number]) =>
     new Money(row.high.npv).minus(row.low.npv).abs();
@@ -181,7 +181,7 @@ describe("sensitivity (ENGINE.md §8)", () => {
   });
 });
 
-describe("rounding for display and export (ENGINE.md §1)", () => {
+describe("rounding for display and export (docs/contracts.md (Numbers and money))", () => {
   it("rounds half-even to the currency's minor unit (ISO 4217)", () => {
     expect(roundMoney("2.345", "EUR")).toBe("2.34");
     expect(roundMoney("2.355", "EUR")).toBe("2.36");
@@ -192,7 +192,7 @@ describe("rounding for display and export (ENGINE.md §1)", () => {
 });
 
 describe("sensitivity order when two drivers swing NPV equally", () => {
-  it("keeps ENGINE.md §8's listed order (tariff before hours) whatever the float noise", () => {
+  it("keeps docs/model.md (The business case)'s listed order (tariff before hours) whatever the float noise", () => {
     const input = structuredClone(fixtureCase);
     // Without throughput value, tariff and hours per year scale the same cash flows exactly.
     for (const m of input.machines) m.throughputGainPct = 0;

@@ -16,7 +16,7 @@ describe("npm run evaluate (issue 3)", () => {
   it("prints the CaseResult of a valid case as JSON with the engine version", () => {
     const out = run("tests/fixtures/engine-case.json");
     expect(out.status).toBe(0);
-    const result = caseResultSchema.parse(JSON.parse(out.stdout)); // the §9 contract, key by key
+    const result = caseResultSchema.parse(JSON.parse(out.stdout)); // the docs/contracts.md (Case result) contract, key by key
     expect(result.engineVersion).toBe(ENGINE_VERSION);
     expect(result.axes).toHaveLength(3);
     expect(out.stdout).toContain('\n  "currency": "EUR"');

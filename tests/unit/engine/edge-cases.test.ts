@@ -6,8 +6,8 @@ import { evaluateCase } from "@/lib/engine";
 type Json = any;
 const hand = (): Json => structuredClone(handCase) as Json;
 
-describe("edge cases of ENGINE.md", () => {
-  it("thermal runaway (§5, §9): temperature and life factor null, losses at the class-limit resistance", () => {
+describe("edge cases of docs/model.md", () => {
+  it("thermal runaway (docs/model.md (Winding temperature), docs/contracts.md (Case result)): temperature and life factor null, losses at the class-limit resistance", () => {
     const input = hand();
     // 3.6× rated current, always moving slowly (the bus still drives the setting):
     // R_th = 80/(2·2.8²·0.9·(1 + 0.00393·80)) = 4.313 K/W; R_th·A·α = 4.313·(0.9·10²)·0.00393 = 1.53 > 1
@@ -54,7 +54,7 @@ describe("edge cases of ENGINE.md", () => {
     });
   });
 
-  it("a holding demand above I_max alone makes the kit undersized (§4, §7)", () => {
+  it("a holding demand above I_max alone makes the kit undersized (docs/model.md (Currents at the operating point), docs/model.md (Torque margin and speed))", () => {
     const input = hand();
     input.axes[0].duty.holdTorqueNm = 1.5; // above k1·I_max = 1.26 N·m
     const axis = evaluateCase(input).axes[0];
@@ -111,7 +111,7 @@ describe("edge cases of ENGINE.md", () => {
     expect(physics.paybackYears).toBeNull();
   });
 
-  it("sensorless below its minimum speed moves at I_max, holds with today's holding torque, avoids no events and is warned (§4)", () => {
+  it("sensorless below its minimum speed moves at I_max, holds with today's holding torque, avoids no events and is warned (docs/model.md (Currents at the operating point))", () => {
     const input = hand();
     input.axes[0].retrofit.kit.sensing = "sensorless";
     input.axes[0].duty.speedRpm = 30; // below the default 60 rpm
@@ -148,7 +148,7 @@ describe("edge cases of ENGINE.md", () => {
     expect(result.machines[0].warnings).toEqual(["THROUGHPUT_CAPPED"]);
   });
 
-  it("no torque at speed: margin null and the loop short (§7)", () => {
+  it("no torque at speed: margin null and the loop short (docs/model.md (Torque margin and speed))", () => {
     const input = hand();
     input.axes[0].duty.speedRpm = 20000; // back-EMF above the bus: no current
     const axis = evaluateCase(input).axes[0];
@@ -159,7 +159,7 @@ describe("edge cases of ENGINE.md", () => {
     expect(axis.savings.torqueFreedPct).toBeNull();
   });
 
-  it("max speed is 6000 when 6000 rpm still suffices and 0 when standstill falls short (§7)", () => {
+  it("max speed is 6000 when 6000 rpm still suffices and 0 when standstill falls short (docs/model.md (Torque margin and speed))", () => {
     const input = hand();
     Object.assign(input.axes[0].duty, { loadTorqueNm: 0.01, peakTorqueNm: 0.02, speedRpm: 100 });
     Object.assign(input.axes[0].motor, {
@@ -192,7 +192,7 @@ describe("edge cases of ENGINE.md", () => {
     ]);
   });
 
-  it("the band includes its ends (§6)", () => {
+  it("the band includes its ends (docs/model.md (Energy and cooling))", () => {
     const first = evaluateCase(hand()).axes[0].savings.energyPct as number;
     const input = hand();
     input.band = { lowPct: first, highPct: first };

@@ -76,7 +76,7 @@ describe("npm package financial (a port of numpy-financial) as an independent re
   });
 });
 
-describe("payback and ROI (ENGINE.md §8)", () => {
+describe("payback and ROI (docs/model.md (The business case))", () => {
   it("interpolates within the year the cumulative flow turns non-negative", () => {
     // cumulative −100, −60, −10, +40 → (3 − 1) + 10/50 = 2.2 years
     expect(paybackYears(toMoney([-100, 40, 50, 50]), new Money(100))).toBeCloseTo(2.2, 12);

@@ -79,7 +79,7 @@ describe("cost of a step-loss event built from downtime, scrap and restart labou
     ).toBe(true);
   });
 
-  it("a sensorless kit below its minimum speed avoids no events (docs/model.md (Currents at the operating point), §8)", () => {
+  it("a sensorless kit below its minimum speed avoids no events (docs/model.md (Currents at the operating point), docs/model.md (The business case))", () => {
     const input = built();
     input.axes[0].retrofit.kit.sensing = "sensorless";
     input.axes[0].duty.speedRpm = 30; // below the default sensorlessMinRpm of 60

@@ -56,10 +56,10 @@ function caseFor(d: AxisDraw, loadTorqueNm?: number): Json {
   return input;
 }
 
-describe("physical invariants (ENGINE.md §3–§6)", () => {
+describe("physical invariants (docs/model.md (Torque at speed to Energy and cooling))", () => {
   it("open loop where the bus drives the setting: currents, losses and temperature do not depend on the load; energy only through P_mech", () => {
-    // §4 keeps the open-loop current at the setting whatever the load while the bus can drive
-    // it (low speed, high bus); §6 still counts the mechanical power the load draws, so the
+    // docs/model.md (Currents at the operating point) keeps the open-loop current at the setting whatever the load while the bus can drive
+    // it (low speed, high bus); docs/model.md (Energy and cooling) still counts the mechanical power the load draws, so the
     // energy less P_mech/η is what must not move.
     fc.assert(
       fc.property(
@@ -219,7 +219,7 @@ describe("physical invariants (ENGINE.md §3–§6)", () => {
   });
 });
 
-describe("quantity (ENGINE.md §8, §9)", () => {
+describe("quantity (docs/model.md (The business case), docs/contracts.md (Case result))", () => {
   it("doubling every quantity doubles every total and leaves per-unit figures unchanged", () => {
     // Downtime, project cost and throughput are per machine or per case, not per unit: set to 0.
     const base = structuredClone(fixtureCase) as Json;

@@ -13,7 +13,7 @@ const kits: KitInput[] = [
   { id: "big", name: "Invented large kit", price: "400", maxCurrentPeakA: 6 },
 ];
 
-describe("suggestKit (ENGINE.md §4, §7)", () => {
+describe("suggestKit (docs/model.md (Currents at the operating point), docs/model.md (Torque margin and speed))", () => {
   it("picks the cheapest kit whose closed-loop usable torque covers the peak and that is not undersized", () => {
     const { kit, reason } = suggestKit(axis(), kits, {});
     expect(kit?.id).toBe("cheap");
@@ -54,7 +54,7 @@ describe("suggestKit (ENGINE.md §4, §7)", () => {
   });
 });
 
-describe("torqueSpeedCurve (ENGINE.md §3)", () => {
+describe("torqueSpeedCurve (docs/model.md (Torque at speed))", () => {
   it("samples the model from 0 to 6000 rpm, matching the torque at the operating speed", () => {
     const a = axis();
     const curve = torqueSpeedCurve(a, "closed", 21);
@@ -85,7 +85,7 @@ describe("torqueSpeedCurve (ENGINE.md §3)", () => {
   });
 });
 
-describe("a kit's encoder supply (ENGINE.md §2, §6)", () => {
+describe("a kit's encoder supply (docs/contracts.md (Case input), docs/model.md (Energy and cooling))", () => {
   // Off, the closed loop draws only the kit's standby and encoder supply: standbyW 3 by default.
   const offW = (kit: Json) => {
     const input = structuredClone(handCase) as Json;
@@ -98,7 +98,7 @@ describe("a kit's encoder supply (ENGINE.md §2, §6)", () => {
     expect(offW({ sensing: "sensorless" })).toBeCloseTo(3, 12);
   });
 
-  it("uses a value given, like every other default of §2", () => {
+  it("uses a value given, like every other default of docs/contracts.md (Case input)", () => {
     expect(offW({ sensing: "encoder", encoderW: 1.2 })).toBeCloseTo(4.2, 12);
     expect(offW({ sensing: "sensorless", encoderW: 0.8 })).toBeCloseTo(3.8, 12);
   });

@@ -14,8 +14,8 @@ const issuesOf = (input: unknown) => {
   return parsed.success ? [] : formatIssues(parsed.error);
 };
 
-describe("case input schema (ENGINE.md §2)", () => {
-  it("fills every default of §2", () => {
+describe("case input schema (docs/contracts.md (Case input))", () => {
+  it("fills every default of docs/contracts.md (Case input)", () => {
     const parsed = caseInputSchema.parse(hand());
     expect(parsed.finance).toMatchObject({
       tariffEscalationPct: 0,

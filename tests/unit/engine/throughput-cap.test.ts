@@ -40,7 +40,7 @@ function capabilityOf(d: Draw): Capability {
   };
 }
 
-describe("the throughput cap's headroom (ENGINE.md §7–§8)", () => {
+describe("the throughput cap's headroom (docs/model.md (Torque margin and speed to The business case))", () => {
   it("caps the gain exactly as the full bisection does: min(gain, headroom) is the same", () => {
     fc.assert(
       fc.property(drawArb, (d) => {

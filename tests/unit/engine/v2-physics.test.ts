@@ -362,7 +362,7 @@ describe("torque at speed with a free current angle (docs/model.md (Torque at sp
   });
 });
 
-describe("currents at the operating point and holding (docs/model.md (Currents at the operating point), §5, §7)", () => {
+describe("currents at the operating point and holding (docs/model.md (Currents at the operating point), docs/model.md (Winding temperature), docs/model.md (Torque margin and speed))", () => {
   it("the default thermal resistance reproduces the datasheet rise exactly (common practice: the rise a datasheet states)", () => {
     const input = hand();
     Object.assign(input.axes[0].drive, {

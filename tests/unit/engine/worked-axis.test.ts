@@ -3,7 +3,7 @@ import handCase from "@/tests/fixtures/engine-hand-case.json";
 import { evaluateCase } from "@/lib/engine";
 
 /*
- * One axis worked step by step from the written model (docs/model.md (Torque at speed)–§8), independently of
+ * One axis worked step by step from the written model (docs/model.md (Torque at speed to The business case)), independently of
  * the engine's code: plain formulas, no shortcuts, one line per rule.
  * Invented NEMA 23 class motor: T_H 1.26 N·m, I_R 2.8 A, R20 0.9 Ω, L 3.2 mH, Nr 50,
  * kh 0.004 W/Hz, ke 2e-6 W/Hz². Drive 48 V, 2.8 A peak, micro, idle 50 %, η 90 %, standby 2 W.
@@ -51,7 +51,7 @@ const torqueAt = (iLim: number, r: number, rpm: number) => {
   const dragAt = rpm > 0 ? (0.004 * f + 2e-6 * f * f) / w : 0;
   return Math.max(0, k1 * Math.max(0, iqMax(iLim, r, rpm)) - dragAt);
 };
-/** The §7 bisection on usable torque against the peak. */
+/** The docs/model.md (Torque margin and speed) bisection on usable torque against the peak. */
 function maxSpeed(iLim: number, r: number, share: number): number {
   const ok = (rpm: number) => torqueAt(iLim, r, rpm) * share >= 0.45;
   if (!ok(0)) return 0;
@@ -92,7 +92,7 @@ const clIn = {
 const clE = (4000 * (0.4 * clIn.move + 0.4 * clIn.hold + 0.2 * clIn.off)) / 1000;
 const clTorque = torqueAt(iMax, clR, n);
 
-describe("one axis worked step by step from the model (docs/model.md (Torque at speed)–§8)", () => {
+describe("one axis worked step by step from the model (docs/model.md (Torque at speed to The business case))", () => {
   it("open loop: the bus drives the setting at 300 rpm; temperature, losses, power, energy", () => {
     const o = axis.openLoop;
     expect(o.currentMoveA).toBe(2.8);

@@ -45,7 +45,7 @@ describe("import fields and the axes table", () => {
     }
   });
 
-  it("the figures ENGINE.md §3a derives from motion are the ones required only without a mechanism", () => {
+  it("the figures docs/model.md (Motion from the mechanism) derives from motion are the ones required only without a mechanism", () => {
     expect(IMPORT_FIELDS.filter((f) => f.requiredUnlessMotion).map((f) => f.key)).toEqual([
       "movePct",
       "holdPct",
@@ -55,7 +55,7 @@ describe("import fields and the axes table", () => {
     ]);
   });
 
-  it("the defaults are the table's defaults (ENGINE.md §2)", () => {
+  it("the defaults are the table's defaults (docs/contracts.md (Case input))", () => {
     for (const field of IMPORT_FIELDS) {
       if (field.default === undefined) continue;
       const column = columns[field.key as keyof typeof columns];

@@ -8,7 +8,7 @@ import { validateRows, type ValidatedAxis } from "@/lib/import/validate";
 
 const site = { hoursPerYear: 5000, ambientC: 30 };
 
-// An invented NEMA 23 motor and drive; the duty comes from a vertical screw (ENGINE.md §3a).
+// An invented NEMA 23 motor and drive; the duty comes from a vertical screw (docs/model.md (Motion from the mechanism)).
 const MOTOR: Record<string, string> = {
   Machine: "Tray loader 1",
   "Axis label": "Z lift",
@@ -66,7 +66,7 @@ const engineAxis = ({ sourceRow, machineName: _m, ...axis }: ValidatedAxis) =>
     DEFAULT_RETROFIT_TERMS,
   );
 
-describe("importing an axis by its mechanism and move (ENGINE.md §3a)", () => {
+describe("importing an axis by its mechanism and move (docs/model.md (Motion from the mechanism))", () => {
   it("builds the motion object; the typed duty columns may be absent, and the engine gets motion instead", () => {
     const result = check(motionHeaders(), { ...MOTOR, ...SCREW });
     expect(result.errors).toEqual([]);
@@ -232,7 +232,7 @@ describe("importing an axis by its mechanism and move (ENGINE.md §3a)", () => {
   });
 });
 
-describe("importing the build-up of a step-loss event (ENGINE.md §8)", () => {
+describe("importing the build-up of a step-loss event (docs/model.md (The business case))", () => {
   const EVENT: Record<string, string> = {
     "Downtime per step-loss event [min]": "20",
     "Scrap parts per step-loss event": "3",

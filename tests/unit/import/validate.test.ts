@@ -367,7 +367,7 @@ describe("header faults", () => {
   });
 });
 
-describe("agreement with the engine's input schema (ENGINE.md §2)", () => {
+describe("agreement with the engine's input schema (docs/contracts.md (Case input))", () => {
   // The same row → AxisInput mapping the cases use (db/queries/case-input.ts), so the property
   // covers the path an imported axis really takes into the engine.
   const asEngineAxis = ({ sourceRow, machineName: _machine, ...axis }: ValidatedAxis) =>

@@ -26,7 +26,7 @@ describe("Loopshift's messages", () => {
     expect(mail.text).toContain(url);
     expect(mail.html).toContain(`href="${url}"`);
     expect(mail.text).toContain("until 8 January 2027");
-    // Money as the screen shows it: rounded half-even to the cent (ENGINE.md §1).
+    // Money as the screen shows it: rounded half-even to the cent (docs/contracts.md (Numbers and money)).
     expect(mail.text).toContain("€12,345.68");
     expect(mail.text).toContain("18 months");
   });

@@ -67,7 +67,7 @@ describe("the method page and docs/model.md", () => {
     ]) {
       expect(sources, source).toContain(source);
     }
-    // The defaults of ENGINE.md that it calls common practice say so.
+    // the defaults of docs/model.md that it calls common practice say so.
     const margins = METHOD_DEFAULTS.filter((d) => d.setting.startsWith("Required margin"));
     expect(margins.every((d) => d.basis.startsWith("common practice"))).toBe(true);
   });

@@ -14,7 +14,7 @@ describe("results by axis", () => {
     expect(z.closedLoop.detail).toMatch(/\(needs 15 %\)$/);
   });
 
-  it("covers every status of ENGINE.md §7", () => {
+  it("covers every status of docs/model.md (Torque margin and speed)", () => {
     const loop = result.axes[0].openLoop;
     expect(loopStatus({ ...loop, status: "step-loss" }, 40)).toMatchObject({
       words: "Loses steps",

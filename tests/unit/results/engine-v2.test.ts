@@ -82,7 +82,7 @@ function storedV1(): CaseResult {
   return { ...json, engineVersion: "1.0.0" };
 }
 
-describe("payback in plain words (ENGINE.md §8 payback status)", () => {
+describe("payback in plain words (docs/model.md (The business case) payback status)", () => {
   it("a payback inside the horizon reads as its time, within the horizon", () => {
     const s = scenario({ paybackYears: 1.25 });
     expect(paybackStatusWords(s)).toBe("within the horizon");
@@ -118,7 +118,7 @@ function strip(s: Scenario): Scenario {
   return copy as Scenario;
 }
 
-describe("break-even values in words (ENGINE.md §8)", () => {
+describe("break-even values in words (docs/model.md (The business case))", () => {
   it("states the break-even tariff to a tenth of a cent, beside today's", () => {
     const [tariff] = breakEvenLines(withV2({}), "0.21")!;
     expect(tariff.value).toBe("breaks even at €0.0831/kWh");
@@ -182,7 +182,7 @@ describe("break-even values in words (ENGINE.md §8)", () => {
   });
 });
 
-describe("value by source (ENGINE.md §8)", () => {
+describe("value by source (docs/model.md (The business case))", () => {
   it("lists the sources that carry money, with totals, and the cash flow they add up to", () => {
     const s = scenario({
       bySource: {
@@ -207,7 +207,7 @@ describe("value by source (ENGINE.md §8)", () => {
   });
 });
 
-describe("motion and holding (ENGINE.md §3a, §7)", () => {
+describe("motion and holding (docs/model.md (Motion from the mechanism), docs/model.md (Torque margin and speed))", () => {
   const motion: MotionResult = {
     speedRpm: 1280,
     loadTorqueNm: 0.41,

@@ -10,7 +10,7 @@ import {
 } from "@/lib/results/format";
 
 describe("money and figures on screen", () => {
-  it("rounds money half-even to the currency's minor unit before display (ENGINE.md §1)", () => {
+  it("rounds money half-even to the currency's minor unit before display (docs/contracts.md (Numbers and money))", () => {
     expect(formatMoney("0.125", "EUR")).toBe("€0.12");
     expect(formatMoney("0.135", "EUR")).toBe("€0.14");
     expect(formatMoney("5649.1", "EUR")).toBe("€5,649.10");
@@ -43,7 +43,7 @@ describe("money and figures on screen", () => {
     expect(formatIrr({ irr: 0.1234, cashFlows: ["-100", "60", "60"] })).toBe("12.3 %");
   });
 
-  it("tells an IRR beyond the 1,000 % searched from flows that never repay (ENGINE.md §8)", () => {
+  it("tells an IRR beyond the 1,000 % searched from flows that never repay (docs/model.md (The business case))", () => {
     // Repaid fifty times over in a year: the engine finds no root up to 1,000 % and says null.
     const fast = ["-100", "5000", "5000"];
     expect(irr(fast.map((f) => new Decimal(f)))).toBeNull();

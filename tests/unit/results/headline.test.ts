@@ -52,7 +52,7 @@ describe("headline figures by scenario", () => {
 });
 
 describe("band position", () => {
-  it("counts both ends of the band as inside (ENGINE.md §6)", () => {
+  it("counts both ends of the band as inside (docs/model.md (Energy and cooling))", () => {
     const band = { lowPct: 25, highPct: 50 };
     expect(bandPosition(25, band)).toBe("within");
     expect(bandPosition(50, band)).toBe("within");

@@ -7,7 +7,7 @@ describe("torque–speed curves", () => {
   const [gantry, , feed] = input.axes;
   const view = torqueSpeedView(gantry, input.margins);
 
-  it("draws the usable torque as T·(1 − required/100) of each loop (ENGINE.md §7)", () => {
+  it("draws the usable torque as T·(1 − required/100) of each loop (docs/model.md (Torque margin and speed))", () => {
     view.open.forEach((p, i) => {
       expect(view.openUsable[i].rpm).toBe(p.rpm);
       expect(view.openUsable[i].torqueNm).toBeCloseTo(p.torqueNm * 0.6, 12);

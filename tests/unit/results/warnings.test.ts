@@ -11,7 +11,7 @@ import {
 import { input, result } from "./fixture";
 
 describe("warnings in words", () => {
-  it("explains every warning code of ENGINE.md §9 in one plain sentence", () => {
+  it("explains every warning code of docs/contracts.md (Case result) in one plain sentence", () => {
     for (const code of [...AXIS_WARNINGS, ...MACHINE_WARNINGS]) {
       const sentence = WARNING_SENTENCES[code];
       expect(sentence, code).toMatch(/^[A-Z].*\.$/);

@@ -3,8 +3,8 @@ import { columnLetter } from "@/lib/workbook/layout";
 import { buildWorkbookOf, formulaOf, sheetOf } from "./fixture-workbook";
 
 // The Cash flow sheet is what a finance reviewer audits: every year of every scenario is a
-// formula over the inputs (ENGINE.md §8), never a typed number.
-describe("Cash flow sheet formulas (ENGINE.md §8)", () => {
+// formula over the inputs (docs/model.md (The business case)), never a typed number.
+describe("Cash flow sheet formulas (docs/model.md (The business case))", () => {
   it("starts each scenario at −Capex and takes every year from the sum of its value by source", async () => {
     const { workbook } = await buildWorkbookOf();
     const sheet = sheetOf(workbook, "Cash flow");

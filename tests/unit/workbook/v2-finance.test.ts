@@ -18,7 +18,7 @@ const cachedByName = (workbook: ExcelJS.Workbook, name: string) => {
   return sheetOf(workbook, sheet).getCell(address).result;
 };
 
-describe("straight-line depreciation against LibreOffice's SLN (REFERENCES.md)", () => {
+describe("straight-line depreciation against LibreOffice's SLN (docs/model.md (Sources of the check values))", () => {
   it("the definition: SLN(50000, 3500, 84) = 553.57 a month (LibreOffice Calc help's example, from memory)", () => {
     expect(sln(50000, 3500, 84).toFixed(2)).toBe("553.57");
   });
