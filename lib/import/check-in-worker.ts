@@ -1,3 +1,4 @@
+import os from "node:os";
 import path from "node:path";
 import { Worker } from "node:worker_threads";
 import { ImportFileError } from "./errors";
@@ -12,7 +13,8 @@ import type { CheckFileReply, CheckFileRequest } from "./worker/check-file-worke
  * one that runs out of it or takes too long is ended and the file refused with a 413.
  */
 export const PARSE_LIMITS = {
-  workers: 2,
+  /** One core is left to the thread that answers requests. */
+  workers: Math.max(1, os.availableParallelism() - 1),
   waiting: 8,
   /** Old-generation heap of one worker; a 20,000-row workbook of every column needs ~150 MB. */
   heapMb: 384,
@@ -65,7 +67,7 @@ function endTurn(): void {
 function startWorker(): Worker {
   return new Worker(workerSource(), {
     eval: true,
-    resourceLimits: { maxOldGenerationSizeMb: PARSE_LIMITS.heapMb },
+    resourceLimits: { maxOldGenerationSizeMb: PARSE_LIMITS.heapMb, maxYoungGenerationSizeMb: 48 },
     stdout: false,
     stderr: false,
   });

@@ -134,7 +134,6 @@ async function readXlsx(bytes: Uint8Array, fileName: string): Promise<SheetData[
       sheets.push(await readWorksheetStream(worksheet, fileName));
   } catch (error) {
     if (error instanceof ImportFileError) throw error;
-    if (process.env.DEBUG_IMPORT) console.error(error);
     throw new ImportFileError(
       422,
       `"${fileName}" looks like an Excel workbook but cannot be read; open it in Excel, save it again as .xlsx and upload that`,

@@ -1,3 +1,5 @@
+import fs from "node:fs";
+import os from "node:os";
 import { parentPort } from "node:worker_threads";
 import { ImportFileError } from "../errors";
 import { checkImportFile } from "../run-import";
@@ -13,6 +15,16 @@ export type CheckFileReply =
   | { ok: true; value: Awaited<ReturnType<typeof checkImportFile>> }
   | { ok: false; refusal: { status: ImportFileError["status"]; message: string } }
   | { ok: false; failure: string };
+
+// A lower scheduling priority for this thread alone (Linux gives each thread its own nice value,
+// and /proc/thread-self names it): when the cores are busy, requests are answered first and the
+// file is read in the time left. Elsewhere the worker keeps the process's priority.
+try {
+  const threadId = Number(fs.readlinkSync("/proc/thread-self").split("/").pop());
+  if (threadId > 0) os.setPriority(threadId, 10);
+} catch {
+  // not Linux, or not allowed: no change
+}
 
 // The body of an import worker (lib/import/check-in-worker.ts): it reads one file at a time, off
 // the thread that answers requests, and replies with the result or the refusal's message.
