@@ -65,12 +65,21 @@ function endTurn(): void {
 }
 
 function startWorker(): Worker {
-  return new Worker(workerSource(), {
+  const worker = new Worker(workerSource(), {
     eval: true,
     resourceLimits: { maxOldGenerationSizeMb: PARSE_LIMITS.heapMb, maxYoungGenerationSizeMb: 48 },
     stdout: false,
     stderr: false,
   });
+  // A worker that ends while parked (it should not) is never handed another file.
+  worker.on("exit", () => {
+    const at = idle.findIndex((w) => w.worker === worker);
+    if (at >= 0) {
+      clearTimeout(idle[at]!.timer);
+      idle.splice(at, 1);
+    }
+  });
+  return worker;
 }
 
 function park(worker: Worker): void {

@@ -16,12 +16,13 @@ export type CheckFileReply =
   | { ok: false; refusal: { status: ImportFileError["status"]; message: string } }
   | { ok: false; failure: string };
 
-// A lower scheduling priority for this thread alone (Linux gives each thread its own nice value,
-// and /proc/thread-self names it): when the cores are busy, requests are answered first and the
-// file is read in the time left. Elsewhere the worker keeps the process's priority.
+// A somewhat lower scheduling priority for this thread alone (Linux gives each thread its own
+// nice value, and /proc/thread-self names it): when the cores are busy, requests are answered
+// first. Nice 5 rather than more: the machine's other work must not starve the read past its
+// time limit. Elsewhere the worker keeps the process's priority.
 try {
   const threadId = Number(fs.readlinkSync("/proc/thread-self").split("/").pop());
-  if (threadId > 0) os.setPriority(threadId, 10);
+  if (threadId > 0) os.setPriority(threadId, 5);
 } catch {
   // not Linux, or not allowed: no change
 }
