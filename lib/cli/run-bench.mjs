@@ -14,6 +14,7 @@ for (const [name, title] of [
   ["bench-installed-base", "Installed base and import"],
   ["bench-cases", "Cases: workbook and result route"],
   ["bench-dossier", "Dossier: 500 axes, 1,000 draws, workbook"],
+  ["bench-hostile-upload", "Hostile workbook uploads: time, server memory, other requests"],
 ]) {
   // `npm run bench -- bench-cases` runs one of them.
   if (process.argv[2] && process.argv[2] !== name) continue;

@@ -1,8 +1,8 @@
-import { Readable } from "node:stream";
+import type { Readable } from "node:stream";
 import ExcelJS from "exceljs";
 import { parseCsv } from "./csv";
 import { ImportFileError } from "./errors";
-import { assertSafeZip } from "./zip-guard";
+import { assertSafeZip, openPart, type ZipEntry } from "./zip-guard";
 
 /** Data rows a sheet may hold (rows with any non-blank cell, the header not counted). */
 export const MAX_DATA_ROWS = 20_000;
@@ -115,8 +115,8 @@ function checkRowCount(sheet: SheetData, fileName: string, kind: WorkbookData["k
 }
 
 async function readXlsx(bytes: Uint8Array, fileName: string): Promise<SheetData[]> {
-  const entries = assertSafeZip(bytes, fileName);
-  if (!entries.some((e) => e.name.replace(/^\//, "") === "xl/workbook.xml")) {
+  const entries = await assertSafeZip(bytes, fileName);
+  if (!entries.some((e) => partName(e) === "xl/workbook.xml")) {
     throw notASpreadsheet(
       fileName,
       "a zip archive without a workbook inside (a document or another archive)",
@@ -127,13 +127,7 @@ async function readXlsx(bytes: Uint8Array, fileName: string): Promise<SheetData[
   // file is unpacked or parsed (a full load of a 200 MB workbook took seconds and ~750 MB).
   // exceljs reads cell values and formulas only: it runs no macros (vbaProject.bin is not
   // parsed) and fetches nothing an external link points to.
-  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from([Buffer.from(bytes)]), {
-    sharedStrings: "cache",
-    styles: "cache",
-    hyperlinks: "ignore",
-    worksheets: "emit",
-    entries: "ignore",
-  });
+  const reader = new CappedWorkbookReader(bytes, entries, fileName);
   const sheets: SheetData[] = [];
   try {
     for await (const worksheet of reader)
@@ -146,6 +140,115 @@ async function readXlsx(bytes: Uint8Array, fileName: string): Promise<SheetData[
     );
   }
   return sheets;
+}
+
+/**
+ * Limits on the unpacked XML handed to the sheet reader, checked as it streams. The shared
+ * strings part is held whole (cells refer to its strings by index), so it has its own, smaller
+ * caps: 20,000 rows of every import column as distinct texts stay well inside both.
+ */
+export const XML_LIMITS = {
+  maxSharedStringsBytes: 32_000_000,
+  maxSharedStrings: 1_000_000,
+  maxWorksheetBytes: 100_000_000,
+} as const;
+
+const partName = (entry: ZipEntry) => entry.name.replace(/^\//, "");
+const WORKSHEET = /^xl\/worksheets\/sheet(\d+)\.xml$/;
+const millions = (n: number) => `${(n / 1_000_000).toLocaleString("en-US")} million`;
+const megabytes = (n: number) => `${Math.round(n / 1_000_000)} MB`;
+
+// The parts of exceljs's streaming reader that it runs for each zip part (not in its typings).
+interface ReaderInternals {
+  sharedStrings?: unknown[];
+  _parseRels(entry: Readable): Promise<void>;
+  _parseWorkbook(entry: Readable): Promise<void>;
+  _parseStyles(entry: Readable): Promise<void>;
+  _parseSharedStrings(entry: Readable): AsyncGenerator<unknown>;
+  _parseWorksheet(iterator: Readable, sheetNo: string): Generator<unknown>;
+}
+
+/**
+ * exceljs's streaming reader, fed from the zip directory the guard has checked instead of its
+ * own pass over the local headers. Its own pass meets the parts in the order they were zipped;
+ * Excel zips the sheets before the shared strings, so it copied every sheet whole to a temporary
+ * file before reading a row. Here the shared strings come first, then each sheet straight from
+ * the inflater, and every part streams through a running byte count that stops it at its cap.
+ */
+class CappedWorkbookReader extends ExcelJS.stream.xlsx.WorkbookReader {
+  constructor(
+    private readonly bytes: Uint8Array,
+    private readonly entries: readonly ZipEntry[],
+    private readonly fileName: string,
+  ) {
+    super(null as unknown as Readable, {
+      sharedStrings: "cache",
+      styles: "cache",
+      hyperlinks: "ignore",
+      worksheets: "emit",
+      entries: "ignore",
+    });
+  }
+
+  private open(name: string, cap?: Parameters<typeof openPart>[3]): Readable | null {
+    const entry = this.entries.find((e) => partName(e) === name);
+    return entry ? openPart(this.bytes, entry, this.fileName, cap) : null;
+  }
+
+  async *parse(): AsyncGenerator<{ eventType: string; value: unknown }> {
+    const self = this as unknown as ReaderInternals;
+    const { fileName } = this;
+    const rels = this.open("xl/_rels/workbook.xml.rels");
+    if (rels) await self._parseRels(rels);
+    const workbook = this.open("xl/workbook.xml");
+    if (workbook) await self._parseWorkbook(workbook);
+    const styles = this.open("xl/styles.xml");
+    if (styles) await self._parseStyles(styles);
+
+    const stringsCapError = () =>
+      new ImportFileError(
+        413,
+        `"${fileName}" holds more than ${megabytes(XML_LIMITS.maxSharedStringsBytes)} of shared text (xl/sharedStrings.xml); the limit is ${megabytes(XML_LIMITS.maxSharedStringsBytes)} — remove long texts and unused sheets, or split the file`,
+      );
+    // The strings are cached as they stream: their bytes are capped, and their number is checked
+    // at every chunk.
+    const strings = this.open("xl/sharedStrings.xml", {
+      bytes: XML_LIMITS.maxSharedStringsBytes,
+      error: stringsCapError,
+      check: () =>
+        (self.sharedStrings?.length ?? 0) > XML_LIMITS.maxSharedStrings
+          ? new ImportFileError(
+              413,
+              `"${fileName}" holds more than ${millions(XML_LIMITS.maxSharedStrings)} distinct texts (xl/sharedStrings.xml); the limit is ${millions(XML_LIMITS.maxSharedStrings)} — remove unused sheets, or split the file`,
+            )
+          : null,
+    });
+    if (strings) {
+      for await (const event of self._parseSharedStrings(strings)) void event;
+    }
+
+    for (const entry of this.entries) {
+      const match = WORKSHEET.exec(partName(entry));
+      if (!match) continue;
+      const sheet = openPart(this.bytes, entry, fileName, {
+        bytes: XML_LIMITS.maxWorksheetBytes,
+        error: () =>
+          new ImportFileError(
+            413,
+            `A sheet of "${fileName}" (${partName(entry)}) unpacks to more than ${megabytes(XML_LIMITS.maxWorksheetBytes)}; the limit is ${megabytes(XML_LIMITS.maxWorksheetBytes)} — remove unused columns and formatting, or split the file`,
+          ),
+      });
+      try {
+        yield* self._parseWorksheet(sheet, match[1]!) as Generator<{
+          eventType: string;
+          value: unknown;
+        }>;
+      } finally {
+        // A sheet left unread (a refusal at its row cap) stops inflating at once.
+        sheet.destroy();
+      }
+    }
+  }
 }
 
 /** Text a sheet's cells may hold in all: 20,000 rows of every import column is some 10 MB. */

@@ -1,4 +1,5 @@
-import { inflateRawSync } from "node:zlib";
+import { Readable, Transform } from "node:stream";
+import { createInflateRaw } from "node:zlib";
 import { ImportFileError } from "./errors";
 
 /**
@@ -148,36 +149,97 @@ function refuseDeclaredSizes(entries: readonly ZipEntry[], fileName: string): vo
   }
 }
 
+const tooLarge = (fileName: string, entry: ZipEntry) =>
+  new ImportFileError(
+    413,
+    `"${fileName}" unpacks to more than its zip directory declares (part ${entry.name}); that is not an ordinary workbook — save the sheet again from Excel as .xlsx or as CSV UTF-8`,
+  );
+
+/** Compressed bytes are fed to the inflater in slices this size, so no step holds much. */
+const SLICE_BYTES = 64 * 1024;
+
+/**
+ * One part's unpacked bytes as a stream, inflated a slice at a time with a running count: the
+ * stream fails with a 413 at the byte that passes the part's declared size (or `capBytes` with
+ * `capError`, when smaller), so a lying part stops there instead of filling the memory. Nothing
+ * but the slice in flight is held.
+ */
+export function openPart(
+  bytes: Uint8Array,
+  entry: ZipEntry,
+  fileName: string,
+  cap?: {
+    bytes: number;
+    error: () => ImportFileError;
+    /** Checked at every chunk: a refusal that depends on what the reader made of the part so far. */
+    check?: () => ImportFileError | null;
+  },
+): Readable {
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const at = entry.localHeaderOffset;
+  if (at + 30 > view.byteLength || view.getUint32(at, true) !== LOCAL_HEADER) {
+    throw damaged(fileName, `part ${entry.name} is missing`);
+  }
+  const start = at + 30 + view.getUint16(at + 26, true) + view.getUint16(at + 28, true);
+  const data = bytes.subarray(start, start + entry.compressedSize);
+  if (entry.method === 0 && entry.compressedSize !== entry.uncompressedSize)
+    throw damaged(fileName, `part ${entry.name} has a wrong size`);
+  if (entry.method !== 0 && entry.method !== 8)
+    throw damaged(fileName, `part ${entry.name} uses a compression Excel does not write`);
+
+  function* slices() {
+    for (let i = 0; i < data.length; i += SLICE_BYTES)
+      yield Buffer.from(data.buffer, data.byteOffset + i, Math.min(SLICE_BYTES, data.length - i));
+  }
+  const source = Readable.from(slices(), { objectMode: false });
+  let seen = 0;
+  const counter = new Transform({
+    transform(chunk: Buffer, _encoding, done) {
+      seen += chunk.length;
+      if (seen > entry.uncompressedSize) return done(tooLarge(fileName, entry));
+      if (cap && seen > cap.bytes) return done(cap.error());
+      const refusal = cap?.check?.();
+      if (refusal) return done(refusal);
+      done(null, chunk);
+    },
+  });
+  const stop = (error: Error) => {
+    source.destroy();
+    inflater?.destroy();
+    counter.destroy(error);
+  };
+  const inflater = entry.method === 8 ? createInflateRaw({ chunkSize: SLICE_BYTES }) : null;
+  if (inflater) {
+    inflater.on("error", () => stop(damaged(fileName, `part ${entry.name} cannot be unpacked`)));
+    source.pipe(inflater).pipe(counter);
+  } else {
+    source.pipe(counter);
+  }
+  // A refusal from the counter stops the inflating too: nothing runs on after the cap.
+  counter.on("error", () => {
+    source.destroy();
+    inflater?.destroy();
+  });
+  return counter;
+}
+
 /**
  * Every part's stored bytes unpack to no more than its directory claims: a directory can lie, and
- * the zip reader exceljs uses trusts it. Each part is inflated with a cap at its declared size
- * and the output dropped, so a lying part stops at the cap instead of filling the memory.
+ * a zip reader that trusts it can be made to unpack far more. Each part is streamed through the
+ * inflater with a running count (openPart) and the output dropped, so a lying part stops at its
+ * declared size and no whole part is ever held in memory.
  */
-function refuseLyingSizes(bytes: Uint8Array, entries: readonly ZipEntry[], fileName: string): void {
-  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+async function refuseLyingSizes(
+  bytes: Uint8Array,
+  entries: readonly ZipEntry[],
+  fileName: string,
+): Promise<void> {
   for (const entry of entries) {
-    const at = entry.localHeaderOffset;
-    if (at + 30 > view.byteLength || view.getUint32(at, true) !== LOCAL_HEADER) {
-      throw damaged(fileName, `part ${entry.name} is missing`);
-    }
-    const start = at + 30 + view.getUint16(at + 26, true) + view.getUint16(at + 28, true);
-    const data = bytes.subarray(start, start + entry.compressedSize);
-    if (entry.method === 0) {
-      if (entry.compressedSize !== entry.uncompressedSize)
-        throw damaged(fileName, `part ${entry.name} has a wrong size`);
-      continue;
-    }
-    if (entry.method !== 8)
-      throw damaged(fileName, `part ${entry.name} uses a compression Excel does not write`);
+    const part = openPart(bytes, entry, fileName);
     try {
-      inflateRawSync(data, { maxOutputLength: Math.max(entry.uncompressedSize, 1) });
+      for await (const chunk of part) void chunk;
     } catch (error) {
-      if ((error as { code?: string }).code === "ERR_BUFFER_TOO_LARGE") {
-        throw new ImportFileError(
-          413,
-          `"${fileName}" unpacks to more than its zip directory declares (part ${entry.name}); that is not an ordinary workbook — save the sheet again from Excel as .xlsx or as CSV UTF-8`,
-        );
-      }
+      if (error instanceof ImportFileError) throw error;
       throw damaged(fileName, `part ${entry.name} cannot be unpacked`);
     }
   }
@@ -187,9 +249,9 @@ function refuseLyingSizes(bytes: Uint8Array, entries: readonly ZipEntry[], fileN
  * Refuses a zip before anything unpacks it in full: first on the sizes its directory declares
  * (total and ratio), then on parts that unpack to more than declared. Returns the entries.
  */
-export function assertSafeZip(bytes: Uint8Array, fileName: string): ZipEntry[] {
+export async function assertSafeZip(bytes: Uint8Array, fileName: string): Promise<ZipEntry[]> {
   const entries = readZipDirectory(bytes, fileName);
   refuseDeclaredSizes(entries, fileName);
-  refuseLyingSizes(bytes, entries, fileName);
+  await refuseLyingSizes(bytes, entries, fileName);
   return entries;
 }

@@ -79,11 +79,13 @@ const workbookXml = Buffer.from('<?xml version="1.0"?><workbook/>');
 /** Spies on exceljs's xlsx reader, to tell whether a file got as far as being unpacked by it. */
 // The import streams the workbook (ExcelJS.stream.xlsx.WorkbookReader, issue 13); its parse
 // is where exceljs starts to unpack.
+// exceljs starts a workbook by reading its workbook part: not called means nothing was unpacked
+// for it (the zip guard refused the file first).
 function spyOnXlsxLoad() {
   const proto = ExcelJS.stream.xlsx.WorkbookReader.prototype as unknown as {
-    parse: (...a: unknown[]) => unknown;
+    _parseWorkbook: (...a: unknown[]) => unknown;
   };
-  return vi.spyOn(proto, "parse");
+  return vi.spyOn(proto, "_parseWorkbook");
 }
 
 afterEach(() => {

@@ -5,7 +5,7 @@ import { jsonError, withApi } from "@/lib/api/handler";
 import { idFromRoute } from "@/lib/api/params";
 import { requireRole } from "@/lib/auth";
 import { ImportFileError, type MappingOverride } from "@/lib/import";
-import { checkImportFile } from "@/lib/import/run-import";
+import { checkImportFileInWorker } from "@/lib/import/check-in-worker";
 
 export const MAX_IMPORT_BYTES = 10 * 1024 * 1024;
 
@@ -57,11 +57,17 @@ export const POST = withApi(
       if (file.size > MAX_IMPORT_BYTES)
         return jsonError(413, "The file is larger than 10 MB; split it into smaller files");
       const dryRun = parseDryRun(form.get("dryRun"));
-      const checked = await checkImportFile(new Uint8Array(await file.arrayBuffer()), file.name, {
-        sheet: form.get("sheet") ? String(form.get("sheet")) : undefined,
-        mapping: parseMapping(form.get("mapping")),
-        site,
-      });
+      // Read in a worker thread (lib/import/check-in-worker.ts): a large file does not hold up
+      // the requests of other users while it is read.
+      const checked = await checkImportFileInWorker(
+        new Uint8Array(await file.arrayBuffer()),
+        file.name,
+        {
+          sheet: form.get("sheet") ? String(form.get("sheet")) : undefined,
+          mapping: parseMapping(form.get("mapping")),
+          site,
+        },
+      );
       const { result } = checked;
       const facts = {
         fileName: file.name,
