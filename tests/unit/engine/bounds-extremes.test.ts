@@ -46,48 +46,53 @@ const whole = (min: number, max: number) =>
 const wholeField = (key: BoundedField) => whole(FIELD_BOUNDS[key].min, FIELD_BOUNDS[key].max);
 const pct = span(0, 100);
 const efficiencyPct = field("efficiencyPct");
-const below100 = fc.oneof(fc.constantFrom(0, 100 - 1e-9), fc.double({ min: 0, max: 99.999, noNaN: true }));
+const below100 = fc.oneof(
+  fc.constantFrom(0, 100 - 1e-9),
+  fc.double({ min: 0, max: 99.999, noNaN: true }),
+);
 const money = fc.oneof(
   { weight: 3, arbitrary: fc.constantFrom("0", MONEY_MAX, "0.01") },
   fc.integer({ min: 0, max: 1_000_000_000 }).map(String),
 );
 const maybe = <T>(arb: fc.Arbitrary<T>) => fc.option(arb, { nil: undefined });
 
-const motor = fc.record(
-  {
-    rotorTeeth: wholeField("rotorTeeth"),
-    holdingTorqueNm: field("holdingTorqueNm"),
-    ratedCurrentA: field("ratedCurrentA"),
-    phaseResistanceOhm: field("phaseResistanceOhm"),
-    phaseInductanceMh: field("phaseInductanceMh"),
-    thermalResistanceKPerW: maybe(field("thermalResistanceKPerW")),
-    ratedTempRiseK: field("ratedTempRiseK"),
-    insulationClass: fc.constantFrom("B", "F", "H"),
-    hysteresisWPerHz: field("hysteresisWPerHz"),
-    eddyWPerHz2: field("eddyWPerHz2"),
-    pullOutCurve: maybe(
-      fc
-        .tuple(field("speedRpm"), field("speedRpm"), field("dutyTorqueNm"), field("dutyTorqueNm"))
-        .map(([a, b, ta, tb]) =>
-          a === b
-            ? [{ rpm: a, torqueNm: ta }]
-            : [
-                { rpm: Math.min(a, b), torqueNm: ta },
-                { rpm: Math.max(a, b), torqueNm: tb },
-              ],
-        ),
-    ),
-  },
-  { requiredKeys: [] },
-).map((m) => ({
-  // The required fields are always there; requiredKeys: [] only lets the optional ones go.
-  rotorTeeth: 50,
-  holdingTorqueNm: 1,
-  ratedCurrentA: 2,
-  phaseResistanceOhm: 1,
-  phaseInductanceMh: 3,
-  ...m,
-}));
+const motor = fc
+  .record(
+    {
+      rotorTeeth: wholeField("rotorTeeth"),
+      holdingTorqueNm: field("holdingTorqueNm"),
+      ratedCurrentA: field("ratedCurrentA"),
+      phaseResistanceOhm: field("phaseResistanceOhm"),
+      phaseInductanceMh: field("phaseInductanceMh"),
+      thermalResistanceKPerW: maybe(field("thermalResistanceKPerW")),
+      ratedTempRiseK: field("ratedTempRiseK"),
+      insulationClass: fc.constantFrom("B", "F", "H"),
+      hysteresisWPerHz: field("hysteresisWPerHz"),
+      eddyWPerHz2: field("eddyWPerHz2"),
+      pullOutCurve: maybe(
+        fc
+          .tuple(field("speedRpm"), field("speedRpm"), field("dutyTorqueNm"), field("dutyTorqueNm"))
+          .map(([a, b, ta, tb]) =>
+            a === b
+              ? [{ rpm: a, torqueNm: ta }]
+              : [
+                  { rpm: Math.min(a, b), torqueNm: ta },
+                  { rpm: Math.max(a, b), torqueNm: tb },
+                ],
+          ),
+      ),
+    },
+    { requiredKeys: [] },
+  )
+  .map((m) => ({
+    // The required fields are always there; requiredKeys: [] only lets the optional ones go.
+    rotorTeeth: 50,
+    holdingTorqueNm: 1,
+    ratedCurrentA: 2,
+    phaseResistanceOhm: 1,
+    phaseInductanceMh: 3,
+    ...m,
+  }));
 
 const drive = fc.record({
   busVoltageV: field("busVoltageV"),
@@ -275,8 +280,7 @@ const FINITE_DECIMAL = /^-?\d+(\.\d+)?$/;
 /** Every number finite and every decimal string a plain finite decimal; returns the bad paths. */
 function nonFinitePaths(value: unknown, path = ""): string[] {
   if (typeof value === "number") return Number.isFinite(value) ? [] : [path];
-  if (typeof value === "string")
-    return /^[+-]?(NaN|Infinity)$/.test(value) ? [path] : [];
+  if (typeof value === "string") return /^[+-]?(NaN|Infinity)$/.test(value) ? [path] : [];
   if (Array.isArray(value)) return value.flatMap((v, i) => nonFinitePaths(v, `${path}[${i}]`));
   if (typeof value === "object" && value !== null)
     return Object.entries(value).flatMap(([k, v]) => nonFinitePaths(v, path ? `${path}.${k}` : k));
