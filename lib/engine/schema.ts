@@ -114,7 +114,8 @@ export const motionInputSchema = obj({
   // 0 means unknown (MOTOR_INERTIA_UNKNOWN); a known rotor lies within its own bound.
   motorInertiaKgM2: inertia()
     .refine(
-      (kgM2) => kgM2 === 0 || kgM2 >= FIELD_BOUNDS.rotorInertiaKgM2.min,
+      // Not a number when the unit was refused (its issue does not abort): no second message.
+      (kgM2) => typeof kgM2 !== "number" || kgM2 === 0 || kgM2 >= FIELD_BOUNDS.rotorInertiaKgM2.min,
       `must be 0 (unknown) or at least ${FIELD_BOUNDS.rotorInertiaKgM2.min} kg·m²`,
     )
     .default(0),
