@@ -3,9 +3,11 @@ import { DossierReport } from "@/components/dossiers/dossier-report";
 import { PrintButton } from "@/components/dossiers/print-button";
 import { MethodLink } from "@/components/results/method-link";
 import { buttonClass } from "@/components/ui/button";
-import { PageHeader } from "@/components/ui/panel";
+import { PageHeader, Panel } from "@/components/ui/panel";
 import { buildDossier } from "@/lib/dossier";
-import { caseInputSchema, type CaseInput } from "@/lib/engine";
+import type { CaseInput, ParsedCase } from "@/lib/engine";
+import { StoredInputError } from "@/lib/errors";
+import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 
 /**
  * A paid dossier as the vendor's people and the customer's reviewer both read it: built from the
@@ -24,13 +26,50 @@ export function PaidDossierView({
   proposalId: number;
   title: string;
   crumbs: ReactNode;
-  proposal: { input: CaseInput; accountName: string; siteName: string };
+  proposal: {
+    input: CaseInput;
+    accountName: string;
+    siteName: string;
+    caseId: number;
+    version: number;
+  };
   settings: Parameters<typeof buildDossier>[1];
   /** The method page of the reader's shell. */
   methodHref: string;
   children?: ReactNode;
 }) {
-  const input = caseInputSchema.parse(proposal.input);
+  let input: ParsedCase;
+  try {
+    input = parseFrozenInput(proposal);
+  } catch (error) {
+    if (!(error instanceof StoredInputError)) throw error;
+    // Frozen before a bound it breaks existed: say what and where, rather than fail the page.
+    return (
+      <div className="space-y-6">
+        <div className="print:hidden">{crumbs}</div>
+        <PageHeader title={title} lead={`${proposal.accountName} · ${proposal.siteName}`} />
+        <Panel title="This dossier cannot be built">
+          <div role="alert" className="space-y-2 text-steel-800">
+            <p>
+              Proposal version {proposal.version} was frozen with{" "}
+              {error.problems.length === 1 ? "a value" : `${error.problems.length} values`} outside
+              the ranges the engine accepts now, so its dossier cannot be computed:
+            </p>
+            <ul className="list-disc space-y-1 pl-5">
+              {error.problems.map((p) => (
+                <li key={p.path}>{p.text}</li>
+              ))}
+            </ul>
+            <p>
+              The frozen version stays as it is: after the correction, freeze a new version from the
+              case.
+            </p>
+          </div>
+        </Panel>
+        {children}
+      </div>
+    );
+  }
   const dossier = buildDossier(input, settings);
   const { result } = dossier;
   return (

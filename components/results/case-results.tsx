@@ -5,7 +5,13 @@ import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Panel, Skeleton } from "@/components/ui/panel";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
-import { CaseRequestError, useCase, useCaseResult, type CaseId } from "@/lib/hooks/use-case-result";
+import {
+  CaseRequestError,
+  useCase,
+  useCaseResult,
+  type CaseId,
+  type StoredProblemView,
+} from "@/lib/hooks/use-case-result";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { AxisResultsTable } from "./axis-results-table";
 import { BreakEvenPanel } from "./break-even-panel";
@@ -150,6 +156,8 @@ function InputPending({
 
 function ResultsError({ error, onRetry }: { error: Error; onRetry: () => void }) {
   const notFound = error instanceof CaseRequestError && error.status === 404;
+  if (error instanceof CaseRequestError && error.status === 409 && error.problems.length > 0)
+    return <StoredValuesError problems={error.problems} />;
   return (
     <div role="alert" className="rounded-panel border border-danger-600 bg-white p-6">
       <h2 className="text-title text-danger-700">
@@ -165,6 +173,36 @@ function ResultsError({ error, onRetry }: { error: Error; onRetry: () => void })
           Try again
         </Button>
       )}
+    </div>
+  );
+}
+
+/**
+ * Stored values the engine refuses (saved before its bounds): each named with its machine, axis,
+ * field and allowed range, with a link to the page where it is corrected. Retrying cannot help.
+ */
+function StoredValuesError({ problems }: { problems: readonly StoredProblemView[] }) {
+  return (
+    <div role="alert" className="rounded-panel border border-danger-600 bg-white p-6">
+      <h2 className="text-title text-danger-700">
+        {problems.length === 1
+          ? "One stored value is outside the range the engine accepts"
+          : `${problems.length} stored values are outside the ranges the engine accepts`}
+      </h2>
+      <p className="mt-2 text-steel-700">
+        They were saved before these ranges were checked and are kept as they are. Correct them and
+        the results appear.
+      </p>
+      <ul className="mt-3 list-disc space-y-2 pl-5 text-steel-800">
+        {problems.map((p, i) => (
+          <li key={i}>
+            {p.text}{" "}
+            <a className="font-semibold text-flux-700 underline" href={p.fixAt.href}>
+              Open it
+            </a>
+          </li>
+        ))}
+      </ul>
     </div>
   );
 }

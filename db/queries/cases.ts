@@ -1,4 +1,5 @@
 import { and, asc, desc, eq, getTableColumns, inArray, sql } from "drizzle-orm";
+import { ZodError } from "zod";
 import { db } from "@/db";
 import {
   accounts,
@@ -17,21 +18,31 @@ import {
   type Proposal,
   type QuoteStage,
 } from "@/db/schema";
-import { ENGINE_VERSION, evaluateCase, type CaseInput, type CaseResult } from "@/lib/engine";
+import {
+  caseInputSchema,
+  ENGINE_VERSION,
+  evaluateParsedCase,
+  type CaseInput,
+  type CaseResult,
+} from "@/lib/engine";
+import { storedInputMessage, storedInputProblems } from "@/lib/results/stored-input-problems";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
-import { ConflictError, NotFoundError } from "@/lib/errors";
+import { ConflictError, NotFoundError, StoredInputError } from "@/lib/errors";
 import type { AxisRetrofitInput, CaseAssumptions, CreateCaseInput } from "@/lib/validations/case";
 import { accountScope, INSTALLED_BASE_ROLES } from "./accounts";
 import { recordAudit } from "./audit";
 import {
   assembleCaseInput,
+  axisInputOf,
   defaultAssumptions,
   DEFAULT_RETROFIT_TERMS,
   kitInputOf,
   kitOptions,
+  machineInputOf,
   suggestKitFor,
   type CaseAxisRow,
   type KitOption,
+  type RetrofitTerms,
 } from "./case-input";
 import { proposalChanges } from "./proposal-changes";
 import { openQuoteFor } from "./quote-open";
@@ -168,7 +179,8 @@ export function setCaseAxes(caller: SessionUser, caseId: number, axisIds: number
       );
   }
   const newRows = added.map((axisId) => {
-    const choice = suggestKitFor(
+    const choice = suggestKitOrExplain(
+      caseId,
       siteAxes.get(axisId)!,
       DEFAULT_RETROFIT_TERMS,
       options,
@@ -198,6 +210,32 @@ export function setCaseAxes(caller: SessionUser, caseId: number, axisIds: number
     found.stage === "draft" && wanted.length > 0 ? { stage: "modelled" } : {},
   );
   return { added: added.length, removed: removed.length, total: wanted.length };
+}
+
+/**
+ * suggestKitFor, or — for an axis whose stored values the engine refuses (saved before its
+ * bounds) — a StoredInputError naming the machine, the axis, the field and where to fix it.
+ */
+function suggestKitOrExplain(
+  caseId: number,
+  axis: Axis,
+  terms: RetrofitTerms,
+  options: KitOption[],
+  margins: CaseAssumptions["margins"],
+) {
+  try {
+    return suggestKitFor(axis, terms, options, margins);
+  } catch (error) {
+    if (!(error instanceof ZodError)) throw error;
+    const machine = db.select().from(machines).where(eq(machines.id, axis.machineId)).get();
+    const input = {
+      machines: machine ? [machineInputOf(machine)] : [],
+      axes: [axisInputOf(axis, options[0].input, terms)],
+    };
+    const issues = error.issues.map((issue) => ({ ...issue, path: ["axes", 0, ...issue.path] }));
+    const problems = storedInputProblems(caseId, input, { issues });
+    throw new StoredInputError(storedInputMessage(problems), problems);
+  }
 }
 
 function caseAxisOrThrow(caseId: number, axisId: number) {
@@ -251,7 +289,7 @@ export function suggestKitsForCase(caller: SessionUser, caseId: number): KitSugg
     .orderBy(asc(axes.id))
     .all();
   const suggestions = rows.map(({ axis, retrofit }) => {
-    const choice = suggestKitFor(axis, retrofit, options, found.assumptions.margins);
+    const choice = suggestKitOrExplain(caseId, axis, retrofit, options, found.assumptions.margins);
     return {
       axisId: axis.id,
       kitId: choice.kit?.row.id ?? null,
@@ -372,7 +410,14 @@ function evaluateCached(found: CaseRow): CachedResult {
   const input = inputOf(found);
   if (input.axes.length === 0)
     throw new ConflictError("The case has no axes yet: pick axes from its site to see a result");
-  const entry: CachedResult = { revision, input, result: evaluateCase(input) };
+  // Rows saved before the engine's bounds existed can hold values it refuses: name each one
+  // and where to fix it (StoredInputError, 409) rather than a bare 422; nothing is rewritten.
+  const parsed = caseInputSchema.safeParse(input);
+  if (!parsed.success) {
+    const problems = storedInputProblems(found.id, input, parsed.error);
+    throw new StoredInputError(storedInputMessage(problems), problems);
+  }
+  const entry: CachedResult = { revision, input, result: evaluateParsedCase(parsed.data) };
   resultCache.delete(found.id);
   resultCache.set(found.id, entry);
   if (resultCache.size > RESULT_CACHE_LIMIT) resultCache.delete(resultCache.keys().next().value!);

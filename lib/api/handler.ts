@@ -1,7 +1,13 @@
 import { NextResponse } from "next/server";
 import { ZodError } from "zod";
 import { NonFiniteResultError } from "@/lib/engine/evaluate";
-import { ConflictError, ForbiddenError, NotFoundError, UnauthorizedError } from "@/lib/errors";
+import {
+  ConflictError,
+  ForbiddenError,
+  NotFoundError,
+  StoredInputError,
+  UnauthorizedError,
+} from "@/lib/errors";
 import { isCrossSiteWrite } from "./same-origin";
 
 export class PayloadTooLargeError extends Error {
@@ -27,6 +33,12 @@ export function withApi<Args extends unknown[]>(handler: (...args: Args) => Prom
       if (error instanceof ZodError) {
         return jsonError(422, "The request is not valid", {
           issues: error.issues.map((i) => ({ path: i.path, message: i.message })),
+        });
+      }
+      if (error instanceof StoredInputError) {
+        return jsonError(error.status, error.message, {
+          problems: error.problems.map((p) => p.text),
+          issues: error.problems,
         });
       }
       if (

@@ -9,6 +9,7 @@ import {
 } from "./currents";
 import { isBeyondCurve, monotoneCurve } from "./curves";
 import { axisDuty, type AxisDuty } from "./duty";
+import { finiteOrNull } from "./finite";
 import type { AxisEconomics } from "./fleet";
 import { capabilityOf, evaluateLoop, loopEnergy, type LoopOutcome, type LoopSpec } from "./loop";
 import {
@@ -204,7 +205,9 @@ export function evaluateAxisPhysics(
   const holdingNm = holdingCapabilityNm(axis);
 
   const energySaved = ol.energyKWhPerYear - cl.energyKWhPerYear;
-  const energyPct = ol.energyKWhPerYear > 0 ? (100 * energySaved) / ol.energyKWhPerYear : null;
+  // finiteOrNull: an energy of 10^-300 kWh is none (finite.ts).
+  const energyPct =
+    ol.energyKWhPerYear > 0 ? finiteOrNull((100 * energySaved) / ol.energyKWhPerYear) : null;
   const band: Band =
     energyPct === null || energyPct < ctx.band.lowPct
       ? "below"
@@ -288,7 +291,8 @@ export function evaluateAxisPhysics(
         ctx.lifeHalvingK,
       ),
       torqueFreedNm,
-      torqueFreedPct: ol.usableTorqueNm === 0 ? null : (100 * torqueFreedNm) / ol.usableTorqueNm,
+      torqueFreedPct:
+        ol.usableTorqueNm === 0 ? null : finiteOrNull((100 * torqueFreedNm) / ol.usableTorqueNm),
       speedHeadroomPct: searchMaxSpeed ? speedHeadroomPct(cl.maxSpeedRpm, duty.speedRpm) : null,
       stepLossEventsAvoided: avoidsEvents
         ? (axis.reliability.stepLossEventsPerYear * axis.reliability.avoidedPct) / 100

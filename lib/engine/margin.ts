@@ -1,8 +1,12 @@
 import { capabilityNm, maxSpeedRpm, MAX_SEARCH_RPM, type Capability } from "./capability";
+import { finiteOrNull } from "./finite";
 
-/** 100·(1 − peak/T), null when there is no torque at all. */
+/**
+ * 100·(1 − peak/T), null when there is no torque at all — or so little (10^-300 N·m) that the
+ * quotient overflows, which is no torque in all but name (finite.ts).
+ */
 export function marginPct(peakTorqueNm: number, torqueNm: number): number | null {
-  return torqueNm === 0 ? null : 100 * (1 - peakTorqueNm / torqueNm);
+  return torqueNm === 0 ? null : finiteOrNull(100 * (1 - peakTorqueNm / torqueNm));
 }
 
 export type OpenLoopStatus = "ok" | "at-risk" | "step-loss";
@@ -31,9 +35,12 @@ export function loadAngle(
   return { elecDeg, mechDeg: elecDeg / rotorTeeth };
 }
 
-/** How much faster the axis could run closed loop with its margin kept; null at standstill. */
+/**
+ * How much faster the axis could run closed loop with its margin kept; null at standstill, and
+ * at a speed so near it (10^-300 rpm) that the ratio overflows (finite.ts).
+ */
 export function speedHeadroomPct(maxSpeedRpmClosed: number, speedRpm: number): number | null {
-  return speedRpm === 0 ? null : 100 * (maxSpeedRpmClosed / speedRpm - 1);
+  return speedRpm === 0 ? null : finiteOrNull(100 * (maxSpeedRpmClosed / speedRpm - 1));
 }
 
 /**

@@ -111,8 +111,14 @@ export function ironLossW(motor: ParsedMotor, rpm: number): number {
   return motor.hysteresisWPerHz * fe + motor.eddyWPerHz2 * fe * fe;
 }
 
-/** T_drag = P_fe/ω_m for n > 0, 0 at standstill. */
+/**
+ * T_drag = P_fe/ω_m for n > 0, 0 at standstill. At a speed so small (10^-320 rpm) that ω_m
+ * underflows to 0 the quotient would be 0/0; its limit there is the hysteresis drag
+ * N_r·k_h/(2π), since P_fe/ω_m = N_r·(k_h + k_e·f_e)/(2π).
+ */
 export function dragTorqueNm(motor: ParsedMotor, rpm: number): number {
   if (rpm <= 0) return 0;
-  return ironLossW(motor, rpm) / ((2 * Math.PI * rpm) / 60);
+  const omega = (2 * Math.PI * rpm) / 60;
+  if (omega === 0) return (motor.rotorTeeth * motor.hysteresisWPerHz) / (2 * Math.PI);
+  return ironLossW(motor, rpm) / omega;
 }

@@ -6,6 +6,7 @@ import {
   boundedInt,
   holdingTorque,
   choice,
+  FIELD_BOUNDS,
   inertia,
   id,
   int,
@@ -14,7 +15,6 @@ import {
   num,
   obj,
   pct,
-  positive,
   text,
   torque,
 } from "./schema-fields";
@@ -61,7 +61,7 @@ export const kitInputSchema = obj({
   motor: motorInputSchema.optional(),
   maxCurrentPeakA: bounded("maxCurrentPeakA").optional(),
   busVoltageV: bounded("busVoltageV").optional(),
-  efficiencyPct: positive().max(100, "must be at most 100").default(92),
+  efficiencyPct: bounded("efficiencyPct").default(92),
   standbyW: bounded("standbyW").default(3),
   // docs/model.md: 0.5 W, 0 when sensorless; kitEncoderW() fills it since the default depends on sensing.
   encoderW: bounded("standbyW").optional(),
@@ -90,7 +90,7 @@ const driveSchema = obj({
   stepMode: choice(["full", "half", "half-compensated", "micro"]).default("micro"),
   microsteps: boundedInt("microsteps").default(16),
   idleCurrentPct: pct().default(50),
-  efficiencyPct: positive().max(100, "must be at most 100").default(90),
+  efficiencyPct: bounded("efficiencyPct").default(90),
   standbyW: bounded("standbyW").default(2),
   resonance: resonanceSchema.optional(),
 });
@@ -98,7 +98,7 @@ const driveSchema = obj({
 export const MECHANISMS = ["belt", "rack", "screw", "rotary"] as const;
 export type Mechanism = (typeof MECHANISMS)[number];
 
-const efficiency = () => positive().max(100, "must be at most 100");
+const efficiency = () => bounded("efficiencyPct");
 
 /** docs/model.md (Motion from the mechanism): one axis's mechanism and move profile. */
 export const motionInputSchema = obj({
@@ -111,14 +111,21 @@ export const motionInputSchema = obj({
   gearEfficiencyPct: efficiency().default(100),
   massKg: bounded("massKg").default(0),
   loadInertiaKgM2: inertia().default(0),
-  motorInertiaKgM2: inertia().default(0),
+  // 0 means unknown (MOTOR_INERTIA_UNKNOWN); a known rotor lies within its own bound.
+  motorInertiaKgM2: inertia()
+    .refine(
+      // Not a number when the unit was refused (its issue does not abort): no second message.
+      (kgM2) => typeof kgM2 !== "number" || kgM2 === 0 || kgM2 >= FIELD_BOUNDS.rotorInertiaKgM2.min,
+      `must be 0 (unknown) or at least ${FIELD_BOUNDS.rotorInertiaKgM2.min} kg·m²`,
+    )
+    .default(0),
   inclineDeg: atLeast(0).max(90, "must be at most 90 (vertical)").default(0),
   frictionCoeff: bounded("frictionCoeff").default(0),
   externalForceN: bounded("externalForceN").default(0),
   externalTorqueNm: torque().default(0),
   stroke: bounded("stroke"),
   moveTimeS: bounded("moveTimeS"),
-  accelSharePct: positive().max(50, "must be at most 50").default(25),
+  accelSharePct: bounded("accelSharePct").default(25),
   dwellTimeS: bounded("dwellTimeS").default(0),
   returnMove: bool().default(true),
   energizedPct: pct().default(100),
@@ -248,7 +255,7 @@ export const axisInputSchema = axisObject.superRefine(checkAxisDuty, reportEvery
 const financeSchema = obj({
   tariffPerKWh: money(),
   tariffEscalationPct: bounded("ratePct").default(0),
-  discountRatePct: bounded("ratePct").default(8),
+  discountRatePct: bounded("discountRatePct").default(8),
   horizonYears: int(1, 30).default(5),
   laborRatePerHour: money().default("0"),
   downtimeCostPerHour: money().default("0"),

@@ -77,12 +77,27 @@ export function windingTemperature(
   };
 }
 
-/** Insulation life factor 2^(ΔT/halving), null when either temperature is unknown. */
+/**
+ * The freezing (melting) point of copper, a defining fixed point of ITS-90: 1084.62 °C. A
+ * steady state above it is the model's arithmetic, not a winding that could exist.
+ */
+export const COPPER_MELTING_C = 1084.62;
+
+/**
+ * Insulation life factor 2^(ΔT/halving), null when either temperature is unknown (runaway) or
+ * above the melting point of copper. The halving rule extrapolates the aging of an insulation
+ * that is still a winding's insulation; past the point where the copper itself would melt, a
+ * factor of "2^200 times the life" would read as a result when it is no statement at all, so
+ * it is reported as not meaningful (docs/model.md (Winding temperature)). This also keeps it
+ * finite: the drop is then at most 1084.62 − (−40) K, and with a halving interval of at least
+ * 2 K (FIELD_BOUNDS.lifeHalvingK) the factor stays below 2^563.
+ */
 export function insulationLifeFactor(
   openC: number | null,
   closedC: number | null,
   lifeHalvingK: number,
 ): number | null {
   if (openC === null || closedC === null) return null;
+  if (openC > COPPER_MELTING_C || closedC > COPPER_MELTING_C) return null;
   return Math.pow(2, (openC - closedC) / lifeHalvingK);
 }

@@ -29,14 +29,30 @@ export class CaseRequestError extends Error {
   constructor(
     readonly status: number,
     message: string,
+    /** 409: the stored values the engine refuses, each with the page to fix it on. */
+    readonly problems: readonly StoredProblemView[] = [],
   ) {
     super(message);
     this.name = "CaseRequestError";
   }
 }
 
+/** What the view needs of a StoredInputProblem (lib/results/stored-input-problems.ts). */
+export interface StoredProblemView {
+  text: string;
+  fixAt: { href: string; what: string };
+}
+
 async function getJson<T>(url: string, signal: AbortSignal): Promise<T> {
   const response = await fetch(url, { signal, headers: { accept: "application/json" } });
+  if (response.status === 409) {
+    // The case's stored values conflict with the engine's bounds: the body says which and where.
+    const body = (await response.json().catch(() => ({}))) as {
+      error?: string;
+      issues?: StoredProblemView[];
+    };
+    throw new CaseRequestError(409, body.error ?? "The result could not be computed.", body.issues);
+  }
   if (!response.ok) {
     throw new CaseRequestError(
       response.status,
@@ -52,8 +68,10 @@ const casePath = (caseId: CaseId) => `/api/v1/cases/${encodeURIComponent(String(
 
 // A missing case will not appear on a second try; anything else may be a passing hiccup.
 const retry = (failures: number, error: Error) =>
-  !(error instanceof CaseRequestError && (error.status === 404 || error.status === 403)) &&
-  failures < 2;
+  !(
+    error instanceof CaseRequestError &&
+    (error.status === 404 || error.status === 403 || error.status === 409)
+  ) && failures < 2;
 
 export function useCase(caseId: CaseId) {
   return useQuery({

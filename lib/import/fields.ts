@@ -262,15 +262,13 @@ const SPECS = {
     help: "Current the drive keeps at standstill, as a percentage of its current setting.",
   },
   driveEfficiencyPct: {
+    bound: FIELD_BOUNDS.efficiencyPct,
     label: "Drive efficiency",
     quantity: "none",
     unit: "%",
     type: "number",
     required: false,
     default: 90,
-    min: 0,
-    minExclusive: true,
-    max: 100,
     help: "Electrical efficiency of the drive's power stage.",
   },
   driveStandbyW: {

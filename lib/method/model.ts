@@ -235,7 +235,7 @@ export const METHOD_SECTIONS: MethodSection[] = [
       },
       {
         kind: "p",
-        text: "The temperature is compared with the insulation class (B 130 °C, F 155 °C, H 180 °C). The insulation life gained is 2 raised to the temperature drop divided by the halving interval, 10 K by default: a rule of thumb, since each insulation material has its own interval, so the interval is an input of the case.",
+        text: "The temperature is compared with the insulation class (B 130 °C, F 155 °C, H 180 °C). The insulation life gained is 2 raised to the temperature drop divided by the halving interval, 10 K by default: a rule of thumb, since each insulation material has its own interval, so the interval is an input of the case. Where either winding would settle above the melting point of copper (1084.62 °C) the steady state is the model's arithmetic rather than a winding that could exist, and no life factor is given (shown as not meaningful); the temperatures themselves are still reported and flagged.",
       },
     ],
   },

@@ -8,7 +8,6 @@ import {
   int,
   money,
   pct,
-  positive,
 } from "@/lib/engine/schema-fields";
 
 const optional = <T extends z.ZodType>(schema: T) =>
@@ -54,7 +53,7 @@ export const kitInputSchema = z.object({
   motorId: optional(idSchema()),
   maxCurrentPeakA: optional(bounded("maxCurrentPeakA")),
   busVoltageV: optional(bounded("busVoltageV")),
-  efficiencyPct: positive().max(100, "must be at most 100").default(92),
+  efficiencyPct: bounded("efficiencyPct").default(92),
   standbyW: bounded("standbyW").default(3),
   encoderW: optional(bounded("standbyW")),
   minCurrentPct: pct().default(10),

@@ -7,7 +7,6 @@ import {
   holdingTorque,
   money,
   pct,
-  positive,
   torque,
 } from "@/lib/engine/schema-fields";
 import { axisInputSchema as engineAxisSchema, stepLossEventSchema } from "@/lib/engine/schema";
@@ -66,7 +65,7 @@ export const axisFieldsSchema = z.object({
   stepMode: choice(["full", "half", "half-compensated", "micro"]).default("micro"),
   microsteps: boundedInt("microsteps").default(16),
   idleCurrentPct: pct().default(50),
-  driveEfficiencyPct: positive().max(100, "must be at most 100").default(90),
+  driveEfficiencyPct: bounded("efficiencyPct").default(90),
   driveStandbyW: bounded("standbyW").default(2),
   // duty
   hoursPerYear: bounded("hoursPerYear"),

@@ -60,7 +60,7 @@ export const whatIfSchema = z
   .object({
     tariffPerKWh: money().optional(),
     tariffEscalationPct: bounded("ratePct").optional(),
-    discountRatePct: bounded("ratePct").optional(),
+    discountRatePct: bounded("discountRatePct").optional(),
     horizonYears: int(1, 30).optional(),
   })
   .strict();

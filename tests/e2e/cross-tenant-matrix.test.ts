@@ -43,14 +43,24 @@ const jars = new Map<Caller, CookieJar | null>();
 
 // How a route answers each caller when aimed at the other tenant:
 //  "scoped"   404, and the same status for an id that does not exist;
-//  404 / 403 / 401 / 200: that status (403 = the role may never use the route, whatever the id);
+//  404 / 403 / 401 / 200 / 402: that status (403 = the role may never use the route, whatever
+//             the id; 402 = a dossier not paid for);
 //  "lists"    200 and none of the other tenant's ids in the answer;
-//  "skip"     not called (a manager's or administrator's write would really change the shared
-//             e2e database: their reach over every account is probed by the reads).
-type Expect = "scoped" | "lists" | "skip" | 200 | 401 | 403 | 404;
+//  { reaches } a write of a role whose reach is every account (PRODUCT.md: the manager, and the
+//             administrator as the app grants it): sent to the other tenant's record with a body
+//             the route refuses after its scope check — the answer is that refusal (422, 409),
+//             not 404, and nothing is written — and sent to an id that does not exist: 404. So
+//             the write is really sent as the role without changing the shared e2e database;
+//  { missingOnly } such a write that no body can refuse short of writing (a freeze, a
+//             checkout): sent to an id that does not exist (404, nothing written); its reach is
+//             the one its reads show.
+type Expect =
+  "scoped" | "lists" | 200 | 401 | 402 | 403 | 404 | { reaches: 409 | 422 } | { missingOnly: true };
 interface RouteProbe {
   path: (ids: Ids) => string;
   body?: (ids: Ids) => unknown;
+  /** For { reaches }: a body the route refuses once the caller may reach the record. */
+  refusedBody?: (ids: Ids) => unknown;
   engineer: Expect;
   reviewer: Expect;
   manager: Expect;
@@ -63,7 +73,14 @@ const containsId = (key: string, id: number) => (_ids: Ids, body: unknown) =>
   new RegExp(`"${key}":${id}[,}]`).test(JSON.stringify(body));
 
 const vendorRead = { engineer: "scoped", reviewer: 403, manager: 200, admin: 200 } as const;
-const vendorWrite = { engineer: "scoped", reviewer: 403, manager: "skip", admin: "skip" } as const;
+const reaches422 = { reaches: 422 } as const;
+const missingOnly = { missingOnly: true } as const;
+const vendorWrite = {
+  engineer: "scoped",
+  reviewer: 403,
+  manager: reaches422,
+  admin: reaches422,
+} as const;
 
 const ROUTES: Record<string, RouteProbe> = {
   "GET accounts": {
@@ -82,7 +99,12 @@ const ROUTES: Record<string, RouteProbe> = {
     admin: 200,
   },
   "GET axes/[axisId]": { path: (i) => `/api/v1/axes/${i.axis}`, ...vendorRead },
-  "PUT axes/[axisId]": { path: (i) => `/api/v1/axes/${i.axis}`, body: () => ({}), ...vendorWrite },
+  "PUT axes/[axisId]": {
+    path: (i) => `/api/v1/axes/${i.axis}`,
+    body: () => ({}),
+    refusedBody: () => ({}),
+    ...vendorWrite,
+  },
   "GET cases/[caseId]/proposals": {
     path: (i) => `/api/v1/cases/${i.case}/proposals`,
     ...vendorRead,
@@ -91,6 +113,9 @@ const ROUTES: Record<string, RouteProbe> = {
     path: (i) => `/api/v1/cases/${i.case}/proposals`,
     body: () => ({}),
     ...vendorWrite,
+    // A freeze takes no body to refuse: on the other tenant's case it would add a version.
+    manager: missingOnly,
+    admin: missingOnly,
   },
   "GET cases/[caseId]/result": { path: (i) => `/api/v1/cases/${i.case}/result`, ...vendorRead },
   "GET cases/[caseId]": { path: (i) => `/api/v1/cases/${i.case}`, ...vendorRead },
@@ -125,6 +150,9 @@ const ROUTES: Record<string, RouteProbe> = {
     path: () => "/api/v1/payments/checkout",
     body: (i) => ({ proposalId: i.proposal }),
     ...vendorWrite,
+    // The id is in the body: a refused body names no record; a valid one opens a checkout.
+    manager: missingOnly,
+    admin: missingOnly,
   },
   "GET pipeline": {
     path: () => "/api/v1/pipeline",
@@ -144,10 +172,11 @@ const ROUTES: Record<string, RouteProbe> = {
   "POST proposals/[proposalId]/comments": {
     path: (i) => `/api/v1/proposals/${i.proposal}/comments`,
     body: () => ({ body: "probe from another account" }),
+    refusedBody: () => ({ body: "" }),
     engineer: "scoped",
     reviewer: "scoped",
-    manager: "skip",
-    admin: "skip",
+    manager: reaches422,
+    admin: reaches422,
   },
   "POST proposals/[proposalId]/decision": {
     path: (i) => `/api/v1/proposals/${i.proposal}/decision`,
@@ -162,16 +191,17 @@ const ROUTES: Record<string, RouteProbe> = {
     body: () => ({}),
     engineer: 403,
     reviewer: 403,
-    manager: "skip",
+    // The other tenant's proposal has no discount waiting: the manager reaches it, is refused.
+    manager: { reaches: 409 },
     admin: 403,
   },
   "GET proposals/[proposalId]/dossier": {
     path: (i) => `/api/v1/proposals/${i.proposal}/dossier`,
     engineer: "scoped",
     reviewer: "scoped",
-    // Unpaid: the manager reaches it and is asked to pay.
-    manager: "skip",
-    admin: "skip",
+    // Unpaid: the manager and the administrator reach it and are asked to pay.
+    manager: 402,
+    admin: 402,
   },
   "GET proposals/[proposalId]": {
     path: (i) => `/api/v1/proposals/${i.proposal}`,
@@ -183,14 +213,16 @@ const ROUTES: Record<string, RouteProbe> = {
   "PATCH proposals/[proposalId]": {
     path: (i) => `/api/v1/proposals/${i.proposal}`,
     body: () => ({ stage: "declined" }),
+    refusedBody: () => ({ stage: "no such stage" }),
     engineer: 403,
     reviewer: 403,
-    manager: "skip",
+    manager: reaches422,
     admin: 403,
   },
   "POST proposals/[proposalId]/send": {
     path: (i) => `/api/v1/proposals/${i.proposal}/send`,
     body: () => ({ email: "probe@example.invalid", name: "Probe" }),
+    refusedBody: () => ({ email: "not an address", name: "Probe" }),
     ...vendorWrite,
   },
   "POST proposals/[proposalId]/what-if": {
@@ -220,11 +252,14 @@ const ROUTES: Record<string, RouteProbe> = {
   "POST sites/[siteId]/axes": {
     path: (i) => `/api/v1/sites/${i.site}/axes`,
     body: () => ({}),
+    refusedBody: () => ({}),
     ...vendorWrite,
   },
   "POST sites/[siteId]/imports": {
     path: (i) => `/api/v1/sites/${i.site}/imports`,
     body: () => ({}),
+    // Not multipart: refused once the site is reached.
+    refusedBody: () => ({}),
     ...vendorWrite,
   },
   "GET sites": {
@@ -252,8 +287,13 @@ function discoverRoutes(): string[] {
   return found.sort();
 }
 
-async function callRoute(who: Caller, method: string, probe: RouteProbe, ids: Ids) {
-  const body = probe.body?.(ids);
+async function callRoute(
+  who: Caller,
+  method: string,
+  probe: RouteProbe,
+  ids: Ids,
+  body: unknown = probe.body?.(ids),
+) {
   return request(jars.get(who) ?? null, probe.path(ids), {
     method,
     headers: body === undefined ? {} : { "content-type": "application/json" },
@@ -267,97 +307,183 @@ async function callRoute(who: Caller, method: string, probe: RouteProbe, ids: Id
 // its id from the build's server-reference manifest and its arguments as JSON.
 interface ActionProbe {
   args: (ids: Ids) => unknown[];
+  /** Arguments the action refuses (its form check) whoever may call it: for the roles below. */
+  refusedArgs?: (ids: Ids) => unknown[];
   /** A form action that returns nothing: refusals answer the not-found page (status 404). */
   void?: true;
   /** "scoped": refused with the not-found message, as for an id that does not exist;
    * "role": refused for the role (the action is another role's); "public": needs no session. */
   engineer: "scoped" | "role";
   reviewer: "scoped" | "role";
+  /**
+   * The manager and the administrator (PRODUCT.md: the manager reaches every account; the app
+   * lets the administrator do so too). Absent: "reaches" where the engineer is "scoped", else
+   * "role". Each sends the write without changing the shared e2e database:
+   *  "role"        refused for the role;
+   *  "reaches"     with an id that does not exist, refused as missing; on the other tenant's
+   *                record with refusedArgs, refused by the form check;
+   *  "missingOnly" an action no argument can refuse short of writing (a freeze, a kit
+   *                suggestion): only the id that does not exist, refused as missing;
+   *  "form"        the role's own action without a record id: refusedArgs are refused.
+   */
+  manager?: ActionReach;
+  admin?: ActionReach;
 }
+type ActionReach = "role" | "reaches" | "missingOnly" | "form";
+const FORM_REFUSAL = "Check the highlighted fields.";
 
 const site = { name: "Probe site", currency: "EUR", tariffPerKWh: "0.2", hoursPerYear: 4000 };
 
 const ACTIONS: Record<string, ActionProbe> = {
   "(app)/(installed-base) createSiteAction": {
     args: (i) => [i.account, site],
+    refusedArgs: (i) => [i.account, {}],
     engineer: "scoped",
     reviewer: "role",
   },
   "(app)/(installed-base) updateSiteAction": {
     args: (i) => [i.site, site],
+    refusedArgs: (i) => [i.site, {}],
     engineer: "scoped",
     reviewer: "role",
   },
   "(app)/(installed-base) createMachineAction": {
     args: (i) => [i.site, { name: "Probe machine" }],
+    refusedArgs: (i) => [i.site, {}],
     engineer: "scoped",
     reviewer: "role",
   },
   "(app)/(installed-base) updateMachineAction": {
     args: (i) => [i.machine, { name: "Probe machine" }],
+    refusedArgs: (i) => [i.machine, {}],
     engineer: "scoped",
     reviewer: "role",
   },
   "(app)/(installed-base) saveAxisAction": {
     args: (i) => [i.axis, axisValues],
+    refusedArgs: (i) => [i.axis, {}],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/admin createUserAction": { args: () => [{}], engineer: "role", reviewer: "role" },
-  "(app)/admin changeRoleAction": { args: () => [{}], engineer: "role", reviewer: "role" },
-  "(app)/admin setActiveAction": { args: () => [{}], engineer: "role", reviewer: "role" },
-  "(app)/admin saveSalesSettingsAction": { args: () => [{}], engineer: "role", reviewer: "role" },
+  "(app)/admin createUserAction": {
+    args: () => [{}],
+    refusedArgs: () => [{}],
+    engineer: "role",
+    reviewer: "role",
+    manager: "role",
+    admin: "form",
+  },
+  "(app)/admin changeRoleAction": {
+    args: () => [{}],
+    refusedArgs: () => [{}],
+    engineer: "role",
+    reviewer: "role",
+    manager: "role",
+    admin: "form",
+  },
+  "(app)/admin setActiveAction": {
+    args: () => [{}],
+    refusedArgs: () => [{}],
+    engineer: "role",
+    reviewer: "role",
+    manager: "role",
+    admin: "form",
+  },
+  "(app)/admin saveSalesSettingsAction": {
+    args: () => [{}],
+    refusedArgs: () => [{}],
+    engineer: "role",
+    reviewer: "role",
+    manager: "role",
+    admin: "form",
+  },
   "(app)/cases createCaseAction": {
     args: (i) => [{ name: "Probe case", siteId: i.site }],
+    refusedArgs: (i) => [{ name: "", siteId: i.site }],
     engineer: "scoped",
     reviewer: "role",
   },
   "(app)/cases updateAssumptionsAction": {
     args: (i) => [i.case, assumptionValues],
+    refusedArgs: (i) => [i.case, {}],
     engineer: "scoped",
     reviewer: "role",
   },
   "(app)/cases setCaseAxesAction": {
     args: (i) => [i.case, { axisIds: [i.axis] }],
+    refusedArgs: (i) => [i.case, { axisIds: "all" }],
     engineer: "scoped",
     reviewer: "role",
   },
   "(app)/cases setAxisRetrofitAction": {
     args: (i) => [i.case, i.axis, { kitId: 1 }],
+    refusedArgs: (i) => [i.case, i.axis, { kitId: "any" }],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/cases suggestKitsAction": { args: (i) => [i.case], engineer: "scoped", reviewer: "role" },
+  "(app)/cases suggestKitsAction": {
+    args: (i) => [i.case],
+    engineer: "scoped",
+    reviewer: "role",
+    manager: "missingOnly",
+    admin: "missingOnly",
+  },
   "(app)/cases freezeProposalAction": {
     args: (i) => [i.case],
     engineer: "scoped",
     reviewer: "role",
+    manager: "missingOnly",
+    admin: "missingOnly",
   },
-  "(app)/catalogue saveKitAction": { args: () => [{}, 1], engineer: "role", reviewer: "role" },
-  "(app)/catalogue saveMotorAction": { args: () => [{}, 1], engineer: "role", reviewer: "role" },
-  "(app)/catalogue setCatalogueActiveAction": {
-    args: () => [{ kind: "kit", id: 1, active: false }],
+  "(app)/catalogue saveKitAction": {
+    args: () => [{}, 1],
+    refusedArgs: () => [{}, 1],
     engineer: "role",
     reviewer: "role",
+    manager: "role",
+    admin: "form",
+  },
+  "(app)/catalogue saveMotorAction": {
+    args: () => [{}, 1],
+    refusedArgs: () => [{}, 1],
+    engineer: "role",
+    reviewer: "role",
+    manager: "role",
+    admin: "form",
+  },
+  "(app)/catalogue setCatalogueActiveAction": {
+    args: () => [{ kind: "kit", id: 1, active: false }],
+    refusedArgs: () => [{ kind: "kit", id: 1, active: "no" }],
+    engineer: "role",
+    reviewer: "role",
+    manager: "role",
+    admin: "form",
   },
   "(app)/dossiers saveDossierSettingsAction": {
     args: (i) => [i.proposal, { seed: 7, ...DEFAULT_RANGES }],
+    refusedArgs: (i) => [i.proposal, { seed: -1 }],
     engineer: "scoped",
     reviewer: "role",
   },
   "(app)/dossiers setDossierPriceAction": {
     args: () => [{ amount: "1.00", currency: "EUR" }],
+    refusedArgs: () => [{ amount: "-1", currency: "EUR" }],
     engineer: "role",
     reviewer: "role",
+    manager: "role",
+    admin: "form",
   },
   "(app)/dossiers closeDossierCheckoutAction": {
     args: (i) => [i.proposal],
     void: true,
     engineer: "scoped",
     reviewer: "role",
+    manager: "missingOnly",
+    admin: "missingOnly",
   },
   "(app)/proposals sendProposalAction": {
     args: (i) => [i.proposal, { email: "probe@example.invalid", name: "Probe" }],
+    refusedArgs: (i) => [i.proposal, { email: "not an address", name: "Probe" }],
     engineer: "scoped",
     reviewer: "role",
   },
@@ -365,14 +491,20 @@ const ACTIONS: Record<string, ActionProbe> = {
     args: (i) => [i.proposal],
     engineer: "role",
     reviewer: "role",
+    manager: "missingOnly",
+    admin: "role",
   },
   "(app)/proposals updateQuoteAction": {
     args: (i) => [i.proposal, { stage: "declined" }],
+    refusedArgs: (i) => [i.proposal, { stage: "no such stage" }],
     engineer: "role",
     reviewer: "role",
+    manager: "reaches",
+    admin: "role",
   },
   "(app)/proposals addVendorCommentAction": {
     args: (i) => [i.proposal, { body: "probe from another account" }],
+    refusedArgs: (i) => [i.proposal, { body: "" }],
     engineer: "scoped",
     reviewer: "role",
   },
@@ -387,6 +519,10 @@ const ACTIONS: Record<string, ActionProbe> = {
     reviewer: "scoped",
   },
 };
+
+/** The manager's or administrator's expectation of an action (see ActionProbe). */
+const reachOf = (probe: ActionProbe, who: "manager" | "admin"): ActionReach =>
+  probe[who] ?? (probe.engineer === "scoped" ? "reaches" : "role");
 
 // The invitation's token is its credential (no session, no tenant): a token that was never
 // issued sets no password, whoever calls.
@@ -559,8 +695,21 @@ describe("an attacker signed in to another account, over HTTP", () => {
   it.each(routeCases)("%s as %s", async (key, who, probe) => {
     const method = key.split(" ")[0]!;
     const expected: Expect = who === "anonymous" ? 401 : probe[who];
-    if (expected === "skip") return;
     const before = dataVersion();
+    if (typeof expected === "object") {
+      // A role that reaches every account: a write it may make, sent without a change.
+      const missing = await callRoute(who, method, probe, MISSING);
+      expect(missing.status, "an id that does not exist").toBe(404);
+      if ("reaches" in expected) {
+        const body = (probe.refusedBody ?? probe.body)?.(foreign);
+        const res = await callRoute(who, method, probe, foreign, body);
+        expect(res.status, "another account's record is reached, the body refused").toBe(
+          expected.reaches,
+        );
+      }
+      expect(dataVersion(), "nothing was written").toBe(before);
+      return;
+    }
     const res = await callRoute(who, method, probe, foreign);
     const write = method !== "GET";
     if (expected === "scoped") {
@@ -585,11 +734,39 @@ describe("an attacker signed in to another account, over HTTP", () => {
   });
 
   const actionCases = Object.entries(ACTIONS).flatMap(([key, probe]) =>
-    (["engineer", "reviewer", "anonymous"] as const).map((who) => [key, who, probe] as const),
+    (["engineer", "reviewer", "manager", "admin", "anonymous"] as const).map(
+      (who) => [key, who, probe] as const,
+    ),
   );
 
   it.each(actionCases)("action %s as %s", async (key, who, probe) => {
     const before = dataVersion();
+    if (who === "manager" || who === "admin") {
+      const reach = reachOf(probe, who);
+      if (reach === "role") {
+        const outcome = await callAction(who, key, probe.args(foreign));
+        expect(outcome.result, JSON.stringify(outcome)).toMatchObject({ ok: false });
+        expect(outcome.result?.message).toMatch(ROLE_REFUSAL);
+      }
+      if (reach === "reaches" || reach === "missingOnly") {
+        // An id that does not exist is refused as missing, not for the role nor by the form.
+        const missing = await callAction(who, key, probe.args(MISSING));
+        if (probe.void) expect(missing.status).toBe(404);
+        else {
+          expect(missing.result, JSON.stringify(missing)).toMatchObject({ ok: false });
+          expect(missing.result?.message).not.toBe(FORM_REFUSAL);
+          expect(missing.result?.message).not.toMatch(ROLE_REFUSAL);
+        }
+      }
+      if (reach === "reaches" || reach === "form") {
+        expect(probe.refusedArgs, `${key} needs refusedArgs`).toBeDefined();
+        const refused = await callAction(who, key, probe.refusedArgs!(foreign));
+        expect(refused.result, JSON.stringify(refused)).toMatchObject({ ok: false });
+        expect(refused.result?.message).not.toMatch(ROLE_REFUSAL);
+      }
+      expect(dataVersion(), "nothing was written").toBe(before);
+      return;
+    }
     const outcome = await callAction(who, key, probe.args(foreign));
     if (who === "anonymous") {
       // The proxy sends the signed-out to the sign-in page before any action runs.

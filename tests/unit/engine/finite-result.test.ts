@@ -53,7 +53,7 @@ const extremeAxis = fc.record({
 const extremeFinance = fc.record({
   tariffPerKWh: moneyValue,
   tariffEscalationPct: within("ratePct"),
-  discountRatePct: within("ratePct"),
+  discountRatePct: within("discountRatePct"),
   horizonYears: fc.integer({ min: 1, max: 30 }),
 });
 
@@ -102,22 +102,14 @@ function caseWith(a: AxisDraw, f: FinanceDraw) {
 const FINITE_DECIMAL = /^-?\d+(\.\d+)?$/;
 
 describe("the engine's result inside FIELD_BOUNDS", () => {
-  // Single-field bounds do not rule out every absurd combination: the smallest winding (0.01 A,
-  // 0.01 Ω) derives a thermal resistance of 4·10^7 K/W, and at 60,000 rpm the insulation-life
-  // factor 2^(ΔT/10) overflows (thermal.ts). So the property is "finite, or the typed error
-  // the API answers 422 with" — never NaN or Infinity in a result.
-  it("is finite, or refused with NonFiniteResultError, for extreme but valid input (fast-check, 300 cases)", () => {
+  // Every figure finite: the guard in evaluate.ts would throw NonFiniteResultError otherwise,
+  // and this test lets no error through. bounds-extremes.test.ts covers every field.
+  it("is finite for extreme but valid input (fast-check, 300 cases)", () => {
     fc.assert(
       fc.property(extremeAxis, extremeFinance, (a, f) => {
         const input = caseWith(a, f);
         expect(caseInputSchema.safeParse(input).success).toBe(true);
-        let result;
-        try {
-          result = evaluateCase(input);
-        } catch (error) {
-          expect(error).toBeInstanceOf(NonFiniteResultError);
-          return;
-        }
+        const result = evaluateCase(input);
         const walk = (value: unknown): void => {
           if (typeof value === "number") expect(Number.isFinite(value)).toBe(true);
           else if (Array.isArray(value)) value.forEach(walk);
@@ -127,7 +119,7 @@ describe("the engine's result inside FIELD_BOUNDS", () => {
         expect(result.scenarios.physics.npv).toMatch(FINITE_DECIMAL);
         expect(result.totals.capex).toMatch(FINITE_DECIMAL);
       }),
-      { numRuns: 300 },
+      { numRuns: 300, seed: 13 },
     );
   });
 

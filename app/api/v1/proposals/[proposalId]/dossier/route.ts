@@ -3,7 +3,7 @@ import { jsonError, withApi } from "@/lib/api/handler";
 import { idFromRoute } from "@/lib/api/params";
 import { requireRole } from "@/lib/auth";
 import { buildDossier } from "@/lib/dossier";
-import { caseInputSchema } from "@/lib/engine";
+import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 import { buildDossierWorkbook } from "@/lib/workbook";
 
 // The dossier workbook of a proposal: 402 until its account has paid (with the price, for the
@@ -26,7 +26,7 @@ export const GET = withApi(
         checkout: { method: "POST", url: "/api/v1/payments/checkout", body: { proposalId: id } },
       });
     }
-    const input = caseInputSchema.parse(proposal.input);
+    const input = parseFrozenInput(proposal);
     const settings = getDossierSettings(caller, id);
     const dossier = buildDossier(input, settings);
     const workbook = await buildDossierWorkbook(input, dossier, {

@@ -2,7 +2,7 @@ import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { withApi } from "@/lib/api/handler";
 import { idFromRoute } from "@/lib/api/params";
 import { requireUser } from "@/lib/auth";
-import { caseInputSchema } from "@/lib/engine";
+import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 import { buildProposalWorkbook } from "@/lib/workbook";
 
 // A frozen proposal as an .xlsx: built from the input and result stored when it was frozen, so
@@ -16,19 +16,15 @@ export const GET = withApi(
       idFromRoute((await context.params).proposalId),
     );
     const proposal = { ...quote, input, result };
-    const workbook = await buildProposalWorkbook(
-      caseInputSchema.parse(proposal.input),
-      proposal.result,
-      {
-        title: `${proposal.caseName}: retrofit proposal, version ${proposal.version}`,
-        accountName: proposal.accountName,
-        siteName: proposal.siteName,
-        caseName: proposal.caseName,
-        version: proposal.version,
-        engineVersion: proposal.engineVersion,
-        generatedAt: new Date().toISOString(),
-      },
-    );
+    const workbook = await buildProposalWorkbook(parseFrozenInput(proposal), proposal.result, {
+      title: `${proposal.caseName}: retrofit proposal, version ${proposal.version}`,
+      accountName: proposal.accountName,
+      siteName: proposal.siteName,
+      caseName: proposal.caseName,
+      version: proposal.version,
+      engineVersion: proposal.engineVersion,
+      generatedAt: new Date().toISOString(),
+    });
     // An ASCII file name: the header cannot carry the case name's other characters as they are.
     const base = proposal.caseName.replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "") || "case";
     return new Response(new Uint8Array(workbook), {
