@@ -46,7 +46,7 @@ const jars = new Map<Caller, CookieJar | null>();
 //  404 / 403 / 401 / 200 / 402: that status (403 = the role may never use the route, whatever
 //             the id; 402 = a dossier not paid for);
 //  "lists"    200 and none of the other tenant's ids in the answer;
-//  { reaches } a write of a role whose reach is every account (PRODUCT.md: the manager, and the
+//  { reaches } a write of a role whose reach is every account (docs/product.md: the manager, and the
 //             administrator as the app grants it): sent to the other tenant's record with a body
 //             the route refuses after its scope check — the answer is that refusal (422, 409),
 //             not 404, and nothing is written — and sent to an id that does not exist: 404. So
@@ -316,7 +316,7 @@ interface ActionProbe {
   engineer: "scoped" | "role";
   reviewer: "scoped" | "role";
   /**
-   * The manager and the administrator (PRODUCT.md: the manager reaches every account; the app
+   * The manager and the administrator (docs/product.md: the manager reaches every account; the app
    * lets the administrator do so too). Absent: "reaches" where the engineer is "scoped", else
    * "role". Each sends the write without changing the shared e2e database:
    *  "role"        refused for the role;
