@@ -1,6 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
 import { setAxisRetrofitAction, setCaseAxesAction } from "@/app/(app)/cases/actions";
 import { Button } from "@/components/ui/button";
@@ -33,7 +32,6 @@ export function CaseAxesEditor({
   siteAxes: SiteAxis[];
   kits: Kit[];
 }) {
-  const router = useRouter();
   const refresh = useDebouncedInvalidate(caseId);
   const [picked, setPicked] = useState(() => new Set(caseAxes.map((a) => a.axisId)));
   const [filter, setFilter] = useState("");
@@ -59,7 +57,6 @@ export function CaseAxesEditor({
       setMessage(result.ok ? `The case now holds ${result.data.total} axes.` : result.message);
       if (result.ok) {
         refresh();
-        router.refresh();
       }
     });
   }
@@ -74,7 +71,6 @@ export function CaseAxesEditor({
       setMessage(result.ok ? `Saved ${axis.label} (${axis.machineName}).` : result.message);
       if (result.ok) {
         refresh();
-        router.refresh();
       }
     });
   }

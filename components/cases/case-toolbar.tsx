@@ -1,6 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { freezeProposalAction, suggestKitsAction } from "@/app/(app)/cases/actions";
 import { Button, buttonClass } from "@/components/ui/button";
@@ -8,7 +7,6 @@ import { useDebouncedInvalidate } from "@/lib/hooks/use-case-result";
 
 // Suggest kits, freeze a proposal, download the workbook of the case as it stands.
 export function CaseToolbar({ caseId, canFreeze }: { caseId: number; canFreeze: boolean }) {
-  const router = useRouter();
   const refresh = useDebouncedInvalidate(caseId);
   const [message, setMessage] = useState<{
     tone: "ok" | "error";
@@ -28,7 +26,6 @@ export function CaseToolbar({ caseId, canFreeze }: { caseId: number; canFreeze: 
         details: none.map((r) => r.reason),
       });
       refresh();
-      router.refresh();
     });
   }
 
@@ -37,7 +34,6 @@ export function CaseToolbar({ caseId, canFreeze }: { caseId: number; canFreeze: 
       const result = await freezeProposalAction(caseId);
       if (!result.ok) return setMessage({ tone: "error", text: result.message });
       setMessage({ tone: "ok", text: `Frozen as proposal version ${result.data.version}.` });
-      router.refresh();
     });
   }
 

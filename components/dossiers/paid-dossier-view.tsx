@@ -1,18 +1,20 @@
-import type { ReactNode } from "react";
+import { Suspense, type ReactNode } from "react";
 import { DossierReport } from "@/components/dossiers/dossier-report";
+import { DossierSkeleton } from "@/components/dossiers/dossier-skeleton";
 import { PrintButton } from "@/components/dossiers/print-button";
 import { MethodLink } from "@/components/results/method-link";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { buildDossier } from "@/lib/dossier";
-import type { CaseInput, ParsedCase } from "@/lib/engine";
+import { ENGINE_VERSION, type CaseInput, type ParsedCase } from "@/lib/engine";
 import { StoredInputError } from "@/lib/errors";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 
 /**
  * A paid dossier as the vendor's people and the customer's reviewer both read it: built from the
  * frozen input through the engine, with the workbook download and the print button. `children`
- * come after the report (the vendor's ranges form).
+ * come after the report (the vendor's ranges form). The header is sent at once; the report,
+ * whose draws take a second or more on a large case, streams in behind a skeleton of its shape.
  */
 export function PaidDossierView({
   proposalId,
@@ -70,14 +72,12 @@ export function PaidDossierView({
       </div>
     );
   }
-  const dossier = buildDossier(input, settings);
-  const { result } = dossier;
   return (
     <div className="space-y-6 dossier-report">
       <div className="print:hidden">{crumbs}</div>
       <PageHeader
         title={title}
-        lead={`${proposal.accountName} · ${proposal.siteName} · engine ${result.engineVersion} · seed ${settings.seed} · amounts in ${result.currency}`}
+        lead={`${proposal.accountName} · ${proposal.siteName} · engine ${ENGINE_VERSION} · seed ${settings.seed} · amounts in ${input.currency}`}
         actions={
           <div className="flex flex-wrap gap-2 print:hidden">
             <a href={`/api/v1/proposals/${proposalId}/dossier`} className={buttonClass("primary")}>
@@ -90,8 +90,24 @@ export function PaidDossierView({
       <p className="print:hidden">
         <MethodLink href={methodHref} />
       </p>
-      <DossierReport dossier={dossier} input={input} />
+      <Suspense fallback={<DossierSkeleton />}>
+        <ComputedDossier input={input} settings={settings} />
+      </Suspense>
       {children}
     </div>
   );
+}
+
+/** The report itself: computed after the page's first bytes have left (see PaidDossierView). */
+async function ComputedDossier({
+  input,
+  settings,
+}: {
+  input: ParsedCase;
+  settings: Parameters<typeof buildDossier>[1];
+}) {
+  // The draws are synchronous work: yielding once lets React send the shell and the skeleton
+  // before the event loop is busy with them.
+  await new Promise((resolve) => setImmediate(resolve));
+  return <DossierReport dossier={buildDossier(input, settings)} input={input} />;
 }

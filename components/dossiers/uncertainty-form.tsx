@@ -1,7 +1,6 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import { saveDossierSettingsAction } from "@/app/(app)/dossiers/actions";
 import { StatusLine, useActionStatus } from "@/components/installed-base/use-action-form";
@@ -29,7 +28,6 @@ export function UncertaintyForm({
   proposalId: number;
   values: UncertaintySettings;
 }) {
-  const router = useRouter();
   const {
     register,
     handleSubmit,
@@ -44,8 +42,8 @@ export function UncertaintyForm({
 
   async function onSubmit(data: UncertaintySettings) {
     const result = await saveDossierSettingsAction(proposalId, data);
-    if (apply(result, "Saved. The dossier is rebuilt with these ranges and this seed."))
-      router.refresh();
+    // The action revalidates the dossier page, which then renders with the new ranges.
+    apply(result, "Saved. The dossier is rebuilt with these ranges and this seed.");
   }
 
   return (

@@ -67,6 +67,8 @@ export function ImportPanel({
         );
         setCheck(null);
         setFile(null);
+        // The import ran through a route handler, not a server action: nothing has told the
+        // router that the site's pages changed, so it asks for them again.
         router.refresh();
       } else {
         setCheck({ ...check!, ...body });

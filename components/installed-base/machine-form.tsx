@@ -1,7 +1,6 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { createMachineAction, updateMachineAction } from "@/app/(app)/(installed-base)/actions";
@@ -20,7 +19,6 @@ export function MachineForm({
   siteId: number;
   machine?: MachineInput & { id: number };
 }) {
-  const router = useRouter();
   const {
     register,
     handleSubmit,
@@ -41,7 +39,6 @@ export function MachineForm({
       : await createMachineAction(siteId, values);
     if (apply(result, machine ? "Machine saved." : `Added ${values.name}.`)) {
       if (!machine) reset();
-      router.refresh();
     }
   }
 

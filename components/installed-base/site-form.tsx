@@ -1,7 +1,6 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { createSiteAction, updateSiteAction } from "@/app/(app)/(installed-base)/actions";
@@ -20,7 +19,6 @@ export function SiteForm({
   accountId: number;
   site?: SiteInput & { id: number };
 }) {
-  const router = useRouter();
   const {
     register,
     handleSubmit,
@@ -46,7 +44,6 @@ export function SiteForm({
       : await createSiteAction(accountId, values);
     if (apply(result, site ? "Site saved." : `Added ${values.name}.`)) {
       if (!site) reset();
-      router.refresh();
     }
   }
 

@@ -1,6 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { Badge } from "@/components/ui/badge";
 import type { ActionResult } from "@/lib/actions/result";
@@ -36,7 +35,6 @@ export function CommentThread({
   }) => Promise<ActionResult<{ id: number; mail: MailDelivery | null }>>;
   placeholder: string;
 }) {
-  const router = useRouter();
   const [body, setBody] = useState("");
   const [message, setMessage] = useState<FormMessage>(null);
   const [pending, start] = useTransition();
@@ -55,7 +53,6 @@ export function CommentThread({
             ? `Comment posted. ${result.data.mail.notice}`
             : "Comment posted.",
       });
-      router.refresh();
     });
   }
 

@@ -1,6 +1,5 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { approveDiscountAction, updateQuoteAction } from "@/app/(app)/proposals/actions";
 import { Button } from "@/components/ui/button";
@@ -23,7 +22,6 @@ export function QuoteManagerForm({
   expectedCloseOn: string;
   owners: { id: number; name: string; role: string }[];
 }) {
-  const router = useRouter();
   const [values, setValues] = useState({ stage, ownerId: String(ownerId), expectedCloseOn });
   const [message, setMessage] = useState<FormMessage>(null);
   const [pending, start] = useTransition();
@@ -47,7 +45,6 @@ export function QuoteManagerForm({
           ? `Saved: ${result.data.changes.join("; ")}.`
           : "Nothing changed.",
       });
-      router.refresh();
     });
   }
 
@@ -92,7 +89,6 @@ export function QuoteManagerForm({
 
 /** A manager approves a kit discount above the threshold, so the proposal may be sent. */
 export function ApproveDiscountButton({ proposalId }: { proposalId: number }) {
-  const router = useRouter();
   const [message, setMessage] = useState<string | null>(null);
   const [pending, start] = useTransition();
   return (
@@ -103,7 +99,6 @@ export function ApproveDiscountButton({ proposalId }: { proposalId: number }) {
           start(async () => {
             const result = await approveDiscountAction(proposalId);
             if (!result.ok) return setMessage(result.message);
-            router.refresh();
           })
         }
       >

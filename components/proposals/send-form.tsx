@@ -1,7 +1,6 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { sendProposalAction } from "@/app/(app)/proposals/actions";
@@ -23,7 +22,6 @@ export function SendForm({
   reviewers: Reviewer[];
   resend: boolean;
 }) {
-  const router = useRouter();
   const [message, setMessage] = useState<FormMessage>(null);
   const {
     register,
@@ -59,7 +57,6 @@ export function SendForm({
               : `Sent to ${who}; they review it in their portal.`,
           },
     );
-    router.refresh();
   }
 
   return (

@@ -7,7 +7,6 @@ import { Panel, Skeleton } from "@/components/ui/panel";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import {
   CaseRequestError,
-  useCase,
   useCaseResult,
   type CaseId,
   type StoredProblemView,
@@ -33,8 +32,7 @@ import { WindingTemperatureChart } from "./winding-temperature-chart";
  */
 export function CaseResults({ caseId, methodHref }: { caseId: CaseId; methodHref: string }) {
   const resultQuery = useCaseResult(caseId);
-  const caseQuery = useCase(caseId);
-  const rawInput = caseQuery.data?.input;
+  const rawInput = resultQuery.data?.input;
   const input = useMemo(() => parseCaseInput(rawInput), [rawInput]);
 
   if (resultQuery.data === undefined) {
@@ -46,16 +44,13 @@ export function CaseResults({ caseId, methodHref }: { caseId: CaseId; methodHref
 
   return (
     <CaseResultsView
-      result={resultQuery.data}
+      result={resultQuery.data.result}
       input={input}
       methodHref={methodHref}
-      updating={resultQuery.isFetching || caseQuery.isFetching}
-      inputState={caseQuery.isError ? "failed" : caseQuery.data === undefined ? "loading" : "ready"}
+      updating={resultQuery.isFetching}
+      inputState={input ? "ready" : "failed"}
       staleError={resultQuery.isError ? resultQuery.error : null}
-      onRetry={() => {
-        void resultQuery.refetch();
-        if (caseQuery.isError) void caseQuery.refetch();
-      }}
+      onRetry={() => void resultQuery.refetch()}
     />
   );
 }

@@ -23,6 +23,24 @@ function escapeLike(text: string) {
   return `%${text.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
 }
 
+/** What the case's axis picker shows of each axis of a site, in the picker's order (by id). */
+export function listAxisPickerOptions(caller: SessionUser, siteId: number, limit: number) {
+  getSiteOrThrow(caller, siteId);
+  return db
+    .select({
+      id: axes.id,
+      label: axes.label,
+      machineName: machines.name,
+      quantity: axes.quantity,
+    })
+    .from(axes)
+    .innerJoin(machines, eq(axes.machineId, machines.id))
+    .where(eq(axes.siteId, siteId))
+    .orderBy(asc(axes.id))
+    .limit(limit)
+    .all();
+}
+
 // One page of a site's axes, filtered and sorted in SQL (the site's scope checked first).
 export function listAxes(
   caller: SessionUser,

@@ -59,6 +59,7 @@ const caseColumns = {
   ...getTableColumns(cases),
   accountName: accounts.name,
   siteName: sites.name,
+  siteCurrency: sites.currency,
   ownerName: users.name,
   // Units, like a site's axis count: an axis row of quantity 4 is four motors to retrofit.
   axisCount: sql<number>`(select coalesce(sum(${axes.quantity}), 0) from ${caseAxes} inner join ${axes} on ${axes.id} = ${caseAxes.axisId} where ${caseAxes.caseId} = ${cases.id})`,
@@ -314,7 +315,12 @@ export function suggestKitsForCase(caller: SessionUser, caseId: number): KitSugg
 
 // The case's axes with their machine and retrofit, for the case page's tables.
 export function listCaseAxes(caller: SessionUser, caseId: number) {
-  getCaseOrThrow(caller, caseId);
+  return listCaseAxesOf(getCaseOrThrow(caller, caseId));
+}
+
+/** listCaseAxes for a case the caller has already been checked against (a getCaseOrThrow row). */
+export function listCaseAxesOf(found: CaseRow) {
+  const caseId = found.id;
   return db
     .select({
       axisId: axes.id,
@@ -440,6 +446,17 @@ export function caseResultJson(caller: SessionUser, caseId: number): string {
 }
 
 /**
+ * The input the engine received and its result in one body, `{"input":…,"result":…}`, for the
+ * case page: one request after an edit instead of one for each. The result's cached text is
+ * reused as it is.
+ */
+export function caseInputAndResultJson(caller: SessionUser, caseId: number): string {
+  const entry = evaluateCached(getCaseOrThrow(caller, caseId));
+  entry.json ??= JSON.stringify(entry.result);
+  return `{"input":${JSON.stringify(entry.input)},"result":${entry.json}}`;
+}
+
+/**
  * Freezes the case as its next proposal version: the input as the engine received it, its
  * result and the engine version. Nothing updates a proposal afterwards (the database refuses it);
  * its sales side starts as a quote ready to send, and replaces the case's older open quotes.
@@ -499,7 +516,12 @@ export type ProposalSummary = {
 
 /** The case's proposals, oldest first, each with what changed since the version before. */
 export function listProposals(caller: SessionUser, caseId: number): ProposalSummary[] {
-  getCaseOrThrow(caller, caseId);
+  return listProposalsOf(getCaseOrThrow(caller, caseId));
+}
+
+/** listProposals for a case the caller has already been checked against (a getCaseOrThrow row). */
+export function listProposalsOf(found: CaseRow): ProposalSummary[] {
+  const caseId = found.id;
   const rows = db
     .select({ ...getTableColumns(proposals), createdByName: users.name, stage: quotes.stage })
     .from(proposals)

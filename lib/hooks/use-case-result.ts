@@ -17,11 +17,10 @@ export const caseKeys = {
   result: (caseId: CaseId) => [...caseKeys.detail(caseId), "result"] as const,
 };
 
-/** What `GET /api/v1/cases/{id}` answers; the results view needs only the input the engine gets. */
-export interface CaseWithInput {
-  id: CaseId;
-  name?: string;
+/** What `GET /api/v1/cases/{id}/result?include=input` answers: the result and the input it came from. */
+export interface CaseInputAndResult {
   input: CaseInput;
+  result: CaseResult;
 }
 
 /** A failed request, with its status so that the view can tell "not found" from "try again". */
@@ -73,29 +72,22 @@ const retry = (failures: number, error: Error) =>
     (error.status === 404 || error.status === 403 || error.status === 409)
   ) && failures < 2;
 
-export function useCase(caseId: CaseId) {
-  return useQuery({
-    queryKey: caseKeys.detail(caseId),
-    queryFn: ({ signal }) => getJson<CaseWithInput>(casePath(caseId), signal),
-    placeholderData: keepPreviousData,
-    retry,
-  });
-}
-
 /**
- * The engine's result of a case. `keepPreviousData` leaves the last result on screen while an
- * edit is recomputed, so the charts do not blank between keystrokes.
+ * The engine's result of a case with the input it was computed from, in one request (so an edit
+ * costs one GET, not one for the case and one for its result). `keepPreviousData` leaves the
+ * last result on screen while an edit is recomputed, so the charts do not blank between keystrokes.
  */
 export function useCaseResult(caseId: CaseId) {
   return useQuery({
     queryKey: caseKeys.result(caseId),
-    queryFn: ({ signal }) => getJson<CaseResult>(`${casePath(caseId)}/result`, signal),
+    queryFn: ({ signal }) =>
+      getJson<CaseInputAndResult>(`${casePath(caseId)}/result?include=input`, signal),
     placeholderData: keepPreviousData,
     retry,
   });
 }
 
-/** After an edit: refetch the case and its result (the key prefix covers both). */
+/** After an edit: refetch everything under the case's key (on the case page: its one result query). */
 export function invalidateCase(queryClient: QueryClient, caseId: CaseId) {
   return queryClient.invalidateQueries({ queryKey: caseKeys.detail(caseId) });
 }

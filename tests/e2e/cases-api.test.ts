@@ -99,6 +99,18 @@ describe("business cases over HTTP", () => {
     const result = caseResultSchema.parse(await res.json());
     expect(result.currency).toBe(found.input.currency);
     expect(result.axes.map((a) => a.id)).toEqual(found.input.axes.map((a) => a.id));
+
+    // The case page's single request: the same input and the same result in one body.
+    const both = (await (
+      await request(engineer, `/api/v1/cases/${mine.id}/result?include=input`)
+    ).json()) as { input: unknown; result: unknown };
+    expect(both.input).toEqual(found.input);
+    expect(caseResultSchema.parse(both.result)).toEqual(result);
+    const wrong = await request(engineer, `/api/v1/cases/${mine.id}/result?include=everything`);
+    expect(wrong.status).toBe(422);
+    expect(JSON.stringify(await wrong.json())).toContain(
+      "include: the only accepted value is input",
+    );
   });
 
   it("freezes the next proposal version (201), lists it with its changes, and serves both workbooks", async () => {

@@ -43,13 +43,26 @@ describe("an engineer builds a case and freezes a proposal", () => {
     await screenshot(page, "case-results");
   });
 
-  it("a higher tariff moves the NPV; freezing makes version 1 with a workbook", async () => {
+  it("a higher tariff moves the NPV with one request for the new figures; freezing makes version 1 with a workbook", async () => {
     const before = await physicsNpv();
+    const caseReads: string[] = [];
+    const countCaseReads = (request: { method(): string; url(): string }) => {
+      if (request.method() === "GET" && request.url().includes("/api/v1/cases/"))
+        caseReads.push(new URL(request.url()).pathname + new URL(request.url()).search);
+    };
+    page.on("request", countCaseReads);
     const tariff = page.getByLabel(/Electricity tariff/);
     await tariff.fill("0.60");
     await page.getByRole("button", { name: "Apply assumptions" }).click();
     await page.getByText("Assumptions saved; the results are recomputing.").waitFor();
     await expect.poll(physicsNpv, { timeout: 15_000 }).not.toBe(before);
+    // Past the form's 400 ms debounce and any late second request: the input and the result
+    // came in one GET.
+    await page.waitForTimeout(1_500);
+    page.off("request", countCaseReads);
+    expect(caseReads).toEqual([
+      expect.stringMatching(/^\/api\/v1\/cases\/\d+\/result\?include=input$/),
+    ]);
 
     await page.getByRole("button", { name: "Freeze as proposal" }).click();
     await page.getByText("Frozen as proposal version 1.").waitFor();

@@ -30,7 +30,8 @@ export async function updateSiteAction(siteId: number, values: unknown) {
   const result = await runAction(EDITORS, siteInputSchema, values, (caller, data) =>
     updateSite(caller, requireId(siteId), data),
   );
-  if (result.ok) revalidatePath(`/sites/${siteId}`);
+  // The site's pages, its edit form among them.
+  if (result.ok) revalidatePath(`/sites/${siteId}`, "layout");
   return result;
 }
 
@@ -49,7 +50,11 @@ export async function updateMachineAction(machineId: number, values: unknown) {
   const result = await runAction(EDITORS, machineInputSchema, values, (caller, data) =>
     updateMachine(caller, requireId(machineId), data),
   );
-  if (result.ok) revalidatePath("/sites", "layout");
+  if (result.ok) {
+    // The machine's own page (where it is edited) and the site pages that list it.
+    revalidatePath(`/machines/${machineId}`);
+    revalidatePath("/sites", "layout");
+  }
   return result;
 }
 

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
-import { getCaseOrThrow } from "@/db/queries/cases";
 import { requirePageUser } from "@/lib/auth";
-import { idParam, orNotFound } from "@/lib/pages";
+import { idParam } from "@/lib/pages";
+import { readCase } from "./case-reads";
 
 // A case outside the caller's accounts answers a real 404, the same as a missing one.
 export default async function CaseLayout({
@@ -12,7 +12,6 @@ export default async function CaseLayout({
   params: Promise<{ caseId: string }>;
 }) {
   const user = await requirePageUser("engineer", "manager", "admin");
-  const id = idParam((await params).caseId);
-  orNotFound(() => getCaseOrThrow(user, id));
+  readCase(user, idParam((await params).caseId));
   return children;
 }

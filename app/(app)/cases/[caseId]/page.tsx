@@ -7,12 +7,12 @@ import { StageBadge } from "@/components/cases/stage-badge";
 import { CaseResults } from "@/components/results/case-results";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { listAxesForExport } from "@/db/queries/axes";
+import { listAxisPickerOptions } from "@/db/queries/axes";
 import { listKits } from "@/db/queries/catalogue";
-import { getCaseOrThrow, listCaseAxes, listProposals } from "@/db/queries/cases";
-import { getSiteOrThrow } from "@/db/queries/sites";
+import { listCaseAxesOf, listProposalsOf } from "@/db/queries/cases";
 import { requirePageUser } from "@/lib/auth";
 import { idParam } from "@/lib/pages";
+import { readCase } from "./case-reads";
 
 export const metadata: Metadata = { title: "Case" };
 
@@ -23,12 +23,12 @@ const PICKER_LIMIT = 5000;
 export default async function CasePage({ params }: { params: Promise<{ caseId: string }> }) {
   const user = await requirePageUser("engineer", "manager", "admin");
   const caseId = idParam((await params).caseId);
-  const item = getCaseOrThrow(user, caseId);
-  const site = getSiteOrThrow(user, item.siteId);
-  const caseAxes = listCaseAxes(user, caseId);
-  const siteAxes = listAxesForExport(user, item.siteId, 0, PICKER_LIMIT).axes;
-  const kits = listKits(user).filter((k) => k.currency === site.currency);
-  const proposals = listProposals(user, caseId);
+  // The layout has read the case already: readCase returns that row, without a query.
+  const item = readCase(user, caseId);
+  const caseAxes = listCaseAxesOf(item);
+  const siteAxes = listAxisPickerOptions(user, item.siteId, PICKER_LIMIT);
+  const kits = listKits(user).filter((k) => k.currency === item.siteCurrency);
+  const proposals = listProposalsOf(item);
 
   return (
     <div className="space-y-6">
@@ -44,12 +44,7 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
         <CaseAxesEditor
           caseId={caseId}
           caseAxes={caseAxes}
-          siteAxes={siteAxes.map((a) => ({
-            id: a.id,
-            label: a.label,
-            machineName: a.machineName,
-            quantity: a.quantity,
-          }))}
+          siteAxes={siteAxes}
           kits={kits.map((k) => ({
             id: k.id,
             code: k.code,
@@ -60,7 +55,7 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
         />
       </Panel>
       <Panel title="Assumptions">
-        <AssumptionsForm caseId={caseId} values={item.assumptions} currency={site.currency} />
+        <AssumptionsForm caseId={caseId} values={item.assumptions} currency={item.siteCurrency} />
       </Panel>
       <Panel title={`Proposals (${proposals.length})`}>
         <ProposalsList proposals={proposals} />

@@ -1,14 +1,22 @@
-import { caseResultJson } from "@/db/queries/cases";
+import { z } from "zod";
+import { caseInputAndResultJson, caseResultJson } from "@/db/queries/cases";
 import { withApi } from "@/lib/api/handler";
 import { idFromRoute } from "@/lib/api/params";
 import { requireRole } from "@/lib/auth";
 
-// The CaseResult of docs/model.md for the case as it stands now.
+const includeParam = z
+  .enum(["input"], { error: "include: the only accepted value is input" })
+  .nullable();
+
+// The CaseResult of docs/model.md for the case as it stands now. With `?include=input` the body
+// is `{ input, result }`: the CaseInput the engine received beside it (the case page's one request).
 export const GET = withApi(
-  async (_request: Request, context: { params: Promise<{ caseId: string }> }) => {
+  async (request: Request, context: { params: Promise<{ caseId: string }> }) => {
     const caller = await requireRole("engineer", "manager", "admin");
     const caseId = idFromRoute((await context.params).caseId);
-    return new Response(caseResultJson(caller, caseId), {
+    const include = includeParam.parse(new URL(request.url).searchParams.get("include"));
+    const body = include ? caseInputAndResultJson(caller, caseId) : caseResultJson(caller, caseId);
+    return new Response(body, {
       headers: {
         "content-type": "application/json",
         // A result follows every edit of the case, its site or the catalogue: never reuse one.
