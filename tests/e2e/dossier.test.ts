@@ -146,6 +146,14 @@ describe("the paid dossier in Chromium", () => {
 
     expect(await downloadedSheetNames(page)).toContain("Uncertainty");
 
+    // The page streams: its first part holds the skeleton of the report, and the report, computed
+    // afterwards, follows in the same response (React's Suspense fallback, then the content).
+    const html = await (await page.request.get(page.url())).text();
+    const skeletonAt = html.indexOf("Computing the dossier");
+    const reportAt = html.indexOf("Uncertainty: P10, P50 and P90");
+    expect(skeletonAt).toBeGreaterThan(-1);
+    expect(reportAt).toBeGreaterThan(skeletonAt);
+
     await page.emulateMedia({ media: "print" });
     await screenshot(page, "dossier-report-print");
     await page.emulateMedia({ media: "screen" });
