@@ -145,7 +145,10 @@ export function modelTorqueNm(m: TorqueModel, rpm: number): number {
   if (rpm > 0 && m.hasIronLoss) {
     // T_drag = P_fe/ω_m with f_e = Nr·n/60 (same as dragTorqueNm, on the flat model).
     const fe = (m.rotorTeeth * rpm) / 60;
-    torque -= (m.hysteresisWPerHz * fe + m.eddyWPerHz2 * fe * fe) / rpmToRadPerS(rpm);
+    // fe/ω_m = N_r/2π at every speed, so T_drag = (k_h + k_e·f_e)·N_r/2π: written without the
+    // division by ω_m, a speed of 1e-320 rpm (subnormal, ω_m inexact or 0) gives the same drag
+    // as 1e-6 rpm instead of a 0/0 or a drag off by a tenth of a percent.
+    torque -= ((m.hysteresisWPerHz + m.eddyWPerHz2 * fe) * m.rotorTeeth) / (2 * Math.PI);
   }
   return torque > 0 ? torque : 0;
 }

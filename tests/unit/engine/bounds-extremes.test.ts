@@ -4,6 +4,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { caseInputSchema, evaluateCase } from "@/lib/engine";
 import { NonFiniteResultError } from "@/lib/engine/evaluate";
+import { modelTorqueNm, torqueModel } from "@/lib/engine/capability";
 import { dragTorqueNm } from "@/lib/engine/motor";
 import { COPPER_MELTING_C, insulationLifeFactor } from "@/lib/engine/thermal";
 import { FIELD_BOUNDS, MONEY_MAX, type BoundedField } from "@/lib/engine/schema-fields";
@@ -358,6 +359,19 @@ describe("the sources that overflowed before", () => {
     // P_fe/ω_m = N_r·(k_h + k_e·f_e)/(2π): at 10^-320 rpm that is N_r·k_h/(2π).
     expect(dragTorqueNm(motor, 5e-324)).toBeCloseTo((50 * 0.004) / (2 * Math.PI), 12);
     expect(dragTorqueNm(motor, 1e-9)).toBeCloseTo((50 * 0.004) / (2 * Math.PI), 12);
+    // The flat model behind the torque curve takes the same limit: just above standstill the
+    // torque runs on continuously from a small ordinary speed, not to 0 from a 0/0 (NaN) that
+    // the clamp at 0 would hide.
+    const model = torqueModel(motor, {
+      currentLimitA: 1.5 * motor.ratedCurrentA,
+      resistanceOhm: motor.phaseResistanceOhm,
+      busVoltageV: 24,
+    });
+    const nearRest = modelTorqueNm(model, 1e-6);
+    expect(nearRest).toBeGreaterThan(0);
+    for (const rpm of [5e-324, 1e-320, 1e-300]) {
+      expect(modelTorqueNm(model, rpm)).toBeCloseTo(nearRest, 6);
+    }
   });
 
   it("refuses the values that used to divide by almost nothing, naming the bound", () => {
