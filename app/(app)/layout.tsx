@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
 import { AppShell } from "@/components/shell/app-shell";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 // The vendor's shell: engineers, managers and administrators. Reviewers have their own portal.
 export default async function VendorLayout({ children }: { children: ReactNode }) {

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import { changeRoleAction, setActiveAction } from "@/app/(app)/admin/actions";
+import { changeRoleAction, setActiveAction } from "@/server/admin/actions";
 import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/field";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";

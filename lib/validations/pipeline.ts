@@ -1,6 +1,6 @@
 import { displayName } from "./display-name";
 import { z } from "zod";
-import { idSchema } from "@/lib/api/params";
+import { idSchema } from "@/lib/validations/ids";
 import { QUOTE_STAGES } from "@/db/schema/quotes";
 import { bounded, int, money } from "@/lib/engine/schema-fields";
 

@@ -1,6 +1,6 @@
 import { displayName } from "./display-name";
 import { z } from "zod";
-import { idSchema } from "@/lib/api/params";
+import { idSchema } from "@/lib/validations/ids";
 import { ROLES } from "@/db/schema/users";
 
 const roleField = z.enum(ROLES, { error: "Choose one of: engineer, manager, reviewer, admin" });

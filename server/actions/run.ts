@@ -1,6 +1,6 @@
 import "server-only";
 import type { z } from "zod";
-import { requireRole } from "@/lib/auth";
+import { requireRole } from "@/server/auth";
 import type { Role } from "@/lib/auth/roles";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { failed, invalid, type ActionResult } from "./result";

@@ -3,7 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { saveSalesSettings } from "@/db/queries/sales-settings";
 import { changeRole, createUser, setUserActive } from "@/db/queries/users";
-import { runAction } from "@/lib/actions/run";
+import { runAction } from "@/server/actions/run";
 import { salesSettingsSchema } from "@/lib/validations/pipeline";
 import { changeRoleSchema, createUserSchema, setActiveSchema } from "@/lib/validations/user";
 

@@ -4,8 +4,8 @@ import { notFound, redirect } from "next/navigation";
 import { findSessionUser } from "@/db/queries/users";
 import { ForbiddenError, UnauthorizedError } from "@/lib/errors";
 import { authOptions } from "./options";
-import type { Role } from "./roles";
-import type { SessionUser } from "./session-user";
+import type { Role } from "@/lib/auth/roles";
+import type { SessionUser } from "@/lib/auth/session-user";
 
 export type { SessionUser };
 

@@ -3,9 +3,9 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { recordAudit } from "@/db/queries/audit";
 import { findUserForSignIn, revokeSessions } from "@/db/queries/users";
 import { signInSchema } from "@/lib/validations/sign-in";
-import { sameOriginPath } from "./callback-url";
+import { sameOriginPath } from "@/lib/auth/callback-url";
 import { clientAddress } from "./client-address";
-import { hashPassword, verifyPassword } from "./password";
+import { hashPassword, verifyPassword } from "@/lib/auth/password";
 import { clearFailures, describeWait, recordFailure, retryAfterMs } from "./rate-limit";
 
 const UNKNOWN_USER_HASH = hashPassword("no user has this password");

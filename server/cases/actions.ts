@@ -1,16 +1,10 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import {
-  createCase,
-  freezeProposal,
-  setAxisRetrofit,
-  setCaseAxes,
-  suggestKitsForCase,
-  updateAssumptions,
-} from "@/db/queries/cases";
-import { runAction } from "@/lib/actions/run";
-import { requireId } from "@/lib/api/params";
+import { createCase, setAxisRetrofit, setCaseAxes, suggestKitsForCase, updateAssumptions } from "@/db/queries/cases";
+import { freezeProposal } from "@/server/cases/freeze";
+import { runAction } from "@/server/actions/run";
+import { requireId } from "@/lib/validations/ids";
 import type { Role } from "@/lib/auth/roles";
 import {
   axisRetrofitSchema,

@@ -3,9 +3,9 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { saveKit, saveMotor, setCatalogueActive } from "@/db/queries/catalogue";
-import { failed, invalid, type ActionResult } from "@/lib/actions/result";
-import { requireRole } from "@/lib/auth";
-import { idSchema, requireId } from "@/lib/api/params";
+import { failed, invalid, type ActionResult } from "@/server/actions/result";
+import { requireRole } from "@/server/auth";
+import { idSchema, requireId } from "@/lib/validations/ids";
 import { ConflictError } from "@/lib/errors";
 import { kitInputSchema, motorInputSchema } from "@/lib/validations/catalogue";
 

@@ -3,11 +3,11 @@
 import { revalidatePath } from "next/cache";
 import { notFound } from "next/navigation";
 import { saveDossierSettings, setDossierPrice } from "@/db/queries/dossiers";
-import { runAction } from "@/lib/actions/run";
-import { requireId } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { runAction } from "@/server/actions/run";
+import { requireId } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { ForbiddenError, NotFoundError } from "@/lib/errors";
-import { closeOpenCheckout } from "@/lib/payments/checkout";
+import { closeOpenCheckout } from "@/server/payments/checkout";
 import { dossierPriceSchema, uncertaintySettingsSchema } from "@/lib/validations/dossier";
 
 export async function saveDossierSettingsAction(proposalId: number, values: unknown) {

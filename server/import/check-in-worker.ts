@@ -1,9 +1,9 @@
 import os from "node:os";
 import path from "node:path";
 import { Worker } from "node:worker_threads";
-import { ImportFileError } from "./errors";
-import type { checkImportFile } from "./run-import";
-import type { CheckFileReply, CheckFileRequest } from "./worker/check-file-worker";
+import { ImportFileError } from "@/lib/import/errors";
+import type { checkImportFile } from "@/lib/import/run-import";
+import type { CheckFileReply, CheckFileRequest } from "@/lib/import/worker/check-file-worker";
 
 /**
  * Uploads are read in worker threads, never on the thread that answers requests: a large

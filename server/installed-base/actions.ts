@@ -4,8 +4,8 @@ import { revalidatePath } from "next/cache";
 import { createAxis, updateAxis } from "@/db/queries/axes";
 import { createMachine, updateMachine } from "@/db/queries/machines";
 import { createSite, updateSite } from "@/db/queries/sites";
-import { runAction } from "@/lib/actions/run";
-import { requireId } from "@/lib/api/params";
+import { runAction } from "@/server/actions/run";
+import { requireId } from "@/lib/validations/ids";
 import type { Role } from "@/lib/auth/roles";
 import {
   axisInputSchema,

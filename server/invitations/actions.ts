@@ -1,7 +1,7 @@
 "use server";
 
 import { acceptInvitation } from "@/db/queries/invitations";
-import { failed, invalid, type ActionResult } from "@/lib/actions/result";
+import { failed, invalid, type ActionResult } from "@/server/actions/result";
 import { setPasswordSchema } from "@/lib/validations/invitation";
 
 // Public: the token in the link is the credential, so there is no caller to check here.

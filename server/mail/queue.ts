@@ -9,7 +9,7 @@ import {
   retryDelayMs,
   type MailDelivery,
 } from "./delivery";
-import type { MailContent } from "./layout";
+import type { MailContent } from "@/lib/mail/layout";
 
 export type { MailDelivery };
 

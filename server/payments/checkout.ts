@@ -9,7 +9,7 @@ import { VENDOR_ROLES } from "@/db/queries/proposals";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError } from "@/lib/errors";
 import { stripeClient } from "./client";
-import { minorUnits } from "./minor-units";
+import { minorUnits } from "@/lib/payments/minor-units";
 
 /** The app's public URL, as the payment provider sends the customer back to it. */
 export function appOrigin(): string {

@@ -1,7 +1,7 @@
 import "server-only";
 import Stripe from "stripe";
-import { recordPaymentEvent, type RecordedEvent } from "@/db/queries/payments";
-import { deliverMail } from "@/lib/mail/queue";
+import { recordPaymentEvent, type RecordedEvent } from "@/server/payments/record-event";
+import { deliverMail } from "@/server/mail/queue";
 import { MISSING_WEBHOOK_SECRET, PaymentConfigError, paymentConfig } from "./config";
 
 export class BadSignatureError extends Error {}

@@ -1,10 +1,11 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { addComment } from "@/db/queries/proposal-review";
-import { approveDiscount, sendProposal, updateQuote } from "@/db/queries/quotes";
-import { runAction } from "@/lib/actions/run";
-import { requireId } from "@/lib/api/params";
+import { addComment } from "@/server/review/decisions";
+import { approveDiscount, updateQuote } from "@/db/queries/quotes";
+import { sendProposal } from "@/server/proposals/send";
+import { runAction } from "@/server/actions/run";
+import { requireId } from "@/lib/validations/ids";
 import type { Role } from "@/lib/auth/roles";
 import { caseIdSchema } from "@/lib/validations/case";
 import { commentSchema, quoteUpdateSchema, sendProposalSchema } from "@/lib/validations/pipeline";

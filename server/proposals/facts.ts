@@ -1,6 +1,6 @@
 import type { CaseInput } from "@/lib/engine";
 import type { ProposalFacts } from "@/lib/mail/messages";
-import type { QuoteRow } from "./proposals";
+import type { QuoteRow } from "@/db/queries/proposals";
 
 /** The figures a message quotes about a proposal. */
 export function proposalFacts(quote: QuoteRow, input: CaseInput): ProposalFacts {

@@ -1,9 +1,9 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
-import { addComment, decideProposal } from "@/db/queries/proposal-review";
-import { runAction } from "@/lib/actions/run";
-import { requireId } from "@/lib/api/params";
+import { addComment, decideProposal } from "@/server/review/decisions";
+import { runAction } from "@/server/actions/run";
+import { requireId } from "@/lib/validations/ids";
 import { commentSchema, decisionSchema } from "@/lib/validations/pipeline";
 
 function refresh(proposalId: number) {

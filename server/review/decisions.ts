@@ -6,13 +6,13 @@ import { evaluateCase, type CaseResult } from "@/lib/engine";
 import { ConflictError } from "@/lib/errors";
 import { appUrl } from "@/lib/mail/app-url";
 import { commentMail, decisionMail } from "@/lib/mail/messages";
-import { deliverMail, enqueueMail, type MailDelivery } from "@/lib/mail/queue";
+import { deliverMail, enqueueMail, type MailDelivery } from "@/server/mail/queue";
 import { DECIDABLE_STAGES, STAGE_LABELS, type QuoteStage } from "@/lib/pipeline/stages";
 import type { DecisionInput, WhatIfInput } from "@/lib/validations/pipeline";
-import { recordAudit } from "./audit";
-import { proposalFacts } from "./proposal-facts";
-import { getProposalSnapshotOrThrow, getVisibleQuoteOrThrow } from "./proposals";
-import { setQuoteStage } from "./quote-stage";
+import { recordAudit } from "@/db/queries/audit";
+import { proposalFacts } from "@/server/proposals/facts";
+import { getProposalSnapshotOrThrow, getVisibleQuoteOrThrow } from "@/db/queries/proposals";
+import { setQuoteStage } from "@/db/queries/quote-stage";
 
 const STAGE_OF_DECISION: Record<DecisionInput["decision"], QuoteStage> = {
   accept: "accepted",

@@ -2,21 +2,9 @@ import Decimal from "decimal.js";
 import { describe, expect, it } from "vitest";
 import { getAxisOrThrow, listAxes, listAxesForExport, updateAxis } from "@/db/queries/axes";
 import { recordAudit } from "@/db/queries/audit";
-import {
-  buildCaseInput,
-  caseResult,
-  createCase,
-  freezeProposal,
-  getCaseOrThrow,
-  getProposalOrThrow,
-  listCaseAxes,
-  listCases,
-  listProposals,
-  setAxisRetrofit,
-  setCaseAxes,
-  suggestKitsForCase,
-  updateAssumptions,
-} from "@/db/queries/cases";
+import { buildCaseInput, createCase, getCaseOrThrow, getProposalOrThrow, listCaseAxes, listCases, listProposals, setAxisRetrofit, setCaseAxes, suggestKitsForCase, updateAssumptions } from "@/db/queries/cases";
+import { freezeProposal } from "@/server/cases/freeze";
+import { caseResult } from "@/server/cases/results";
 import { listKits, listMotors, saveKit } from "@/db/queries/catalogue";
 import { listSites } from "@/db/queries/sites";
 import { caseInputSchema, evaluateCase, suggestKit, type KitInput } from "@/lib/engine";

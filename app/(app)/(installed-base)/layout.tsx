@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 // The installed base is the vendor's: reviewers get a real 404 here (checked in the layout,
 // outside the pages' loading boundaries). Each query checks the account scope again.

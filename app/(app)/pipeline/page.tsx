@@ -9,7 +9,7 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { pipeline, pipelineFilterOptions, pipelineWinRate } from "@/db/queries/pipeline";
 import { getSalesSettings } from "@/db/queries/sales-settings";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { firstParam, type SearchParams } from "@/lib/pages";
 import { sum } from "@/lib/pipeline/figures";
 import { OPEN_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";

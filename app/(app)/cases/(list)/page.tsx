@@ -6,7 +6,7 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listCases } from "@/db/queries/cases";
 import { listSites } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 export const metadata: Metadata = { title: "Cases" };
 

@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
 import { getCaseOrThrow } from "@/db/queries/cases";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
 // A case outside the caller's accounts answers a real 404, the same as a missing one.

@@ -11,7 +11,7 @@ import { listAxesForExport } from "@/db/queries/axes";
 import { listKits } from "@/db/queries/catalogue";
 import { getCaseOrThrow, listCaseAxes, listProposals } from "@/db/queries/cases";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam } from "@/lib/pages";
 
 export const metadata: Metadata = { title: "Case" };

@@ -6,7 +6,7 @@ import { buttonClass } from "@/components/ui/button";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listKits, listMotors } from "@/db/queries/catalogue";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { currencyMinorUnits, roundMoney } from "@/lib/engine/money";
 
 export const metadata: Metadata = { title: "Catalogue" };

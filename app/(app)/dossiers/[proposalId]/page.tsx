@@ -6,7 +6,7 @@ import { UncertaintyForm } from "@/components/dossiers/uncertainty-form";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { formatMoney } from "@/lib/results/format";
 import { idParam, orNotFound } from "@/lib/pages";
 

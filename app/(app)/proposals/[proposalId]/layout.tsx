@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
 import { vendorQuoteOrThrow } from "@/db/queries/proposals";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
 // A proposal outside the caller's accounts answers a real 404, the same as a missing one.

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { listAccounts } from "@/db/queries/accounts";
-import { withApi } from "@/lib/api/handler";
-import { requireRole } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { requireRole } from "@/server/auth";
 
 export const GET = withApi(async () => {
   const caller = await requireRole("engineer", "manager", "admin");

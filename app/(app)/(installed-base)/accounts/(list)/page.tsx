@@ -3,7 +3,7 @@ import Link from "next/link";
 import { EmptyState, PageHeader } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listAccounts } from "@/db/queries/accounts";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 export const metadata: Metadata = { title: "Accounts" };
 

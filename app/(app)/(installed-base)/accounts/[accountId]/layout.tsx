@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
 import { getAccountOrThrow } from "@/db/queries/accounts";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
 // The scope check sits in the layout, outside the page's loading boundary, so an account the

@@ -6,7 +6,7 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { getAccountOrThrow } from "@/db/queries/accounts";
 import { listSites } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
 export const metadata: Metadata = { title: "Account" };

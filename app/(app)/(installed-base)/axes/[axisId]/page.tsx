@@ -6,7 +6,7 @@ import { PageHeader, Panel } from "@/components/ui/panel";
 import { getAxisOrThrow } from "@/db/queries/axes";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
 export const metadata: Metadata = { title: "Edit axis" };

@@ -11,7 +11,7 @@ import { listAxes } from "@/db/queries/axes";
 import { listImports } from "@/db/queries/imports";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { IMPORT_FIELDS } from "@/lib/import/fields";
 import { firstParam, idParam, orNotFound, type SearchParams } from "@/lib/pages";
 import { axisListParamsSchema } from "@/lib/validations/installed-base";

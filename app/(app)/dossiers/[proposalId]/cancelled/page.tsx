@@ -4,9 +4,9 @@ import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess } from "@/db/queries/dossiers";
 import { latestOpenCheckout } from "@/db/queries/payments";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
-import { closeDossierCheckoutAction } from "../../actions";
+import { closeDossierCheckoutAction } from "@/server/dossiers/actions";
 
 export const metadata: Metadata = { title: "Checkout cancelled" };
 

@@ -4,9 +4,9 @@ import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess } from "@/db/queries/dossiers";
 import { getCheckoutOrThrow } from "@/db/queries/payments";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { firstParam, idParam, orNotFound, type SearchParams } from "@/lib/pages";
-import { stripeClient } from "@/lib/payments/client";
+import { stripeClient } from "@/server/payments/client";
 import { formatMoney } from "@/lib/results/format";
 
 export const metadata: Metadata = { title: "Payment" };

@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { getAxisOrThrow, updateAxis } from "@/db/queries/axes";
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { invalidBody } from "@/lib/api/invalid";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { invalidBody } from "@/server/api/invalid";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { axisApiSchema, MAX_AXIS_BYTES } from "@/lib/validations/installed-base";
 
 type Context = { params: Promise<{ axisId: string }> };

@@ -1,8 +1,8 @@
 import { NextResponse } from "next/server";
 import { buildCaseInput, getCaseOrThrow } from "@/db/queries/cases";
-import { withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 
 // The case with `input`, the full CaseInput the engine receives for it (docs/model.md).
 export const GET = withApi(

@@ -1,5 +1,5 @@
-import { withApi } from "@/lib/api/handler";
-import { requireRole } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { requireRole } from "@/server/auth";
 import { NotFoundError } from "@/lib/errors";
 import { templateCsv, templateXlsx } from "@/lib/import";
 

@@ -1,6 +1,6 @@
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { requireRole } from "@/lib/auth";
-import { createDossierCheckout } from "@/lib/payments/checkout";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { requireRole } from "@/server/auth";
+import { createDossierCheckout } from "@/server/payments/checkout";
 import { checkoutRequestSchema } from "@/lib/validations/dossier";
 
 // Starts paying for a proposal's dossier: { proposalId } in, the hosted checkout's URL out. The

@@ -3,7 +3,7 @@ import { SiteForm } from "@/components/installed-base/site-form";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
 export const metadata: Metadata = { title: "Edit site" };

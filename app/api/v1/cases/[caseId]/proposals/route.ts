@@ -1,8 +1,9 @@
 import { NextResponse } from "next/server";
-import { freezeProposal, listProposals } from "@/db/queries/cases";
-import { withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { listProposals } from "@/db/queries/cases";
+import { freezeProposal } from "@/server/cases/freeze";
+import { withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 
 type Context = { params: Promise<{ caseId: string }> };
 

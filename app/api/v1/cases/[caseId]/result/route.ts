@@ -1,7 +1,7 @@
-import { caseResultJson } from "@/db/queries/cases";
-import { withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { caseResultJson } from "@/server/cases/results";
+import { withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 
 // The CaseResult of docs/model.md for the case as it stands now.
 export const GET = withApi(

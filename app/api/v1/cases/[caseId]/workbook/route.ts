@@ -1,7 +1,8 @@
-import { buildCaseInput, caseResult, getCaseOrThrow } from "@/db/queries/cases";
-import { withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { buildCaseInput, getCaseOrThrow } from "@/db/queries/cases";
+import { caseResult } from "@/server/cases/results";
+import { withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { caseInputSchema } from "@/lib/engine";
 import { buildProposalWorkbook } from "@/lib/workbook";
 

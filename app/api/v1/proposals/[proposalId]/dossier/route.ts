@@ -1,7 +1,7 @@
 import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
-import { jsonError, withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { jsonError, withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { buildDossier } from "@/lib/dossier";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 import { buildDossierWorkbook } from "@/lib/workbook";

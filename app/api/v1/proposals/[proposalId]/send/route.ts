@@ -1,8 +1,8 @@
 import { NextResponse } from "next/server";
-import { sendProposal } from "@/db/queries/quotes";
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { sendProposal } from "@/server/proposals/send";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { sendProposalSchema } from "@/lib/validations/pipeline";
 
 // Sends the proposal to the customer's reviewer `{ email, name }`; `mail.status` is "queued"

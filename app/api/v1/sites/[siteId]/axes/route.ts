@@ -3,10 +3,10 @@ import { z } from "zod";
 import { createAxis, listAxesForExport } from "@/db/queries/axes";
 import { getMachineOrThrow } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { invalidBody } from "@/lib/api/invalid";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { invalidBody } from "@/server/api/invalid";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { NotFoundError } from "@/lib/errors";
 import { axisApiSchema, MAX_AXIS_BYTES } from "@/lib/validations/installed-base";
 

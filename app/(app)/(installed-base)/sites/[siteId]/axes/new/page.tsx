@@ -4,7 +4,7 @@ import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
 export const metadata: Metadata = { title: "Add axis" };
