@@ -12,7 +12,7 @@ import {
   type CreateUserFormValues,
   type CreateUserInput,
 } from "@/lib/validations/user";
-import { ROLES } from "@/db/schema/users";
+import { ROLES } from "@/lib/auth/roles";
 
 type Option = { id: number; name: string };
 

@@ -1,3 +1,4 @@
+import "server-only";
 import type { ZodError } from "zod";
 import { ConflictError, ForbiddenError, NotFoundError, UnauthorizedError } from "@/lib/errors";
 

@@ -1,3 +1,4 @@
+import "server-only";
 import type { z } from "zod";
 import { formatIssues, formatPath } from "@/lib/engine";
 import { jsonError } from "./handler";

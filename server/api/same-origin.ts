@@ -1,3 +1,4 @@
+import "server-only";
 import { appUrl } from "@/lib/mail/app-url";
 
 const UNSAFE_METHODS = new Set(["POST", "PUT", "PATCH", "DELETE"]);

@@ -1,3 +1,4 @@
+import "server-only";
 /**
  * The client's address for the sign-in throttle.
  *

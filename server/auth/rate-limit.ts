@@ -1,3 +1,4 @@
+import "server-only";
 import { eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { signInThrottle } from "@/db/schema";

@@ -1,4 +1,5 @@
 "use server";
+import "server-only";
 
 import { revalidatePath } from "next/cache";
 import { createCase, setAxisRetrofit, setCaseAxes, suggestKitsForCase, updateAssumptions } from "@/db/queries/cases";

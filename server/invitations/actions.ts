@@ -1,4 +1,5 @@
 "use server";
+import "server-only";
 
 import { acceptInvitation } from "@/db/queries/invitations";
 import { failed, invalid, type ActionResult } from "@/server/actions/result";

@@ -1,3 +1,5 @@
+// No "server-only" guard here: lib/cli/app-server.ts and lib/cli/start.ts load this file with
+// plain tsx, outside a React Server Component bundle, where the guard would throw.
 import { and, asc, eq, lte } from "drizzle-orm";
 import type { Db } from "../../db/client";
 import { mailQueue } from "../../db/schema/mail";

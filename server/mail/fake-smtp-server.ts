@@ -1,3 +1,5 @@
+// No "server-only" guard here: lib/cli/app-server.ts and lib/cli/start.ts load this file with
+// plain tsx, outside a React Server Component bundle, where the guard would throw.
 import { simpleParser, type AddressObject } from "mailparser";
 import { SMTPServer } from "smtp-server";
 import type { Db } from "../../db/client";

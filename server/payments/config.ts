@@ -1,3 +1,5 @@
+// No "server-only" guard here: lib/cli/app-server.ts and lib/cli/start.ts load this file with
+// plain tsx, outside a React Server Component bundle, where the guard would throw.
 /**
  * The payment provider's settings from the environment. Without any, `npm start` and the tests
  * run the local fake payment API (lib/payments/fake) and point the real SDK at it with these

@@ -1,3 +1,4 @@
+import "server-only";
 import type { CaseInput } from "@/lib/engine";
 import type { ProposalFacts } from "@/lib/mail/messages";
 import type { QuoteRow } from "@/db/queries/proposals";

@@ -1,3 +1,4 @@
+import "server-only";
 import { asc, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { proposalComments, users } from "@/db/schema";

@@ -5,7 +5,7 @@ import { Wordmark } from "@/components/shell/brand-mark";
 import { getSessionUser } from "@/server/auth";
 import { sameOriginPath } from "@/lib/auth/callback-url";
 import { homeFor } from "@/lib/auth/roles";
-import { demoUsers, isDemoMode } from "@/lib/demo";
+import { demoUsers, isDemoMode } from "@/server/demo";
 
 export const metadata: Metadata = { title: "Sign in" };
 

@@ -1,3 +1,4 @@
+import "server-only";
 import { DEMO_PASSWORD, DEMO_USERS } from "@/db/demo/users";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 
