@@ -3,6 +3,7 @@ import { db } from "@/db";
 import { accounts, accountShares, users } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { NotFoundError } from "@/lib/errors";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // The WHERE clause that limits accounts to what the caller may see: managers and admins see all,
 // engineers the accounts they own or are shared on, reviewers their own account.
@@ -38,7 +39,7 @@ export type AccountRow = {
 };
 
 // The vendor's roles may browse the installed base; a reviewer sees proposals only.
-export const INSTALLED_BASE_ROLES = ["engineer", "manager", "admin"] as const;
+export const INSTALLED_BASE_ROLES = VENDOR_ROLES;
 
 export function listAccounts(caller: SessionUser): AccountRow[] {
   assertRole(caller, ...INSTALLED_BASE_ROLES);

@@ -8,7 +8,7 @@ import { failed, invalid, type ActionResult } from "./result";
 // The shape of every form action: check the caller's role, validate with the shared zod schema,
 // run the query, and turn known failures into a message for the form.
 export async function runAction<S extends z.ZodType, T>(
-  roles: Role[],
+  roles: readonly Role[],
   schema: S,
   values: unknown,
   mutate: (caller: SessionUser, data: z.infer<S>) => T | Promise<T>,

@@ -6,7 +6,7 @@ import { createCase, setAxisRetrofit, setCaseAxes, suggestKitsForCase, updateAss
 import { freezeProposal } from "@/server/cases/freeze";
 import { runAction } from "@/server/actions/run";
 import { requireId } from "@/lib/validations/ids";
-import type { Role } from "@/lib/auth/roles";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 import {
   axisRetrofitSchema,
   caseAssumptionsSchema,
@@ -15,7 +15,7 @@ import {
   createCaseSchema,
 } from "@/lib/validations/case";
 
-const EDITORS: Role[] = ["engineer", "manager", "admin"];
+const EDITORS = VENDOR_ROLES;
 
 // Each edit changes the case's figures, so its pages and the list (stage, axis count) refresh.
 function refresh(caseId: number) {

@@ -10,10 +10,11 @@ import { requireRole } from "@/server/auth";
 import { ForbiddenError, NotFoundError } from "@/lib/errors";
 import { closeOpenCheckout } from "@/server/payments/checkout";
 import { dossierPriceSchema, uncertaintySettingsSchema } from "@/lib/validations/dossier";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export async function saveDossierSettingsAction(proposalId: number, values: unknown) {
   const result = await runAction(
-    ["engineer", "manager", "admin"],
+    VENDOR_ROLES,
     uncertaintySettingsSchema,
     values,
     (caller, data) => saveDossierSettings(caller, requireId(proposalId), data),
@@ -35,7 +36,7 @@ export async function setDossierPriceAction(values: unknown) {
 // gets the not-found page, as a proposal that does not exist would: no 500, nothing confirmed.
 export async function closeDossierCheckoutAction(proposalId: number): Promise<void> {
   try {
-    const caller = await requireRole("engineer", "manager", "admin");
+    const caller = await requireRole(...VENDOR_ROLES);
     await closeOpenCheckout(caller, requireId(proposalId));
   } catch (error) {
     if (error instanceof NotFoundError || error instanceof ForbiddenError) notFound();

@@ -7,14 +7,14 @@ import { createMachine, updateMachine } from "@/db/queries/machines";
 import { createSite, updateSite } from "@/db/queries/sites";
 import { runAction } from "@/server/actions/run";
 import { requireId } from "@/lib/validations/ids";
-import type { Role } from "@/lib/auth/roles";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 import {
   axisInputSchema,
   machineInputSchema,
   siteInputSchema,
 } from "@/lib/validations/installed-base";
 
-const EDITORS: Role[] = ["engineer", "manager", "admin"];
+const EDITORS = VENDOR_ROLES;
 
 export async function createSiteAction(accountId: number, values: unknown) {
   const result = await runAction(

@@ -5,7 +5,7 @@ import {
   markCheckoutExpired,
   recordCheckoutSession,
 } from "@/db/queries/payments";
-import { VENDOR_ROLES } from "@/db/queries/proposals";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError } from "@/lib/errors";
 import { stripeClient } from "./client";

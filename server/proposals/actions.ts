@@ -7,11 +7,11 @@ import { approveDiscount, updateQuote } from "@/db/queries/quotes";
 import { sendProposal } from "@/server/proposals/send";
 import { runAction } from "@/server/actions/run";
 import { requireId } from "@/lib/validations/ids";
-import type { Role } from "@/lib/auth/roles";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { caseIdSchema } from "@/lib/validations/case";
 import { commentSchema, quoteUpdateSchema, sendProposalSchema } from "@/lib/validations/pipeline";
 
-const VENDOR: Role[] = ["engineer", "manager", "admin"];
+const VENDOR = VENDOR_ROLES;
 
 // A quote's changes show on its page, its case's version list and the pipeline.
 function refresh(proposalId: number) {

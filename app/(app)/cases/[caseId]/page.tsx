@@ -13,6 +13,7 @@ import { getCaseOrThrow, listCaseAxes, listProposals } from "@/db/queries/cases"
 import { getSiteOrThrow } from "@/db/queries/sites";
 import { requirePageUser } from "@/server/auth";
 import { idParam } from "@/lib/pages";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Case" };
 
@@ -21,7 +22,7 @@ export const metadata: Metadata = { title: "Case" };
 const PICKER_LIMIT = 5000;
 
 export default async function CasePage({ params }: { params: Promise<{ caseId: string }> }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const caseId = idParam((await params).caseId);
   const item = getCaseOrThrow(user, caseId);
   const site = getSiteOrThrow(user, item.siteId);

@@ -20,6 +20,7 @@ import { idParam } from "@/lib/pages";
 import { SENDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { formatMoney, formatPayback } from "@/lib/results/format";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -28,7 +29,7 @@ export default async function ProposalPage({
 }: {
   params: Promise<{ proposalId: string }>;
 }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).proposalId);
   const { quote: row, input: rawInput, result } = getProposalSnapshotOrThrow(user, id);
   const settings = getSalesSettings();

@@ -2,11 +2,12 @@ import { caseResultJson } from "@/server/cases/results";
 import { withApi } from "@/server/api/handler";
 import { idFromRoute } from "@/lib/validations/ids";
 import { requireRole } from "@/server/auth";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // The CaseResult of docs/model.md for the case as it stands now.
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ caseId: string }> }) => {
-    const caller = await requireRole("engineer", "manager", "admin");
+    const caller = await requireRole(...VENDOR_ROLES);
     const caseId = idFromRoute((await context.params).caseId);
     return new Response(caseResultJson(caller, caseId), {
       headers: {

@@ -6,6 +6,7 @@ import { idFromRoute } from "@/lib/validations/ids";
 import { requireRole } from "@/server/auth";
 import { ImportFileError, type MappingOverride } from "@/lib/import";
 import { checkImportFileInWorker } from "@/server/import/check-in-worker";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const MAX_IMPORT_BYTES = 10 * 1024 * 1024;
 
@@ -35,7 +36,7 @@ function parseDryRun(value: FormDataEntryValue | null): boolean {
 // multipart: file (required), dryRun ("true" validates only), mapping (JSON), sheet (name).
 export const POST = withApi(
   async (request: Request, context: { params: Promise<{ siteId: string }> }) => {
-    const caller = await requireRole("engineer", "manager", "admin");
+    const caller = await requireRole(...VENDOR_ROLES);
     const site = getSiteOrThrow(caller, idFromRoute((await context.params).siteId));
     // The multipart envelope adds a few hundred bytes to the file itself.
     if (Number(request.headers.get("content-length") ?? 0) > MAX_IMPORT_BYTES + 16 * 1024) {
