@@ -27,7 +27,15 @@ const config = [
         {
           patterns: [
             {
-              group: ["@/db", "@/db/*", "**/db", "**/db/*", "@/server", "@/server/*", "**/server/*"],
+              group: [
+                "@/db",
+                "@/db/*",
+                "**/db",
+                "**/db/*",
+                "@/server",
+                "@/server/*",
+                "**/server/*",
+              ],
               message:
                 "lib/ is pure: no database and no server code. Pass the data in, or move the code to server/.",
             },
@@ -49,7 +57,8 @@ const config = [
           patterns: [
             {
               group: ["@/server", "@/server/*", "**/server/*"],
-              message: "db/ holds schema and scoped queries; services that use them live in server/.",
+              message:
+                "db/ holds schema and scoped queries; services that use them live in server/.",
             },
             {
               group: ["@/lib/mail/*", "**/lib/mail/*"],
@@ -76,7 +85,8 @@ const config = [
               // is reached only through server actions and route handlers.
               group: ["@/db", "@/db/*", "**/db", "**/db/*"],
               allowTypeImports: true,
-              message: "components/ reach data through server/ (actions) or app/ (routes), not db/.",
+              message:
+                "components/ reach data through server/ (actions) or app/ (routes), not db/.",
             },
           ],
         },

@@ -18,11 +18,7 @@ import {
   type Proposal,
   type QuoteStage,
 } from "@/db/schema";
-import {
-  ENGINE_VERSION,
-  type CaseInput,
-  type CaseResult,
-} from "@/lib/engine";
+import { ENGINE_VERSION, type CaseInput, type CaseResult } from "@/lib/engine";
 import { storedInputMessage, storedInputProblems } from "@/lib/results/stored-input-problems";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError, StoredInputError } from "@/lib/errors";

@@ -15,7 +15,6 @@ import { VENDOR_ROLES } from "@/lib/auth/roles";
 // people by their account scope, a reviewer only the proposals sent to their own account. A
 // proposal outside the scope is not found, exactly like one that does not exist.
 
-
 const owner = alias(users, "quote_owner");
 const sentTo = alias(users, "quote_sent_to");
 

@@ -9,6 +9,7 @@ import { recordAudit } from "./audit";
 import { vendorQuoteOrThrow, type QuoteRow } from "./proposals";
 import { setQuoteStage } from "./quote-stage";
 import { getSalesSettings } from "./sales-settings";
+import { discountAboveThreshold } from "@/lib/pipeline/discount";
 
 // Sending a proposal (user, invitation, stage and mail together) is server/proposals/send.ts.
 const label = (q: QuoteRow) => `${q.caseName} v${q.version}`;
@@ -20,7 +21,7 @@ export function approveDiscount(caller: SessionUser, proposalId: number) {
   if (quote.discountApprovedAt)
     throw new ConflictError("The discount of this proposal is already approved.");
   const threshold = getSalesSettings().discountThresholdPct;
-  if (quote.maxDiscountPct <= threshold)
+  if (!discountAboveThreshold(quote.maxDiscountPct, threshold))
     throw new ConflictError(
       `This proposal's largest discount (${quote.maxDiscountPct} %) is within the ${threshold} % that needs no approval.`,
     );

@@ -2,7 +2,13 @@
 import "server-only";
 
 import { revalidatePath } from "next/cache";
-import { createCase, setAxisRetrofit, setCaseAxes, suggestKitsForCase, updateAssumptions } from "@/db/queries/cases";
+import {
+  createCase,
+  setAxisRetrofit,
+  setCaseAxes,
+  suggestKitsForCase,
+  updateAssumptions,
+} from "@/db/queries/cases";
 import { freezeProposal } from "@/server/cases/freeze";
 import { runAction } from "@/server/actions/run";
 import { requireId } from "@/lib/validations/ids";

@@ -13,11 +13,8 @@ import { dossierPriceSchema, uncertaintySettingsSchema } from "@/lib/validations
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export async function saveDossierSettingsAction(proposalId: number, values: unknown) {
-  const result = await runAction(
-    VENDOR_ROLES,
-    uncertaintySettingsSchema,
-    values,
-    (caller, data) => saveDossierSettings(caller, requireId(proposalId), data),
+  const result = await runAction(VENDOR_ROLES, uncertaintySettingsSchema, values, (caller, data) =>
+    saveDossierSettings(caller, requireId(proposalId), data),
   );
   if (result.ok) revalidatePath(`/dossiers/${proposalId}`);
   return result;

@@ -12,11 +12,16 @@ import { SENDABLE_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import type { SendProposalInput } from "@/lib/validations/pipeline";
 import { recordAudit } from "@/db/queries/audit";
 import { awaitsFirstPassword, createInvitation } from "@/db/queries/invitations";
-import { getProposalSnapshotOrThrow, vendorQuoteOrThrow, type QuoteRow } from "@/db/queries/proposals";
+import {
+  getProposalSnapshotOrThrow,
+  vendorQuoteOrThrow,
+  type QuoteRow,
+} from "@/db/queries/proposals";
 import { setQuoteStage } from "@/db/queries/quote-stage";
 import { getSalesSettings } from "@/db/queries/sales-settings";
 import { findUserForSignIn } from "@/db/queries/users";
 import { proposalFacts } from "./facts";
+import { needsDiscountApproval } from "@/lib/pipeline/discount";
 
 const label = (q: QuoteRow) => `${q.caseName} v${q.version}`;
 
@@ -29,7 +34,7 @@ export function sendBlocker(
     return `Version ${quote.version} was replaced by version ${quote.latestVersion}; send the newest version instead.`;
   if (!SENDABLE_STAGES.includes(quote.stage))
     return `This proposal is already ${STAGE_LABELS[quote.stage].toLowerCase()}; freeze a new version to send again.`;
-  if (quote.maxDiscountPct > thresholdPct && !quote.discountApprovedAt)
+  if (needsDiscountApproval(quote, thresholdPct))
     return `This proposal gives a kit discount of up to ${quote.maxDiscountPct} %, above the ${thresholdPct} % that may be sent without approval. A sales manager must approve the discount first.`;
   return null;
 }
@@ -133,4 +138,3 @@ export async function sendProposal(
     mail,
   };
 }
-

@@ -569,11 +569,17 @@ function readManifest() {
 // file that opens with the directive counts), keyed by its path there without ".ts".
 function discoverActions(): string[] {
   const found: string[] = [];
-  for (const file of fs.readdirSync(path.resolve("server"), { recursive: true, encoding: "utf8" })) {
+  for (const file of fs.readdirSync(path.resolve("server"), {
+    recursive: true,
+    encoding: "utf8",
+  })) {
     if (!/\.tsx?$/.test(file)) continue;
     const source = fs.readFileSync(path.resolve("server", file), "utf8");
     if (!/^\s*(?:\/\/.*\n\s*)*["']use server["']/.test(source)) continue;
-    const module = file.split(path.sep).join("/").replace(/\.tsx?$/, "");
+    const module = file
+      .split(path.sep)
+      .join("/")
+      .replace(/\.tsx?$/, "");
     for (const m of source.matchAll(/^export (?:async function|const) (\w+)/gm))
       found.push(`${module} ${m[1]}`);
   }

@@ -2,7 +2,19 @@ import Decimal from "decimal.js";
 import { describe, expect, it } from "vitest";
 import { getAxisOrThrow, listAxes, listAxesForExport, updateAxis } from "@/db/queries/axes";
 import { recordAudit } from "@/db/queries/audit";
-import { buildCaseInput, createCase, getCaseOrThrow, getProposalOrThrow, listCaseAxes, listCases, listProposals, setAxisRetrofit, setCaseAxes, suggestKitsForCase, updateAssumptions } from "@/db/queries/cases";
+import {
+  buildCaseInput,
+  createCase,
+  getCaseOrThrow,
+  getProposalOrThrow,
+  listCaseAxes,
+  listCases,
+  listProposals,
+  setAxisRetrofit,
+  setCaseAxes,
+  suggestKitsForCase,
+  updateAssumptions,
+} from "@/db/queries/cases";
 import { freezeProposal } from "@/server/cases/freeze";
 import { caseResult } from "@/server/cases/results";
 import { listKits, listMotors, saveKit } from "@/db/queries/catalogue";

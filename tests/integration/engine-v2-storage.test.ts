@@ -6,7 +6,14 @@ import { eq, sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { createAxis, getAxisOrThrow, updateAxis } from "@/db/queries/axes";
-import { buildCaseInput, createCase, getCaseOrThrow, listCases, setCaseAxes, updateAssumptions } from "@/db/queries/cases";
+import {
+  buildCaseInput,
+  createCase,
+  getCaseOrThrow,
+  listCases,
+  setCaseAxes,
+  updateAssumptions,
+} from "@/db/queries/cases";
 import { freezeProposal } from "@/server/cases/freeze";
 import { caseResult } from "@/server/cases/results";
 import { commitImport } from "@/db/queries/imports";

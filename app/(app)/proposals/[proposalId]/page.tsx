@@ -21,6 +21,7 @@ import { SENDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { formatMoney, formatPayback } from "@/lib/results/format";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
+import { discountAboveThreshold, needsDiscountApproval } from "@/lib/pipeline/discount";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -37,8 +38,7 @@ export default async function ProposalPage({
   const input = parseCaseInput(rawInput);
   const comments = listComments(user, id);
   const blocker = sendBlocker(row, settings.discountThresholdPct);
-  const needsApproval =
-    row.maxDiscountPct > settings.discountThresholdPct && !row.discountApprovedAt;
+  const needsApproval = needsDiscountApproval(row, settings.discountThresholdPct);
   const sendable = SENDABLE_STAGES.includes(row.stage);
   const isManager = user.role === "manager";
 
@@ -81,7 +81,7 @@ export default async function ProposalPage({
               value={
                 <span className="flex flex-wrap items-center gap-2">
                   {quote.maxDiscountPct} %
-                  {row.maxDiscountPct > settings.discountThresholdPct ? (
+                  {discountAboveThreshold(row.maxDiscountPct, settings.discountThresholdPct) ? (
                     row.discountApprovedAt ? (
                       <Badge tone="success">Approved {row.discountApprovedAt.slice(0, 10)}</Badge>
                     ) : (
