@@ -1,11 +1,12 @@
-import { and, eq, exists, or, sql } from "drizzle-orm";
+import { and, eq, or } from "drizzle-orm";
 import { db } from "@/db";
-import { accounts, accountShares, quotes, users } from "@/db/schema";
+import { quotes, users } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError } from "@/lib/errors";
 import { STAGE_LABELS } from "@/lib/pipeline/stages";
 import type { QuoteUpdateInput } from "@/lib/validations/pipeline";
 import { recordAudit } from "./audit";
+import { ownsOrSharesAccount } from "./accounts";
 import { vendorQuoteOrThrow, type QuoteRow } from "./proposals";
 import { setQuoteStage } from "./quote-stage";
 import { getSalesSettings } from "./sales-settings";
@@ -50,25 +51,7 @@ function assertCanOwn(ownerId: number, accountId: number) {
         eq(users.active, true),
         or(
           eq(users.role, "manager"),
-          and(
-            eq(users.role, "engineer"),
-            or(
-              exists(
-                db
-                  .select({ one: sql`1` })
-                  .from(accounts)
-                  .where(and(eq(accounts.id, accountId), eq(accounts.ownerId, ownerId))),
-              ),
-              exists(
-                db
-                  .select({ one: sql`1` })
-                  .from(accountShares)
-                  .where(
-                    and(eq(accountShares.accountId, accountId), eq(accountShares.userId, ownerId)),
-                  ),
-              ),
-            ),
-          ),
+          and(eq(users.role, "engineer"), ownsOrSharesAccount(ownerId, accountId)),
         ),
       ),
     )
@@ -133,25 +116,7 @@ export function listOwnerOptions(caller: SessionUser, accountId: number) {
         eq(users.active, true),
         or(
           eq(users.role, "manager"),
-          and(
-            eq(users.role, "engineer"),
-            or(
-              exists(
-                db
-                  .select({ one: sql`1` })
-                  .from(accounts)
-                  .where(and(eq(accounts.id, accountId), eq(accounts.ownerId, users.id))),
-              ),
-              exists(
-                db
-                  .select({ one: sql`1` })
-                  .from(accountShares)
-                  .where(
-                    and(eq(accountShares.accountId, accountId), eq(accountShares.userId, users.id)),
-                  ),
-              ),
-            ),
-          ),
+          and(eq(users.role, "engineer"), ownsOrSharesAccount(users.id, accountId)),
         ),
       ),
     )
