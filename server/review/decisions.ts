@@ -1,7 +1,6 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { proposalComments, users } from "@/db/schema";
+import { proposalComments } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { evaluateCase, type CaseResult } from "@/lib/engine";
 import { ConflictError } from "@/lib/errors";
@@ -12,7 +11,7 @@ import { DECIDABLE_STAGES, STAGE_LABELS, type QuoteStage } from "@/lib/pipeline/
 import type { DecisionInput, WhatIfInput } from "@/lib/validations/pipeline";
 import { recordAudit } from "@/db/queries/audit";
 import { proposalFacts } from "@/server/proposals/facts";
-import { getProposalSnapshotOrThrow, getVisibleQuoteOrThrow } from "@/db/queries/proposals";
+import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { setQuoteStage } from "@/db/queries/quote-stage";
 
 const STAGE_OF_DECISION: Record<DecisionInput["decision"], QuoteStage> = {
@@ -83,33 +82,6 @@ export async function decideProposal(
     );
   });
   return { stage, mail: await deliverMail([mailId]) };
-}
-
-export type CommentRow = {
-  id: number;
-  body: string;
-  decision: "accept" | "changes" | "decline" | null;
-  createdAt: string;
-  authorName: string;
-  authorRole: SessionUser["role"];
-};
-
-export function listComments(caller: SessionUser, proposalId: number): CommentRow[] {
-  getVisibleQuoteOrThrow(caller, proposalId);
-  return db
-    .select({
-      id: proposalComments.id,
-      body: proposalComments.body,
-      decision: proposalComments.decision,
-      createdAt: proposalComments.createdAt,
-      authorName: users.name,
-      authorRole: users.role,
-    })
-    .from(proposalComments)
-    .innerJoin(users, eq(users.id, proposalComments.authorId))
-    .where(eq(proposalComments.proposalId, proposalId))
-    .orderBy(asc(proposalComments.createdAt), asc(proposalComments.id))
-    .all();
 }
 
 /**

@@ -13,7 +13,8 @@ import { freezeProposal } from "@/server/cases/freeze";
 import { acceptInvitation, inspectInvitation } from "@/db/queries/invitations";
 import { listOutbox } from "@/db/queries/outbox";
 import { pipeline, pipelineWinRate } from "@/db/queries/pipeline";
-import { addComment, decideProposal, listComments, runWhatIf } from "@/server/review/decisions";
+import { addComment, decideProposal, runWhatIf } from "@/server/review/decisions";
+import { listComments } from "@/db/queries/proposal-comments";
 import {
   getProposalSnapshotOrThrow,
   getVisibleQuoteOrThrow,

@@ -10,7 +10,7 @@ import { Badge } from "@/components/ui/badge";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { listComments } from "@/server/review/decisions";
+import { listComments } from "@/db/queries/proposal-comments";
 import { getProposalSnapshotOrThrow, vendorView } from "@/db/queries/proposals";
 import { listAccountReviewers, listOwnerOptions } from "@/db/queries/quotes";
 import { sendBlocker } from "@/server/proposals/send";

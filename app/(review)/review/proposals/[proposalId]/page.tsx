@@ -19,7 +19,7 @@ import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { isDossierPaid } from "@/db/queries/dossiers";
-import { listComments } from "@/server/review/decisions";
+import { listComments } from "@/db/queries/proposal-comments";
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { requirePageUser } from "@/server/auth";
 import { QUEUED_NOTICE } from "@/server/mail/delivery";

@@ -1,5 +1,6 @@
 import { NextResponse } from "next/server";
-import { addComment, listComments } from "@/server/review/decisions";
+import { addComment } from "@/server/review/decisions";
+import { listComments } from "@/db/queries/proposal-comments";
 import { readJsonBody, withApi } from "@/server/api/handler";
 import { idFromRoute } from "@/lib/validations/ids";
 import { requireUser } from "@/server/auth";
