@@ -576,12 +576,12 @@ function discoverActions(): string[] {
     if (!/\.tsx?$/.test(file)) continue;
     const source = fs.readFileSync(path.resolve("server", file), "utf8");
     if (!/^\s*(?:\/\/.*\n\s*)*["']use server["']/.test(source)) continue;
-    const module = file
+    const moduleKey = file
       .split(path.sep)
       .join("/")
       .replace(/\.tsx?$/, "");
     for (const m of source.matchAll(/^export (?:async function|const) (\w+)/gm))
-      found.push(`${module} ${m[1]}`);
+      found.push(`${moduleKey} ${m[1]}`);
   }
   return found.sort();
 }
