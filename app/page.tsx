@@ -1,5 +1,5 @@
 import { redirect } from "next/navigation";
-import { getSessionUser } from "@/lib/auth";
+import { getSessionUser } from "@/server/auth";
 import { homeFor } from "@/lib/auth/roles";
 
 // The root sends each role to its home.

@@ -1,5 +1,5 @@
 import { notFound } from "next/navigation";
-import { idFromRoute } from "@/lib/api/params";
+import { idFromRoute } from "@/lib/validations/ids";
 import { NotFoundError } from "@/lib/errors";
 
 // A route id that is not a positive whole number is simply not found.

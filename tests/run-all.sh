@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm test: unit and integration tests, then end-to-end tests against the built app in Chromium.
+# npm test: the lint, unit and integration tests, then end-to-end tests against the built app in Chromium.
 # The workbook test recalculates exported files in LibreOffice Calc; the e2e tests drive Chromium.
 # Both come from Debian: installed here when running as root, otherwise the command is printed.
 set -euo pipefail
@@ -19,5 +19,7 @@ if [ ${#need[@]} -gt 0 ]; then
   fi
 fi
 
+# The lint first: an import running up a floor (DEVELOPERS.md) fails the run before any test.
+npx eslint .
 npx vitest run
 npx vitest run --config vitest.e2e.config.mts

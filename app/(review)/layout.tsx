@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import { AppShell } from "@/components/shell/app-shell";
 import { getAccountOrThrow } from "@/db/queries/accounts";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 // The customer's finance reviewer sees only their own account's proposals.
 export default async function ReviewLayout({ children }: { children: ReactNode }) {

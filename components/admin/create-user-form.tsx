@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
-import { createUserAction } from "@/app/(app)/admin/actions";
+import { createUserAction } from "@/server/admin/actions";
 import { Button } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";
 import { ROLE_LABELS } from "@/lib/auth/roles";
@@ -12,7 +12,7 @@ import {
   type CreateUserFormValues,
   type CreateUserInput,
 } from "@/lib/validations/user";
-import { ROLES } from "@/db/schema/users";
+import { ROLES } from "@/lib/auth/roles";
 
 type Option = { id: number; name: string };
 

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { setDossierPriceAction } from "@/app/(app)/dossiers/actions";
+import { setDossierPriceAction } from "@/server/dossiers/actions";
 import { StatusLine, useActionStatus } from "@/components/installed-base/use-action-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/form-fields";

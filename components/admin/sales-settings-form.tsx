@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { saveSalesSettingsAction } from "@/app/(app)/admin/actions";
+import { saveSalesSettingsAction } from "@/server/admin/actions";
 import { Field, Input } from "@/components/ui/field";
 import { QUOTE_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import { salesSettingsSchema, type SalesSettingsInput } from "@/lib/validations/pipeline";

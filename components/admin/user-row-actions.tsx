@@ -1,11 +1,11 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import { changeRoleAction, setActiveAction } from "@/app/(app)/admin/actions";
+import { changeRoleAction, setActiveAction } from "@/server/admin/actions";
 import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/field";
 import { ROLE_LABELS, type Role } from "@/lib/auth/roles";
-import { ROLES } from "@/db/schema/users";
+import { ROLES } from "@/lib/auth/roles";
 
 type Option = { id: number; name: string };
 

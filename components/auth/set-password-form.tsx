@@ -5,7 +5,7 @@ import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { acceptInvitationAction } from "@/app/(auth)/invitation/actions";
+import { acceptInvitationAction } from "@/server/invitations/actions";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 import { setPasswordSchema, type SetPasswordInput } from "@/lib/validations/invitation";

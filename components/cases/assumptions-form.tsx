@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { updateAssumptionsAction } from "@/app/(app)/cases/actions";
+import { updateAssumptionsAction } from "@/server/cases/actions";
 import { StatusLine, useActionStatus } from "@/components/installed-base/use-action-form";
 import { Button } from "@/components/ui/button";
 import { TextField } from "@/components/ui/form-fields";

@@ -1,7 +1,7 @@
 "use client";
 
 import { useMemo, useState, useTransition } from "react";
-import { setAxisRetrofitAction, setCaseAxesAction } from "@/app/(app)/cases/actions";
+import { setAxisRetrofitAction, setCaseAxesAction } from "@/server/cases/actions";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { Table, Td, Th } from "@/components/ui/table";

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import { freezeProposalAction, suggestKitsAction } from "@/app/(app)/cases/actions";
+import { freezeProposalAction, suggestKitsAction } from "@/server/cases/actions";
 import { Button, buttonClass } from "@/components/ui/button";
 import { useDebouncedInvalidate } from "@/lib/hooks/use-case-result";
 

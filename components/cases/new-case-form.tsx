@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { createCaseAction } from "@/app/(app)/cases/actions";
+import { createCaseAction } from "@/server/cases/actions";
 import { StatusLine, useActionStatus } from "@/components/installed-base/use-action-form";
 import { Button } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";

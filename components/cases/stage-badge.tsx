@@ -1,5 +1,5 @@
 import { Badge } from "@/components/ui/badge";
-import type { CaseStage } from "@/db/schema/cases";
+import type { CaseStage } from "@/lib/cases/stages";
 
 const TONES: Record<CaseStage, "neutral" | "flux" | "coil" | "success" | "danger"> = {
   draft: "neutral",

@@ -4,7 +4,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, type DefaultValues } from "react-hook-form";
-import { saveKitAction } from "@/app/(app)/catalogue/actions";
+import { saveKitAction } from "@/server/catalogue/actions";
 import type { Kit } from "@/db/schema/catalogue";
 import type { z } from "zod";
 import { kitInputSchema, type KitCatalogueInput } from "@/lib/validations/catalogue";

@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, type DefaultValues, type Resolver } from "react-hook-form";
 import type { z } from "zod";
-import { saveMotorAction } from "@/app/(app)/catalogue/actions";
+import { saveMotorAction } from "@/server/catalogue/actions";
 import type { Motor } from "@/db/schema/catalogue";
 import type { TorqueUnit } from "@/lib/engine/units";
 import { motorInputSchema, type MotorCatalogueInput } from "@/lib/validations/catalogue";

@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useState, useTransition } from "react";
-import { setCatalogueActiveAction } from "@/app/(app)/catalogue/actions";
+import { setCatalogueActiveAction } from "@/server/catalogue/actions";
 import { Button, buttonClass } from "@/components/ui/button";
 
 // Edit and retire/restore for one catalogue row. The code is spoken with each control so that a

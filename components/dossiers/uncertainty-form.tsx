@@ -2,7 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
-import { saveDossierSettingsAction } from "@/app/(app)/dossiers/actions";
+import { saveDossierSettingsAction } from "@/server/dossiers/actions";
 import { StatusLine, useActionStatus } from "@/components/installed-base/use-action-form";
 import { Button } from "@/components/ui/button";
 import { NumberField } from "@/components/ui/number-field";

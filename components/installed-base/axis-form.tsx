@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import type { ReactNode } from "react";
 import { useForm, type FieldErrors } from "react-hook-form";
 import type { z } from "zod";
-import { saveAxisAction } from "@/app/(app)/(installed-base)/actions";
+import { saveAxisAction } from "@/server/installed-base/actions";
 import { Button } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";
 import { NumberField, TorqueField } from "@/components/ui/number-field";

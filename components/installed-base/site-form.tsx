@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { createSiteAction, updateSiteAction } from "@/app/(app)/(installed-base)/actions";
+import { createSiteAction, updateSiteAction } from "@/server/installed-base/actions";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 import { NumberField } from "@/components/ui/number-field";

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import type { FieldValues, Path, UseFormSetError } from "react-hook-form";
-import type { ActionResult } from "@/lib/actions/result";
+import type { ActionResult } from "@/server/actions/result";
 
 // Maps a server action's result onto a react-hook-form: field errors beside their fields, the
 // message in the form's aria-live status line.

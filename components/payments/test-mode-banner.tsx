@@ -1,4 +1,4 @@
-import { paymentsTestMode } from "@/lib/payments/config";
+import { paymentsTestMode } from "@/server/payments/config";
 
 /** Shown on every signed-in page while payments go to the local fake (or a test key). */
 export function TestModeBanner() {

@@ -2,8 +2,8 @@
 
 import { useState, useTransition } from "react";
 import { Badge } from "@/components/ui/badge";
-import type { ActionResult } from "@/lib/actions/result";
-import type { MailDelivery } from "@/lib/mail/delivery";
+import type { ActionResult } from "@/server/actions/result";
+import type { MailDelivery } from "@/server/mail/delivery";
 import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
 
 export type ThreadComment = {

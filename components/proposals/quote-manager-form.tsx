@@ -1,7 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import { approveDiscountAction, updateQuoteAction } from "@/app/(app)/proposals/actions";
+import { approveDiscountAction, updateQuoteAction } from "@/server/proposals/actions";
 import { Button } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";
 import type { QuoteStage } from "@/lib/pipeline/stages";

@@ -3,7 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
-import { sendProposalAction } from "@/app/(app)/proposals/actions";
+import { sendProposalAction } from "@/server/proposals/actions";
 import { Field, Input } from "@/components/ui/field";
 import { sendProposalSchema, type SendProposalInput } from "@/lib/validations/pipeline";
 import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";

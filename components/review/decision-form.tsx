@@ -2,7 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
-import { decideAction } from "@/app/(review)/review/actions";
+import { decideAction } from "@/server/review/actions";
 import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
 
 const CHOICES = [

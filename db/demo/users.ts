@@ -1,4 +1,4 @@
-import type { Role } from "../schema/users";
+import type { Role } from "../../lib/auth/roles";
 
 export const DEMO_PASSWORD = "loopshift-demo";
 

@@ -18,13 +18,7 @@ import {
   type Proposal,
   type QuoteStage,
 } from "@/db/schema";
-import {
-  caseInputSchema,
-  ENGINE_VERSION,
-  evaluateParsedCase,
-  type CaseInput,
-  type CaseResult,
-} from "@/lib/engine";
+import { ENGINE_VERSION, type CaseInput, type CaseResult } from "@/lib/engine";
 import { storedInputMessage, storedInputProblems } from "@/lib/results/stored-input-problems";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError, StoredInputError } from "@/lib/errors";
@@ -347,7 +341,8 @@ export function listCaseAxesOf(found: CaseRow) {
     .all();
 }
 
-function inputOf(found: CaseRow): CaseInput {
+/** The CaseInput built from the rows of a case already fetched in the caller's scope. */
+export function caseInputOf(found: CaseRow): CaseInput {
   const rows = db
     .select({ axis: axes, retrofit: caseAxes, kit: kits, kitMotor: motors })
     .from(caseAxes)
@@ -383,23 +378,11 @@ function inputOf(found: CaseRow): CaseInput {
 
 /** The exact CaseInput the engine receives for this case, built from its rows now. */
 export function buildCaseInput(caller: SessionUser, caseId: number): CaseInput {
-  return inputOf(getCaseOrThrow(caller, caseId));
+  return caseInputOf(getCaseOrThrow(caller, caseId));
 }
 
-// Results of recent cases, each tagged with the input revision it was computed at: the counter
-// moves with every write to a table the input is built from (an edit of the case, of its site's
-// axes or of a kit in the catalogue), so a tag equal to the current revision means the input is
-// unchanged — one indexed read instead of building the input again to compare it.
-const RESULT_CACHE_LIMIT = 32;
-type CachedResult = {
-  revision: number;
-  input: CaseInput;
-  result: CaseResult;
-  json?: string;
-};
-const resultCache = new Map<number, CachedResult>();
-
-function currentInputRevision(): number {
+/** The input revision: it moves with every write to a table a case input is built from. */
+export function currentInputRevision(): number {
   return db
     .select({ revision: inputRevision.revision })
     .from(inputRevision)
@@ -407,63 +390,19 @@ function currentInputRevision(): number {
     .get()!.revision;
 }
 
-// The caller's scope is checked by getCaseOrThrow before an entry is looked up; an entry itself
-// does not depend on who asks.
-function evaluateCached(found: CaseRow): CachedResult {
-  const revision = currentInputRevision();
-  const hit = resultCache.get(found.id);
-  if (hit?.revision === revision) return hit;
-  const input = inputOf(found);
-  if (input.axes.length === 0)
-    throw new ConflictError("The case has no axes yet: pick axes from its site to see a result");
-  // Rows saved before the engine's bounds existed can hold values it refuses: name each one
-  // and where to fix it (StoredInputError, 409) rather than a bare 422; nothing is rewritten.
-  const parsed = caseInputSchema.safeParse(input);
-  if (!parsed.success) {
-    const problems = storedInputProblems(found.id, input, parsed.error);
-    throw new StoredInputError(storedInputMessage(problems), problems);
-  }
-  const entry: CachedResult = { revision, input, result: evaluateParsedCase(parsed.data) };
-  resultCache.delete(found.id);
-  resultCache.set(found.id, entry);
-  if (resultCache.size > RESULT_CACHE_LIMIT) resultCache.delete(resultCache.keys().next().value!);
-  return entry;
-}
-
-/** evaluateCase(buildCaseInput(caller, caseId)), computed once per distinct input. */
-export function caseResult(caller: SessionUser, caseId: number): CaseResult {
-  return evaluateCached(getCaseOrThrow(caller, caseId)).result;
-}
-
 /**
- * The result as JSON text, written once per distinct input: a 500-axis result is close to a
- * megabyte of JSON, which costs more to write again for every request than to keep.
+ * Stores the case's next proposal version: the input as the engine received it, its result and
+ * the engine version. Nothing updates a proposal afterwards (the database refuses it); its sales
+ * side starts as a quote ready to send, and replaces the case's older open quotes. Freezing
+ * (evaluate, then store) is server/cases/freeze.ts.
  */
-export function caseResultJson(caller: SessionUser, caseId: number): string {
-  const entry = evaluateCached(getCaseOrThrow(caller, caseId));
-  entry.json ??= JSON.stringify(entry.result);
-  return entry.json;
-}
-
-/**
- * The input the engine received and its result in one body, `{"input":…,"result":…}`, for the
- * case page: one request after an edit instead of one for each. The result's cached text is
- * reused as it is.
- */
-export function caseInputAndResultJson(caller: SessionUser, caseId: number): string {
-  const entry = evaluateCached(getCaseOrThrow(caller, caseId));
-  entry.json ??= JSON.stringify(entry.result);
-  return `{"input":${JSON.stringify(entry.input)},"result":${entry.json}}`;
-}
-
-/**
- * Freezes the case as its next proposal version: the input as the engine received it, its
- * result and the engine version. Nothing updates a proposal afterwards (the database refuses it);
- * its sales side starts as a quote ready to send, and replaces the case's older open quotes.
- */
-export function freezeProposal(caller: SessionUser, caseId: number): Proposal {
-  const found = getCaseOrThrow(caller, caseId);
-  const { input, result } = evaluateCached(found);
+export function storeProposalVersion(
+  caller: SessionUser,
+  found: CaseRow,
+  input: CaseInput,
+  result: CaseResult,
+): Proposal {
+  const caseId = found.id;
   const proposal = db.transaction((tx) => {
     const [{ last }] = tx
       .select({ last: sql<number | null>`max(${proposals.version})` })

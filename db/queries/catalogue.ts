@@ -6,9 +6,10 @@ import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError } from "@/lib/errors";
 import type { KitCatalogueInput, MotorCatalogueInput } from "@/lib/validations/catalogue";
 import { recordAudit } from "./audit";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // Everyone at the vendor reads the catalogue; only administrators change it.
-const READERS = ["engineer", "manager", "admin"] as const;
+const READERS = VENDOR_ROLES;
 
 export function listMotors(caller: SessionUser, { includeRetired = false } = {}) {
   assertRole(caller, ...READERS);

@@ -9,12 +9,11 @@ import { weightedValue } from "@/lib/pipeline/figures";
 import type { QuoteStage } from "@/lib/pipeline/stages";
 import { accountScope } from "./accounts";
 import { getSalesSettings } from "./sales-settings";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // Frozen proposals with their sales side (the quote), as each role may see them: the vendor's
 // people by their account scope, a reviewer only the proposals sent to their own account. A
 // proposal outside the scope is not found, exactly like one that does not exist.
-
-export const VENDOR_ROLES = ["engineer", "manager", "admin"] as const;
 
 const owner = alias(users, "quote_owner");
 const sentTo = alias(users, "quote_sent_to");

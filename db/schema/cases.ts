@@ -10,6 +10,7 @@ import {
 } from "drizzle-orm/sqlite-core";
 import type { CaseInput, CaseResult } from "../../lib/engine";
 import type { CaseAssumptions } from "../../lib/validations/case";
+import { CASE_STAGES, type CaseStage } from "../../lib/cases/stages";
 import { accounts } from "./accounts";
 import { kits } from "./catalogue";
 import { axes, sites } from "./installed-base";
@@ -17,8 +18,8 @@ import { users } from "./users";
 
 const now = sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`;
 
-export const CASE_STAGES = ["draft", "modelled", "proposed", "won", "lost"] as const;
-export type CaseStage = (typeof CASE_STAGES)[number];
+// The word list lives in lib/cases/stages.ts, below the database, so pure code can use it.
+export { CASE_STAGES, type CaseStage };
 
 // A retrofit business case on part of one site's installed base. account_id is repeated from the
 // site so that the account scope goes straight into the WHERE clause. The assumptions are the

@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
-import type { ParsedAxis, ParsedMotion } from "../../lib/engine/schema";
+import type { ParsedMotion } from "../../lib/engine/schema";
 import { accounts } from "./accounts";
 import { motors } from "./catalogue";
 
@@ -46,9 +46,8 @@ export const machines = sqliteTable(
   (t) => [uniqueIndex("machines_site_name_idx").on(t.siteId, t.name)],
 );
 
-/** docs/model.md (Torque at speed) drive.resonance and docs/model.md (The business case) reliability.event as the engine parsed them. */
-export type StoredResonance = NonNullable<ParsedAxis["drive"]["resonance"]>;
-export type StoredStepLossEvent = NonNullable<ParsedAxis["reliability"]["event"]>;
+import type { StoredResonance, StoredStepLossEvent } from "../../lib/engine/stored";
+export type { StoredResonance, StoredStepLossEvent };
 
 // One open-loop axis as installed: every AxisInput field of docs/model.md but the retrofit, in SI
 // units (torque N·m, inductance mH, speed rpm, inertia kg·m²). site_id is repeated from the

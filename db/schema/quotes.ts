@@ -1,21 +1,13 @@
 import { sql } from "drizzle-orm";
 import { check, index, integer, real, sqliteTable, text } from "drizzle-orm/sqlite-core";
+import { QUOTE_STAGES, type QuoteStage } from "../../lib/pipeline/stages";
 import { proposals } from "./cases";
 import { users } from "./users";
 
 const now = sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`;
 
-// Where a proposal stands with the customer, in Loopshift's own words (labels in lib/pipeline).
-// "replaced" is an open version that a newer frozen version of the same case took over from.
-export const QUOTE_STAGES = [
-  "ready",
-  "sent",
-  "changes",
-  "accepted",
-  "declined",
-  "replaced",
-] as const;
-export type QuoteStage = (typeof QUOTE_STAGES)[number];
+// The word list lives in lib/pipeline/stages.ts, below the database, so pure code can use it.
+export { QUOTE_STAGES, type QuoteStage };
 
 // The sales side of a frozen proposal: one row per proposal. A proposal's input and result never
 // change (a trigger refuses it), so everything that moves while it is sold lives here. Value,

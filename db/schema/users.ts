@@ -2,8 +2,10 @@ import { sql } from "drizzle-orm";
 import { index, integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
 import { accounts } from "./accounts";
 
-export const ROLES = ["engineer", "manager", "reviewer", "admin"] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type Role } from "../../lib/auth/roles";
+
+// The word list lives in lib/auth/roles.ts, below the database, so pure code can use it.
+export { ROLES, type Role };
 
 export const users = sqliteTable(
   "users",

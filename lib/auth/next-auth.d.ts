@@ -1,4 +1,4 @@
-import type { Role } from "@/db/schema/users";
+import type { Role } from "./roles";
 
 declare module "next-auth" {
   interface Session {

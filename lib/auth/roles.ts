@@ -1,6 +1,10 @@
-import type { Role } from "@/db/schema/users";
+export const ROLES = ["engineer", "manager", "reviewer", "admin"] as const;
+export type Role = (typeof ROLES)[number];
 
-export type { Role };
+// The vendor's own staff: everyone but the customer's finance reviewer. One list, used wherever
+// a rule admits "the vendor side" (pipeline, proposals, checkout, the sales pages).
+export const VENDOR_ROLES = ["engineer", "manager", "admin"] as const satisfies readonly Role[];
+export type VendorRole = (typeof VENDOR_ROLES)[number];
 
 // Where each role lands after signing in.
 export function homeFor(role: Role): string {

@@ -3,14 +3,14 @@ import path from "node:path";
 import { openDatabase } from "../../db/client";
 import { migrateDatabase } from "../../db/migrate";
 import { seedDatabase } from "../../db/seed";
-import { startRetryLoop } from "../mail/delivery";
-import { startFakeSmtpServer } from "../mail/fake-smtp-server";
+import { startRetryLoop } from "../../server/mail/delivery";
+import { startFakeSmtpServer } from "../../server/mail/fake-smtp-server";
 import { needsBuild } from "./build-check";
 
 // Commands run from the project root (npm scripts, tests, the bundled benchmarks).
 export const ROOT = process.cwd();
 const NEXT_BIN = path.join(ROOT, "node_modules", "next", "dist", "bin", "next");
-// Gives the server each request's peer address for the sign-in throttle (lib/auth/client-address.ts).
+// Gives the server each request's peer address for the sign-in throttle (server/auth/client-address.ts).
 const PEER_PRELOAD = path.join(ROOT, "lib", "cli", "peer-address.mjs");
 
 // Applies the migrations and seeds the demo scenario into an empty database.

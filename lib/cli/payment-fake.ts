@@ -1,4 +1,4 @@
-import { LOCAL_SECRET_KEY, LOCAL_WEBHOOK_SECRET } from "../payments/config";
+import { LOCAL_SECRET_KEY, LOCAL_WEBHOOK_SECRET } from "../../server/payments/config";
 import { startFakePaymentApi, type FakePaymentApi } from "../payments/fake/server";
 
 /**

@@ -1,6 +1,6 @@
 // Preloaded (node --import) into the Next.js server by spawnNext. Next.js hands route handlers
 // no socket, so this writes each request's TCP peer address into a header before Next.js sees the
-// request, replacing any copy the client sent; lib/auth/client-address.ts reads it only when the
+// request, replacing any copy the client sent; server/auth/client-address.ts reads it only when the
 // process carries the mark set here. Plain JavaScript: it runs before any TypeScript loader.
 import http from "node:http";
 

@@ -2,7 +2,7 @@ import crypto from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import { DEFAULT_DATABASE_PATH } from "../../db/client";
-import { assertPaymentEnv } from "../payments/config";
+import { assertPaymentEnv } from "../../server/payments/config";
 
 // Fills in the environment the server needs when nothing is set: a port, the database file,
 // the public URL and a session secret kept beside the database so sessions survive a restart.

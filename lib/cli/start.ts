@@ -1,5 +1,5 @@
 import { ensureBuild, prepareDatabase, spawnNext, startLocalMail } from "./app-server";
-import { PaymentConfigError } from "../payments/config";
+import { PaymentConfigError } from "../../server/payments/config";
 import { startLocalPayments } from "./payment-fake";
 import { prepareRuntimeEnv } from "./runtime-env";
 

@@ -1,4 +1,7 @@
-import type { Axis, StoredStepLossEvent } from "@/db/schema/installed-base";
+// The stored row's type names the columns an import fills; a type import, erased at build.
+// eslint-disable-next-line @typescript-eslint/no-restricted-imports
+import type { Axis } from "@/db/schema/installed-base";
+import type { StoredStepLossEvent } from "@/lib/engine/stored";
 import type { ParsedMotion } from "@/lib/engine/schema";
 import { MECHANISMS } from "@/lib/engine/schema";
 import { FIELD_BOUNDS, type FieldBound } from "@/lib/engine/schema-fields";

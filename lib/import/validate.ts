@@ -1,4 +1,4 @@
-import type { StoredStepLossEvent } from "@/db/schema/installed-base";
+import type { StoredStepLossEvent } from "@/lib/engine/stored";
 import type { ParsedMotion } from "@/lib/engine/schema";
 import { motionSchema, stepLossEventSchema } from "@/lib/validations/installed-base";
 import { parseCell } from "./cells";

@@ -1,6 +1,14 @@
-import { QUOTE_STAGES, type QuoteStage } from "../../db/schema/quotes";
-
-export { QUOTE_STAGES, type QuoteStage };
+// Where a proposal stands with the customer, in Loopshift's own words (labels below).
+// "replaced" is an open version that a newer frozen version of the same case took over from.
+export const QUOTE_STAGES = [
+  "ready",
+  "sent",
+  "changes",
+  "accepted",
+  "declined",
+  "replaced",
+] as const;
+export type QuoteStage = (typeof QUOTE_STAGES)[number];
 
 // The stages of a quote in Loopshift's words, for badges, filters and charts.
 export const STAGE_LABELS: Record<QuoteStage, string> = {

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { idSchema } from "@/lib/api/params";
+import { idSchema } from "@/lib/validations/ids";
 import {
   bounded,
   boundedInt,

@@ -1,7 +1,7 @@
 import { displayName } from "./display-name";
 import { z } from "zod";
-import { idSchema } from "@/lib/api/params";
-import { QUOTE_STAGES } from "@/db/schema/quotes";
+import { idSchema } from "@/lib/validations/ids";
+import { QUOTE_STAGES } from "@/lib/pipeline/stages";
 import { bounded, int, money } from "@/lib/engine/schema-fields";
 
 const stageField = z.enum(QUOTE_STAGES, {

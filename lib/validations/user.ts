@@ -1,7 +1,7 @@
 import { displayName } from "./display-name";
 import { z } from "zod";
-import { idSchema } from "@/lib/api/params";
-import { ROLES } from "@/db/schema/users";
+import { idSchema } from "@/lib/validations/ids";
+import { ROLES } from "@/lib/auth/roles";
 
 const roleField = z.enum(ROLES, { error: "Choose one of: engineer, manager, reviewer, admin" });
 

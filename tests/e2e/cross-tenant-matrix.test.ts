@@ -335,37 +335,37 @@ const FORM_REFUSAL = "Check the highlighted fields.";
 const site = { name: "Probe site", currency: "EUR", tariffPerKWh: "0.2", hoursPerYear: 4000 };
 
 const ACTIONS: Record<string, ActionProbe> = {
-  "(app)/(installed-base) createSiteAction": {
+  "installed-base/actions createSiteAction": {
     args: (i) => [i.account, site],
     refusedArgs: (i) => [i.account, {}],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/(installed-base) updateSiteAction": {
+  "installed-base/actions updateSiteAction": {
     args: (i) => [i.site, site],
     refusedArgs: (i) => [i.site, {}],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/(installed-base) createMachineAction": {
+  "installed-base/actions createMachineAction": {
     args: (i) => [i.site, { name: "Probe machine" }],
     refusedArgs: (i) => [i.site, {}],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/(installed-base) updateMachineAction": {
+  "installed-base/actions updateMachineAction": {
     args: (i) => [i.machine, { name: "Probe machine" }],
     refusedArgs: (i) => [i.machine, {}],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/(installed-base) saveAxisAction": {
+  "installed-base/actions saveAxisAction": {
     args: (i) => [i.axis, axisValues],
     refusedArgs: (i) => [i.axis, {}],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/admin createUserAction": {
+  "admin/actions createUserAction": {
     args: () => [{}],
     refusedArgs: () => [{}],
     engineer: "role",
@@ -373,7 +373,7 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "role",
     admin: "form",
   },
-  "(app)/admin changeRoleAction": {
+  "admin/actions changeRoleAction": {
     args: () => [{}],
     refusedArgs: () => [{}],
     engineer: "role",
@@ -381,7 +381,7 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "role",
     admin: "form",
   },
-  "(app)/admin setActiveAction": {
+  "admin/actions setActiveAction": {
     args: () => [{}],
     refusedArgs: () => [{}],
     engineer: "role",
@@ -389,7 +389,7 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "role",
     admin: "form",
   },
-  "(app)/admin saveSalesSettingsAction": {
+  "admin/actions saveSalesSettingsAction": {
     args: () => [{}],
     refusedArgs: () => [{}],
     engineer: "role",
@@ -397,45 +397,45 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "role",
     admin: "form",
   },
-  "(app)/cases createCaseAction": {
+  "cases/actions createCaseAction": {
     args: (i) => [{ name: "Probe case", siteId: i.site }],
     refusedArgs: (i) => [{ name: "", siteId: i.site }],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/cases updateAssumptionsAction": {
+  "cases/actions updateAssumptionsAction": {
     args: (i) => [i.case, assumptionValues],
     refusedArgs: (i) => [i.case, {}],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/cases setCaseAxesAction": {
+  "cases/actions setCaseAxesAction": {
     args: (i) => [i.case, { axisIds: [i.axis] }],
     refusedArgs: (i) => [i.case, { axisIds: "all" }],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/cases setAxisRetrofitAction": {
+  "cases/actions setAxisRetrofitAction": {
     args: (i) => [i.case, i.axis, { kitId: 1 }],
     refusedArgs: (i) => [i.case, i.axis, { kitId: "any" }],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/cases suggestKitsAction": {
+  "cases/actions suggestKitsAction": {
     args: (i) => [i.case],
     engineer: "scoped",
     reviewer: "role",
     manager: "missingOnly",
     admin: "missingOnly",
   },
-  "(app)/cases freezeProposalAction": {
+  "cases/actions freezeProposalAction": {
     args: (i) => [i.case],
     engineer: "scoped",
     reviewer: "role",
     manager: "missingOnly",
     admin: "missingOnly",
   },
-  "(app)/catalogue saveKitAction": {
+  "catalogue/actions saveKitAction": {
     args: () => [{}, 1],
     refusedArgs: () => [{}, 1],
     engineer: "role",
@@ -443,7 +443,7 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "role",
     admin: "form",
   },
-  "(app)/catalogue saveMotorAction": {
+  "catalogue/actions saveMotorAction": {
     args: () => [{}, 1],
     refusedArgs: () => [{}, 1],
     engineer: "role",
@@ -451,7 +451,7 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "role",
     admin: "form",
   },
-  "(app)/catalogue setCatalogueActiveAction": {
+  "catalogue/actions setCatalogueActiveAction": {
     args: () => [{ kind: "kit", id: 1, active: false }],
     refusedArgs: () => [{ kind: "kit", id: 1, active: "no" }],
     engineer: "role",
@@ -459,13 +459,13 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "role",
     admin: "form",
   },
-  "(app)/dossiers saveDossierSettingsAction": {
+  "dossiers/actions saveDossierSettingsAction": {
     args: (i) => [i.proposal, { seed: 7, ...DEFAULT_RANGES }],
     refusedArgs: (i) => [i.proposal, { seed: -1 }],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/dossiers setDossierPriceAction": {
+  "dossiers/actions setDossierPriceAction": {
     args: () => [{ amount: "1.00", currency: "EUR" }],
     refusedArgs: () => [{ amount: "-1", currency: "EUR" }],
     engineer: "role",
@@ -473,7 +473,7 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "role",
     admin: "form",
   },
-  "(app)/dossiers closeDossierCheckoutAction": {
+  "dossiers/actions closeDossierCheckoutAction": {
     args: (i) => [i.proposal],
     void: true,
     engineer: "scoped",
@@ -481,20 +481,20 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "missingOnly",
     admin: "missingOnly",
   },
-  "(app)/proposals sendProposalAction": {
+  "proposals/actions sendProposalAction": {
     args: (i) => [i.proposal, { email: "probe@example.invalid", name: "Probe" }],
     refusedArgs: (i) => [i.proposal, { email: "not an address", name: "Probe" }],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(app)/proposals approveDiscountAction": {
+  "proposals/actions approveDiscountAction": {
     args: (i) => [i.proposal],
     engineer: "role",
     reviewer: "role",
     manager: "missingOnly",
     admin: "role",
   },
-  "(app)/proposals updateQuoteAction": {
+  "proposals/actions updateQuoteAction": {
     args: (i) => [i.proposal, { stage: "declined" }],
     refusedArgs: (i) => [i.proposal, { stage: "no such stage" }],
     engineer: "role",
@@ -502,18 +502,18 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "reaches",
     admin: "role",
   },
-  "(app)/proposals addVendorCommentAction": {
+  "proposals/actions addVendorCommentAction": {
     args: (i) => [i.proposal, { body: "probe from another account" }],
     refusedArgs: (i) => [i.proposal, { body: "" }],
     engineer: "scoped",
     reviewer: "role",
   },
-  "(review)/review decideAction": {
+  "review/actions decideAction": {
     args: (i) => [i.proposal, { decision: "accept", comment: "" }],
     engineer: "role",
     reviewer: "scoped",
   },
-  "(review)/review addReviewerCommentAction": {
+  "review/actions addReviewerCommentAction": {
     args: (i) => [i.proposal, { body: "probe from another account" }],
     engineer: "role",
     reviewer: "scoped",
@@ -526,7 +526,7 @@ const reachOf = (probe: ActionProbe, who: "manager" | "admin"): ActionReach =>
 
 // The invitation's token is its credential (no session, no tenant): a token that was never
 // issued sets no password, whoever calls.
-const PUBLIC_ACTIONS = new Set(["(auth)/invitation acceptInvitationAction"]);
+const PUBLIC_ACTIONS = new Set(["invitations/actions acceptInvitationAction"]);
 
 const DEFAULT_RANGES = {
   tariff: { lowPct: -20, highPct: 30 },
@@ -550,7 +550,7 @@ function readManifest() {
   ) as { node: Record<string, ManifestEntry> };
   const map = new Map<string, { id: string; page: string }>();
   for (const [id, entry] of Object.entries(raw.node)) {
-    const key = `${entry.filename.replace(/^app\//, "").replace(/\/actions\.ts$/, "")} ${entry.exportedName}`;
+    const key = `${entry.filename.replace(/^server\//, "").replace(/\.ts$/, "")} ${entry.exportedName}`;
     // A page of the app that uses the action; its dynamic segments filled with 1 (the action
     // does not read the URL, but the page must exist for the request to reach it).
     const worker = Object.keys(entry.workers)[0]!;
@@ -565,14 +565,23 @@ function readManifest() {
   return map;
 }
 
+// Every "use server" module under server/ (server/<feature>/actions.ts by convention, but any
+// file that opens with the directive counts), keyed by its path there without ".ts".
 function discoverActions(): string[] {
   const found: string[] = [];
-  for (const file of fs.readdirSync(path.resolve("app"), { recursive: true, encoding: "utf8" })) {
-    if (path.basename(file) !== "actions.ts") continue;
-    const dir = path.dirname(file).split(path.sep).join("/");
-    const source = fs.readFileSync(path.resolve("app", file), "utf8");
+  for (const file of fs.readdirSync(path.resolve("server"), {
+    recursive: true,
+    encoding: "utf8",
+  })) {
+    if (!/\.tsx?$/.test(file)) continue;
+    const source = fs.readFileSync(path.resolve("server", file), "utf8");
+    if (!/^\s*(?:\/\/.*\n\s*)*["']use server["']/.test(source)) continue;
+    const moduleKey = file
+      .split(path.sep)
+      .join("/")
+      .replace(/\.tsx?$/, "");
     for (const m of source.matchAll(/^export (?:async function|const) (\w+)/gm))
-      found.push(`${dir} ${m[1]}`);
+      found.push(`${moduleKey} ${m[1]}`);
   }
   return found.sort();
 }

@@ -2,9 +2,9 @@
 import "../support/node-async-storage";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { saveAxisAction, updateSiteAction } from "@/app/(app)/(installed-base)/actions";
-import { setAxisRetrofitAction, updateAssumptionsAction } from "@/app/(app)/cases/actions";
-import { addVendorCommentAction } from "@/app/(app)/proposals/actions";
+import { saveAxisAction, updateSiteAction } from "@/server/installed-base/actions";
+import { setAxisRetrofitAction, updateAssumptionsAction } from "@/server/cases/actions";
+import { addVendorCommentAction } from "@/server/proposals/actions";
 import { GET as axisGet, PUT as axisPut } from "@/app/api/v1/axes/[axisId]/route";
 import { GET as caseGet } from "@/app/api/v1/cases/[caseId]/route";
 import { POST as evaluatePost } from "@/app/api/v1/evaluate/route";

@@ -4,9 +4,7 @@ import { getAxisOrThrow, listAxes, listAxesForExport, updateAxis } from "@/db/qu
 import { recordAudit } from "@/db/queries/audit";
 import {
   buildCaseInput,
-  caseResult,
   createCase,
-  freezeProposal,
   getCaseOrThrow,
   getProposalOrThrow,
   listCaseAxes,
@@ -17,6 +15,8 @@ import {
   suggestKitsForCase,
   updateAssumptions,
 } from "@/db/queries/cases";
+import { freezeProposal } from "@/server/cases/freeze";
+import { caseResult } from "@/server/cases/results";
 import { listKits, listMotors, saveKit } from "@/db/queries/catalogue";
 import { listSites } from "@/db/queries/sites";
 import { caseInputSchema, evaluateCase, suggestKit, type KitInput } from "@/lib/engine";

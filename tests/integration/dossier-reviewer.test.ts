@@ -7,11 +7,12 @@ import {
   isDossierPaid,
   saveDossierSettings,
 } from "@/db/queries/dossiers";
-import { recordCheckoutSession, recordPaymentEvent } from "@/db/queries/payments";
+import { recordCheckoutSession } from "@/db/queries/payments";
+import { recordPaymentEvent } from "@/server/payments/record-event";
 import { db } from "@/db";
 import { dossierSettings, mailQueue } from "@/db/schema";
 import { ForbiddenError, NotFoundError } from "@/lib/errors";
-import { createDossierCheckout } from "@/lib/payments/checkout";
+import { createDossierCheckout } from "@/server/payments/checkout";
 import { caller } from "../support/callers";
 
 // The dossier is bought for the customer's investment committee: their reviewer reads it for a

@@ -8,14 +8,14 @@ import { db } from "@/db";
 import { createAxis, getAxisOrThrow, updateAxis } from "@/db/queries/axes";
 import {
   buildCaseInput,
-  caseResult,
   createCase,
-  freezeProposal,
   getCaseOrThrow,
   listCases,
   setCaseAxes,
   updateAssumptions,
 } from "@/db/queries/cases";
+import { freezeProposal } from "@/server/cases/freeze";
+import { caseResult } from "@/server/cases/results";
 import { commitImport } from "@/db/queries/imports";
 import { listMachines } from "@/db/queries/machines";
 import { getProposalSnapshotOrThrow, listProposalsFor } from "@/db/queries/proposals";

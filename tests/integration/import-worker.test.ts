@@ -3,13 +3,13 @@ import { describe, expect, it } from "vitest";
 import { POST as importRoute } from "@/app/api/v1/sites/[siteId]/imports/route";
 import { listAxesForExport } from "@/db/queries/axes";
 import { listSites } from "@/db/queries/sites";
-import { checkImportFileInWorker, PARSE_LIMITS } from "@/lib/import/check-in-worker";
+import { checkImportFileInWorker, PARSE_LIMITS } from "@/server/import/check-in-worker";
 import { ImportFileError } from "@/lib/import/errors";
 import { templateCsv } from "@/lib/import/template";
 import { caller } from "../support/callers";
 import { asRequestOf } from "../support/next-request";
 
-// Issue 13, finding 4: uploads are read in worker threads (lib/import/check-in-worker.ts), a
+// Issue 13, finding 4: uploads are read in worker threads (server/import/check-in-worker.ts), a
 // bounded number at a time, and the route answers exactly as it did when it read them itself.
 const engineer = () => caller("engineer@example.com");
 const site = { hoursPerYear: 4000, ambientC: 25 };

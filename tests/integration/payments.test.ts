@@ -9,7 +9,8 @@ import {
   setDossierPrice,
 } from "@/db/queries/dossiers";
 import { listProposals, listCases } from "@/db/queries/cases";
-import { recordCheckoutSession, recordPaymentEvent } from "@/db/queries/payments";
+import { recordCheckoutSession } from "@/db/queries/payments";
+import { recordPaymentEvent } from "@/server/payments/record-event";
 import { dossierGrants, mailQueue, paymentEvents } from "@/db/schema";
 import { NotFoundError, ForbiddenError } from "@/lib/errors";
 import { minorUnits as minorUnitsOf } from "@/lib/payments/minor-units";

@@ -4,34 +4,36 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { listAxesForExport } from "@/db/queries/axes";
 import {
   createCase,
-  freezeProposal,
   getCaseOrThrow,
   setAxisRetrofit,
   setCaseAxes,
   listCaseAxes,
 } from "@/db/queries/cases";
+import { freezeProposal } from "@/server/cases/freeze";
 import { acceptInvitation, inspectInvitation } from "@/db/queries/invitations";
 import { listOutbox } from "@/db/queries/outbox";
 import { pipeline, pipelineWinRate } from "@/db/queries/pipeline";
-import { addComment, decideProposal, listComments, runWhatIf } from "@/db/queries/proposal-review";
+import { addComment, decideProposal, runWhatIf } from "@/server/review/decisions";
+import { listComments } from "@/db/queries/proposal-comments";
 import {
   getProposalSnapshotOrThrow,
   getVisibleQuoteOrThrow,
   listProposalsFor,
 } from "@/db/queries/proposals";
-import { approveDiscount, sendProposal, updateQuote } from "@/db/queries/quotes";
+import { approveDiscount, updateQuote } from "@/db/queries/quotes";
+import { sendProposal } from "@/server/proposals/send";
 import { getSalesSettings, saveSalesSettings } from "@/db/queries/sales-settings";
 import { listSites } from "@/db/queries/sites";
 import { findUserForSignIn } from "@/db/queries/users";
 import { db } from "@/db";
 import { openDatabase } from "@/db/client";
 import { auditLog, mailQueue, proposals, quotes } from "@/db/schema";
-import { authOptions } from "@/lib/auth/options";
+import { authOptions } from "@/server/auth/options";
 import { verifyPassword } from "@/lib/auth/password";
 import { evaluateCase, roundMoney } from "@/lib/engine";
 import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/errors";
-import { startFakeSmtpServer, type FakeSmtpServer } from "@/lib/mail/fake-smtp-server";
-import { flushMailQueue } from "@/lib/mail/queue";
+import { startFakeSmtpServer, type FakeSmtpServer } from "@/server/mail/fake-smtp-server";
+import { flushMailQueue } from "@/server/mail/queue";
 import { axisRetrofitSchema } from "@/lib/validations/case";
 import { decisionSchema, whatIfSchema } from "@/lib/validations/pipeline";
 import { caller } from "../support/callers";

@@ -8,7 +8,7 @@ import {
   sessionVersionOf,
   setUserActive,
 } from "@/db/queries/users";
-import { authOptions } from "@/lib/auth/options";
+import { authOptions } from "@/server/auth/options";
 import { caller } from "../support/callers";
 
 // Finding: a token saved before sign-out kept working until it expired (8 hours). Each token now

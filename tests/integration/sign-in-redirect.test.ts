@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { sameOriginPath } from "@/lib/auth/callback-url";
-import { authOptions } from "@/lib/auth/options";
+import { authOptions } from "@/server/auth/options";
 
 // Finding: after sign-in, callbackUrl=/%5Cevil.example (also /%09/…, /%5C/…) sent the browser to
 // another host, because browsers read "\" as "/" and drop tabs. Values are as the page receives

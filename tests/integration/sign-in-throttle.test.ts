@@ -2,9 +2,9 @@ import http from "node:http";
 import type { AddressInfo } from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { openDatabase } from "@/db/client";
-import { clientAddress } from "@/lib/auth/client-address";
-import { authOptions } from "@/lib/auth/options";
-import { ACCOUNT_POLICY, WINDOW_MS, delayAfter, describeWait } from "@/lib/auth/rate-limit";
+import { clientAddress } from "@/server/auth/client-address";
+import { authOptions } from "@/server/auth/options";
+import { ACCOUNT_POLICY, WINDOW_MS, delayAfter, describeWait } from "@/server/auth/rate-limit";
 
 // Finding: the throttle trusted X-Forwarded-For (rotating it defeated the limit), lumped every
 // client without it into one key (20 failures by anyone locked out everyone), locked a known

@@ -6,7 +6,7 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import EditAxisPage from "@/app/(app)/(installed-base)/axes/[axisId]/page";
-import { freezeProposalAction, suggestKitsAction } from "@/app/(app)/cases/actions";
+import { freezeProposalAction, suggestKitsAction } from "@/server/cases/actions";
 import { GET as axisGet, PUT as axisPut } from "@/app/api/v1/axes/[axisId]/route";
 import { GET as caseGet } from "@/app/api/v1/cases/[caseId]/route";
 import {
@@ -19,7 +19,8 @@ import { GET as dossierGet } from "@/app/api/v1/proposals/[proposalId]/dossier/r
 import { GET as proposalWorkbookGet } from "@/app/api/v1/proposals/[proposalId]/workbook/route";
 import { db } from "@/db";
 import { listCaseAxes, listCases, listProposals } from "@/db/queries/cases";
-import { recordCheckoutSession, recordPaymentEvent } from "@/db/queries/payments";
+import { recordCheckoutSession } from "@/db/queries/payments";
+import { recordPaymentEvent } from "@/server/payments/record-event";
 import { openQuoteFor } from "@/db/queries/quote-open";
 import { proposals } from "@/db/schema";
 import { caller } from "../support/callers";

@@ -6,14 +6,14 @@ import { describe, expect, it } from "vitest";
 import { POST as evaluateRoute } from "@/app/api/v1/evaluate/route";
 import { GET as caseRoute } from "@/app/api/v1/cases/[caseId]/route";
 import { POST as importRoute } from "@/app/api/v1/sites/[siteId]/imports/route";
-import { setActiveAction } from "@/app/(app)/admin/actions";
-import { updateSiteAction } from "@/app/(app)/(installed-base)/actions";
-import { setAxisRetrofitAction, suggestKitsAction } from "@/app/(app)/cases/actions";
+import { setActiveAction } from "@/server/admin/actions";
+import { updateSiteAction } from "@/server/installed-base/actions";
+import { setAxisRetrofitAction, suggestKitsAction } from "@/server/cases/actions";
 import { listAxesForExport } from "@/db/queries/axes";
 import { listCases } from "@/db/queries/cases";
 import { listSites } from "@/db/queries/sites";
 import { findUserForSignIn } from "@/db/queries/users";
-import { parseId } from "@/lib/api/params";
+import { parseId } from "@/lib/validations/ids";
 import { caller } from "../support/callers";
 import { asRequestOf } from "../support/next-request";
 

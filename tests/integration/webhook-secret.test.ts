@@ -10,7 +10,7 @@ import { db } from "@/db";
 import { listCases, listProposals } from "@/db/queries/cases";
 import { recordCheckoutSession } from "@/db/queries/payments";
 import { dossierGrants } from "@/db/schema";
-import { LOCAL_WEBHOOK_SECRET } from "@/lib/payments/config";
+import { LOCAL_WEBHOOK_SECRET } from "@/server/payments/config";
 import { caller } from "../support/callers";
 
 // Finding: with a real payment key and no webhook secret, the secret fell back to the public

@@ -25,7 +25,7 @@ async function sessionCookie(user: SessionUser | null): Promise<string> {
       accountId: user.accountId,
       email: user.email,
       name: user.name,
-      // The session version the token was issued under (lib/auth/options.ts): seeded users start
+      // The session version the token was issued under (server/auth/options.ts): seeded users start
       // at 0, and a token of another version is refused as signed out.
       sv: (user as { sessionVersion?: number }).sessionVersion ?? 0,
     },

@@ -1,9 +1,10 @@
 import type { ReactNode } from "react";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // The installed base is the vendor's: reviewers get a real 404 here (checked in the layout,
 // outside the pages' loading boundaries). Each query checks the account scope again.
 export default async function InstalledBaseLayout({ children }: { children: ReactNode }) {
-  await requirePageUser("engineer", "manager", "admin");
+  await requirePageUser(...VENDOR_ROLES);
   return children;
 }

@@ -10,7 +10,7 @@ import { listAccountOptions } from "@/db/queries/accounts";
 import { listAudit } from "@/db/queries/audit";
 import { listUsers } from "@/db/queries/users";
 import { ROLES } from "@/db/schema/users";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { ROLE_LABELS } from "@/lib/auth/roles";
 import { userListParamsSchema } from "@/lib/validations/user";
 

@@ -1,15 +1,16 @@
 import type { Metadata } from "next";
 import { MethodArticle } from "@/components/method/method-article";
 import { PageHeader } from "@/components/ui/panel";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { METHOD_TITLE } from "@/lib/method/model";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Method" };
 
 // The vendor's copy of the method page; the reviewer's portal has its own at /review/method,
 // so that each shell keeps its role check and its navigation.
 export default async function MethodPage() {
-  await requirePageUser("engineer", "manager", "admin");
+  await requirePageUser(...VENDOR_ROLES);
   return (
     <div className="space-y-6">
       <PageHeader

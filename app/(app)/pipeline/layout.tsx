@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 // Managers steer every quote, engineers follow their own; others get a real 404.
 export default async function PipelineLayout({ children }: { children: ReactNode }) {

@@ -9,13 +9,14 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { pipeline, pipelineFilterOptions, pipelineWinRate } from "@/db/queries/pipeline";
 import { getSalesSettings } from "@/db/queries/sales-settings";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { firstParam, type SearchParams } from "@/lib/pages";
 import { sum } from "@/lib/pipeline/figures";
 import { OPEN_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import { formatMoney, formatPayback, formatPct } from "@/lib/results/format";
 import { pipelineFiltersSchema } from "@/lib/validations/pipeline";
 import { QuoteStageOptions } from "@/components/proposals/quote-stage-options";
+import { needsDiscountApproval } from "@/lib/pipeline/discount";
 
 export const metadata: Metadata = { title: "Pipeline" };
 
@@ -50,9 +51,7 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
   const awaitingApproval = isManager
     ? data.quotes.filter(
         (q) =>
-          q.maxDiscountPct > settings.discountThresholdPct &&
-          !q.discountApprovedAt &&
-          OPEN_STAGES.includes(q.stage),
+          needsDiscountApproval(q, settings.discountThresholdPct) && OPEN_STAGES.includes(q.stage),
       )
     : [];
   const filtered = Boolean(filters.owner || filters.stage || filters.account || filters.closeMonth);

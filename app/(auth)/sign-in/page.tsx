@@ -2,10 +2,10 @@ import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { Wordmark } from "@/components/shell/brand-mark";
-import { getSessionUser } from "@/lib/auth";
+import { getSessionUser } from "@/server/auth";
 import { sameOriginPath } from "@/lib/auth/callback-url";
 import { homeFor } from "@/lib/auth/roles";
-import { demoUsers, isDemoMode } from "@/lib/demo";
+import { demoUsers, isDemoMode } from "@/server/demo";
 
 export const metadata: Metadata = { title: "Sign in" };
 

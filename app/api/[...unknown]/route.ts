@@ -1,4 +1,4 @@
-import { jsonError } from "@/lib/api/handler";
+import { jsonError } from "@/server/api/handler";
 
 // Any /api path without a handler answers JSON, never the HTML not-found page.
 function notFound() {

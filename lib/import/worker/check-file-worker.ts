@@ -27,7 +27,7 @@ try {
   // not Linux, or not allowed: no change
 }
 
-// The body of an import worker (lib/import/check-in-worker.ts): it reads one file at a time, off
+// The body of an import worker (server/import/check-in-worker.ts): it reads one file at a time, off
 // the thread that answers requests, and replies with the result or the refusal's message.
 parentPort?.on("message", async (request: CheckFileRequest) => {
   let reply: CheckFileReply;

@@ -3,7 +3,7 @@ import { OutboxMessage } from "@/components/mail/outbox-message";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listOutbox, listWaitingMail } from "@/db/queries/outbox";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 export const metadata: Metadata = { title: "Outbox" };
 

@@ -5,7 +5,7 @@ import { PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { readDossierPrice } from "@/db/queries/dossiers";
 import { listCheckouts } from "@/db/queries/payments";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { formatMoney } from "@/lib/results/format";
 
 export const metadata: Metadata = { title: "Dossier price and payments" };

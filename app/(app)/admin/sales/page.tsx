@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { SalesSettingsForm } from "@/components/admin/sales-settings-form";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getSalesSettings } from "@/db/queries/sales-settings";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 export const metadata: Metadata = { title: "Sales settings" };
 

@@ -6,12 +6,13 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listCases } from "@/db/queries/cases";
 import { listSites } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Cases" };
 
 export default async function CasesPage() {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const cases = listCases(user);
   const sites = listSites(user);
   return (

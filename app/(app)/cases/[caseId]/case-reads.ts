@@ -1,7 +1,7 @@
 import "server-only";
 import { cache } from "react";
 import { getCaseOrThrow } from "@/db/queries/cases";
-import type { SessionUser } from "@/lib/auth";
+import type { SessionUser } from "@/lib/auth/session-user";
 import { orNotFound } from "@/lib/pages";
 
 /**

@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
-import { requirePageUser } from "@/lib/auth";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
+import { requirePageUser } from "@/server/auth";
 import { idParam } from "@/lib/pages";
 import { readCase } from "./case-reads";
 
@@ -11,7 +12,7 @@ export default async function CaseLayout({
   children: ReactNode;
   params: Promise<{ caseId: string }>;
 }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   readCase(user, idParam((await params).caseId));
   return children;
 }

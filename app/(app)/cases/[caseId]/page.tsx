@@ -10,7 +10,8 @@ import { PageHeader, Panel } from "@/components/ui/panel";
 import { listAxisPickerOptions } from "@/db/queries/axes";
 import { listKits } from "@/db/queries/catalogue";
 import { listCaseAxesOf, listProposalsOf } from "@/db/queries/cases";
-import { requirePageUser } from "@/lib/auth";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
+import { requirePageUser } from "@/server/auth";
 import { idParam } from "@/lib/pages";
 import { readCase } from "./case-reads";
 
@@ -21,7 +22,7 @@ export const metadata: Metadata = { title: "Case" };
 const PICKER_LIMIT = 5000;
 
 export default async function CasePage({ params }: { params: Promise<{ caseId: string }> }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const caseId = idParam((await params).caseId);
   // The layout has read the case already: readCase returns that row, without a query.
   const item = readCase(user, caseId);

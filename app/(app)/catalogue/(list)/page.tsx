@@ -6,8 +6,9 @@ import { buttonClass } from "@/components/ui/button";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listKits, listMotors } from "@/db/queries/catalogue";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { currencyMinorUnits, roundMoney } from "@/lib/engine/money";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Catalogue" };
 
@@ -120,7 +121,7 @@ const MOTOR_HELP: [string, string][] = [
 ];
 
 export default async function CataloguePage({ searchParams }: { searchParams: SearchParams }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const showRetired = first((await searchParams).retired) === "1";
   const isAdmin = user.role === "admin";
   const kits = listKits(user, { includeRetired: showRetired });

@@ -1,7 +1,8 @@
 import type { ReactNode } from "react";
 import { getProposalOrThrow } from "@/db/queries/cases";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // A proposal outside the caller's accounts answers a real 404, the same as a missing one.
 export default async function DossierLayout({
@@ -11,7 +12,7 @@ export default async function DossierLayout({
   children: ReactNode;
   params: Promise<{ proposalId: string }>;
 }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).proposalId);
   orNotFound(() => getProposalOrThrow(user, id));
   return children;

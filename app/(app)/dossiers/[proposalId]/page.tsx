@@ -6,14 +6,15 @@ import { UncertaintyForm } from "@/components/dossiers/uncertainty-form";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { formatMoney } from "@/lib/results/format";
 import { idParam, orNotFound } from "@/lib/pages";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Dossier" };
 
 export default async function DossierPage({ params }: { params: Promise<{ proposalId: string }> }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).proposalId);
   const { proposal, grant, price } = orNotFound(() => getDossierAccess(user, id));
   const settings = getDossierSettings(user, id);

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import type { ReactNode } from "react";
-import { addVendorCommentAction } from "@/app/(app)/proposals/actions";
+import { addVendorCommentAction } from "@/server/proposals/actions";
 import { CommentThread } from "@/components/proposals/comment-thread";
 import { ApproveDiscountButton, QuoteManagerForm } from "@/components/proposals/quote-manager-form";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
@@ -10,15 +10,18 @@ import { Badge } from "@/components/ui/badge";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
-import { listComments } from "@/db/queries/proposal-review";
+import { listComments } from "@/db/queries/proposal-comments";
 import { getProposalSnapshotOrThrow, vendorView } from "@/db/queries/proposals";
-import { listAccountReviewers, listOwnerOptions, sendBlocker } from "@/db/queries/quotes";
+import { listAccountReviewers, listOwnerOptions } from "@/db/queries/quotes";
+import { sendBlocker } from "@/server/proposals/send";
 import { getSalesSettings } from "@/db/queries/sales-settings";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam } from "@/lib/pages";
 import { SENDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { formatMoney, formatPayback } from "@/lib/results/format";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
+import { discountAboveThreshold, needsDiscountApproval } from "@/lib/pipeline/discount";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -27,7 +30,7 @@ export default async function ProposalPage({
 }: {
   params: Promise<{ proposalId: string }>;
 }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).proposalId);
   const { quote: row, input: rawInput, result } = getProposalSnapshotOrThrow(user, id);
   const settings = getSalesSettings();
@@ -35,8 +38,7 @@ export default async function ProposalPage({
   const input = parseCaseInput(rawInput);
   const comments = listComments(user, id);
   const blocker = sendBlocker(row, settings.discountThresholdPct);
-  const needsApproval =
-    row.maxDiscountPct > settings.discountThresholdPct && !row.discountApprovedAt;
+  const needsApproval = needsDiscountApproval(row, settings.discountThresholdPct);
   const sendable = SENDABLE_STAGES.includes(row.stage);
   const isManager = user.role === "manager";
 
@@ -79,7 +81,7 @@ export default async function ProposalPage({
               value={
                 <span className="flex flex-wrap items-center gap-2">
                   {quote.maxDiscountPct} %
-                  {row.maxDiscountPct > settings.discountThresholdPct ? (
+                  {discountAboveThreshold(row.maxDiscountPct, settings.discountThresholdPct) ? (
                     row.discountApprovedAt ? (
                       <Badge tone="success">Approved {row.discountApprovedAt.slice(0, 10)}</Badge>
                     ) : (

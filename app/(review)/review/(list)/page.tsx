@@ -5,7 +5,7 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { getAccountOrThrow } from "@/db/queries/accounts";
 import { listVisibleQuotes, reviewerView } from "@/db/queries/proposals";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { formatMoney, formatPayback } from "@/lib/results/format";
 
 export const metadata: Metadata = { title: "Proposals for review" };

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { MethodArticle } from "@/components/method/method-article";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader } from "@/components/ui/panel";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { METHOD_TITLE } from "@/lib/method/model";
 
 export const metadata: Metadata = { title: "Method" };

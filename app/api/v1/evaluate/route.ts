@@ -1,6 +1,6 @@
 import { NextResponse } from "next/server";
-import { jsonError, readJsonBody, withApi } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth";
+import { jsonError, readJsonBody, withApi } from "@/server/api/handler";
+import { requireUser } from "@/server/auth";
 import { caseInputSchema, evaluateParsedCase, formatIssues, formatPath } from "@/lib/engine";
 
 // A CaseInput in, the engine's CaseResult out (docs/model.md), for any signed-in user.

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { pipeline } from "@/db/queries/pipeline";
-import { withApi } from "@/lib/api/handler";
-import { requireRole } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { requireRole } from "@/server/auth";
 import { pipelineFiltersSchema } from "@/lib/validations/pipeline";
 
 // Quotes with totals per stage (and per close month); ?owner=&stage=&account=&closeMonth=YYYY-MM.

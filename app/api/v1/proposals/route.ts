@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { listProposalsFor } from "@/db/queries/proposals";
-import { withApi } from "@/lib/api/handler";
-import { requireUser } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { requireUser } from "@/server/auth";
 
 // The proposals the caller may see, newest first: a reviewer only those sent to their account.
 export const GET = withApi(async () => {

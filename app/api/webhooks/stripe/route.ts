@@ -1,5 +1,5 @@
-import { jsonError, withApi } from "@/lib/api/handler";
-import { BadSignatureError, handlePaymentWebhook } from "@/lib/payments/webhook";
+import { jsonError, withApi } from "@/server/api/handler";
+import { BadSignatureError, handlePaymentWebhook } from "@/server/payments/webhook";
 
 // The payment provider's webhook. No session: the signature over the raw body is the proof,
 // checked by the SDK's constructEvent; anything that does not verify is refused untouched.

@@ -3,12 +3,13 @@ import Link from "next/link";
 import { EmptyState, PageHeader } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listAccounts } from "@/db/queries/accounts";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Accounts" };
 
 export default async function AccountsPage() {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const accounts = listAccounts(user);
   return (
     <>

@@ -6,13 +6,14 @@ import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { getAccountOrThrow } from "@/db/queries/accounts";
 import { listSites } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Account" };
 
 export default async function AccountPage({ params }: { params: Promise<{ accountId: string }> }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const accountId = idParam((await params).accountId);
   const account = orNotFound(() => getAccountOrThrow(user, accountId));
   const sites = listSites(user, accountId);

@@ -6,13 +6,14 @@ import { PageHeader, Panel } from "@/components/ui/panel";
 import { getAxisOrThrow } from "@/db/queries/axes";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Edit axis" };
 
 export default async function EditAxisPage({ params }: { params: Promise<{ axisId: string }> }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).axisId);
   const axis = orNotFound(() => getAxisOrThrow(user, id));
   const site = getSiteOrThrow(user, axis.siteId);

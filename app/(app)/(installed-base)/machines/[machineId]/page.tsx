@@ -4,8 +4,9 @@ import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getMachineOrThrow } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Edit machine" };
 
@@ -14,7 +15,7 @@ export default async function EditMachinePage({
 }: {
   params: Promise<{ machineId: string }>;
 }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).machineId);
   const machine = orNotFound(() => getMachineOrThrow(user, id));
   const site = getSiteOrThrow(user, machine.siteId);

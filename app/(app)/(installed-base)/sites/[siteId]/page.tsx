@@ -11,10 +11,11 @@ import { listAxes } from "@/db/queries/axes";
 import { listImports } from "@/db/queries/imports";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { IMPORT_FIELDS } from "@/lib/import/fields";
 import { firstParam, idParam, orNotFound, type SearchParams } from "@/lib/pages";
 import { axisListParamsSchema } from "@/lib/validations/installed-base";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Site" };
 
@@ -25,7 +26,7 @@ export default async function SitePage({
   params: Promise<{ siteId: string }>;
   searchParams: SearchParams;
 }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const siteId = idParam((await params).siteId);
   const site = orNotFound(() => getSiteOrThrow(user, siteId));
   const raw = await searchParams;

@@ -4,7 +4,7 @@ import { KitForm } from "@/components/catalogue/kit-form";
 import { Badge } from "@/components/ui/badge";
 import { PageHeader } from "@/components/ui/panel";
 import { listKits, listMotors } from "@/db/queries/catalogue";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 export const metadata: Metadata = { title: "Edit a kit" };
 

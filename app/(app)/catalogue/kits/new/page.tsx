@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { KitForm } from "@/components/catalogue/kit-form";
 import { PageHeader } from "@/components/ui/panel";
 import { listMotors } from "@/db/queries/catalogue";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 export const metadata: Metadata = { title: "Add a kit" };
 

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { MotorForm } from "@/components/catalogue/motor-form";
 import { PageHeader } from "@/components/ui/panel";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 
 export const metadata: Metadata = { title: "Add a motor" };
 

@@ -4,9 +4,10 @@ import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess } from "@/db/queries/dossiers";
 import { latestOpenCheckout } from "@/db/queries/payments";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
-import { closeDossierCheckoutAction } from "../../actions";
+import { closeDossierCheckoutAction } from "@/server/dossiers/actions";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Checkout cancelled" };
 
@@ -19,7 +20,7 @@ export default async function CancelledPage({
 }: {
   params: Promise<{ proposalId: string }>;
 }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).proposalId);
   const { proposal, grant } = orNotFound(() => getDossierAccess(user, id));
   const open = grant ? null : latestOpenCheckout(user, id);

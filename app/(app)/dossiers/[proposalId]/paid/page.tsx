@@ -4,10 +4,11 @@ import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess } from "@/db/queries/dossiers";
 import { getCheckoutOrThrow } from "@/db/queries/payments";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { firstParam, idParam, orNotFound, type SearchParams } from "@/lib/pages";
-import { stripeClient } from "@/lib/payments/client";
+import { stripeClient } from "@/server/payments/client";
 import { formatMoney } from "@/lib/results/format";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Payment" };
 
@@ -20,7 +21,7 @@ export default async function PaidPage({
   params: Promise<{ proposalId: string }>;
   searchParams: SearchParams;
 }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).proposalId);
   const sessionId = firstParam((await searchParams).session_id) ?? "";
   const checkout = orNotFound(() => getCheckoutOrThrow(user, id, sessionId));

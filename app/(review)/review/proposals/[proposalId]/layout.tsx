@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
 import { getVisibleQuoteOrThrow } from "@/db/queries/proposals";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
 // A proposal not sent to the reviewer's own account answers a real 404, like a missing one.

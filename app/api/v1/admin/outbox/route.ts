@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { listOutbox } from "@/db/queries/outbox";
-import { withApi } from "@/lib/api/handler";
-import { requireRole } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { requireRole } from "@/server/auth";
 
 // What the local mail catcher received: [{ id, to, subject, text, html, createdAt }], newest first.
 export const GET = withApi(async () => {

@@ -1,12 +1,13 @@
-import { withApi } from "@/lib/api/handler";
-import { requireRole } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { requireRole } from "@/server/auth";
 import { NotFoundError } from "@/lib/errors";
 import { templateCsv, templateXlsx } from "@/lib/import";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // GET /api/v1/imports/template.xlsx and template.csv: one column per field, "Label [unit]".
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ file: string }> }) => {
-    await requireRole("engineer", "manager", "admin");
+    await requireRole(...VENDOR_ROLES);
     const { file } = await context.params;
     if (file === "template.xlsx") {
       return new Response(new Uint8Array(await templateXlsx()), {

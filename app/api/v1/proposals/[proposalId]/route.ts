@@ -1,9 +1,9 @@
 import { NextResponse } from "next/server";
 import { getProposalSnapshotOrThrow, viewFor } from "@/db/queries/proposals";
 import { updateQuote } from "@/db/queries/quotes";
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole, requireUser } from "@/lib/auth";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole, requireUser } from "@/server/auth";
 import { quoteUpdateSchema } from "@/lib/validations/pipeline";
 
 type Context = { params: Promise<{ proposalId: string }> };

@@ -3,13 +3,14 @@ import { SiteForm } from "@/components/installed-base/site-form";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Edit site" };
 
 export default async function EditSitePage({ params }: { params: Promise<{ siteId: string }> }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).siteId);
   const site = orNotFound(() => getSiteOrThrow(user, id));
   return (

@@ -1,8 +1,9 @@
 import { z } from "zod";
-import { caseInputAndResultJson, caseResultJson } from "@/db/queries/cases";
-import { withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
+import { idFromRoute } from "@/lib/validations/ids";
+import { withApi } from "@/server/api/handler";
+import { requireRole } from "@/server/auth";
+import { caseInputAndResultJson, caseResultJson } from "@/server/cases/results";
 
 const includeParam = z
   .enum(["input"], { error: "include: the only accepted value is input" })
@@ -12,7 +13,7 @@ const includeParam = z
 // is `{ input, result }`: the CaseInput the engine received beside it (the case page's one request).
 export const GET = withApi(
   async (request: Request, context: { params: Promise<{ caseId: string }> }) => {
-    const caller = await requireRole("engineer", "manager", "admin");
+    const caller = await requireRole(...VENDOR_ROLES);
     const caseId = idFromRoute((await context.params).caseId);
     const include = includeParam.parse(new URL(request.url).searchParams.get("include"));
     const body = include ? caseInputAndResultJson(caller, caseId) : caseResultJson(caller, caseId);

@@ -1,15 +1,17 @@
-import { buildCaseInput, caseResult, getCaseOrThrow } from "@/db/queries/cases";
-import { withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { buildCaseInput, getCaseOrThrow } from "@/db/queries/cases";
+import { caseResult } from "@/server/cases/results";
+import { withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { caseInputSchema } from "@/lib/engine";
 import { buildProposalWorkbook } from "@/lib/workbook";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // The case as it stands as an .xlsx whose formulas recompute every figure; no version, since
 // nothing is frozen (GET /api/v1/proposals/{id}/workbook gives a frozen one).
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ caseId: string }> }) => {
-    const caller = await requireRole("engineer", "manager", "admin");
+    const caller = await requireRole(...VENDOR_ROLES);
     const caseId = idFromRoute((await context.params).caseId);
     const found = getCaseOrThrow(caller, caseId);
     const input = buildCaseInput(caller, caseId);

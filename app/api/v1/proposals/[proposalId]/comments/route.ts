@@ -1,8 +1,9 @@
 import { NextResponse } from "next/server";
-import { addComment, listComments } from "@/db/queries/proposal-review";
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireUser } from "@/lib/auth";
+import { addComment } from "@/server/review/decisions";
+import { listComments } from "@/db/queries/proposal-comments";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireUser } from "@/server/auth";
 import { commentSchema } from "@/lib/validations/pipeline";
 
 type Context = { params: Promise<{ proposalId: string }> };

@@ -1,8 +1,8 @@
 import { NextResponse } from "next/server";
-import { decideProposal } from "@/db/queries/proposal-review";
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { decideProposal } from "@/server/review/decisions";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { decisionSchema } from "@/lib/validations/pipeline";
 
 // The reviewer's `{ decision: "accept" | "changes" | "decline", comment }`.

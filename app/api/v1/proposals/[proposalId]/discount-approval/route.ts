@@ -1,8 +1,8 @@
 import { NextResponse } from "next/server";
 import { approveDiscount } from "@/db/queries/quotes";
-import { withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 
 // A sales manager approves a kit discount above the administrator's threshold.
 export const POST = withApi(

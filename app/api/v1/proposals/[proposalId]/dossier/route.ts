@@ -1,17 +1,18 @@
 import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
-import { jsonError, withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { jsonError, withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { buildDossier } from "@/lib/dossier";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 import { buildDossierWorkbook } from "@/lib/workbook";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 // The dossier workbook of a proposal: 402 until its account has paid (with the price, for the
 // vendor's people who may buy it), then the .xlsx, built from the frozen input with the recorded
 // seed and ranges. The customer's reviewer reads it too, for a proposal sent to their account.
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ proposalId: string }> }) => {
-    const caller = await requireRole("engineer", "manager", "admin", "reviewer");
+    const caller = await requireRole(...VENDOR_ROLES, "reviewer");
     const id = idFromRoute((await context.params).proposalId);
     const { proposal, grant, price } = getDossierAccess(caller, id);
     if (!grant && caller.role === "reviewer") {

@@ -1,8 +1,8 @@
 import { NextResponse } from "next/server";
-import { runWhatIf } from "@/db/queries/proposal-review";
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireUser } from "@/lib/auth";
+import { runWhatIf } from "@/server/review/decisions";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireUser } from "@/server/auth";
 import { whatIfSchema } from "@/lib/validations/pipeline";
 
 // The CaseResult of the frozen proposal with other finance figures (tariffPerKWh,

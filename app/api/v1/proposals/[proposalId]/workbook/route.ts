@@ -1,7 +1,7 @@
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
-import { withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireUser } from "@/lib/auth";
+import { withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireUser } from "@/server/auth";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 import { buildProposalWorkbook } from "@/lib/workbook";
 

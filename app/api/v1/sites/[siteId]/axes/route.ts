@@ -3,12 +3,13 @@ import { z } from "zod";
 import { createAxis, listAxesForExport } from "@/db/queries/axes";
 import { getMachineOrThrow } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { readJsonBody, withApi } from "@/lib/api/handler";
-import { invalidBody } from "@/lib/api/invalid";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { readJsonBody, withApi } from "@/server/api/handler";
+import { invalidBody } from "@/server/api/invalid";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { NotFoundError } from "@/lib/errors";
 import { axisApiSchema, MAX_AXIS_BYTES } from "@/lib/validations/installed-base";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 const query = z.object({
   offset: z.coerce.number().int().min(0).default(0),
@@ -19,7 +20,7 @@ type Context = { params: Promise<{ siteId: string }> };
 
 // A site's axes with every field in SI units (N·m, A, Ω, mH, V, rpm, kg·m²), in pages of up to 5,000.
 export const GET = withApi(async (request: Request, context: Context) => {
-  const caller = await requireRole("engineer", "manager", "admin");
+  const caller = await requireRole(...VENDOR_ROLES);
   const siteId = idFromRoute((await context.params).siteId);
   const { offset, limit } = query.parse(Object.fromEntries(new URL(request.url).searchParams));
   return NextResponse.json(listAxesForExport(caller, siteId, offset, limit));
@@ -28,7 +29,7 @@ export const GET = withApi(async (request: Request, context: Context) => {
 // A new axis on one of the site's machines; `motion`, `event` and `resonance` as in the engine's
 // CaseInput (docs/model.md). Answers 201 with the stored axis.
 export const POST = withApi(async (request: Request, context: Context) => {
-  const caller = await requireRole("engineer", "manager", "admin");
+  const caller = await requireRole(...VENDOR_ROLES);
   const siteId = idFromRoute((await context.params).siteId);
   getSiteOrThrow(caller, siteId);
   const parsed = axisApiSchema.safeParse(await readJsonBody(request, MAX_AXIS_BYTES));

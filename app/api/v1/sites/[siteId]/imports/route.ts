@@ -1,11 +1,12 @@
 import { NextResponse } from "next/server";
 import { commitImport, machinesToCreate, recordRefusedImport } from "@/db/queries/imports";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { jsonError, withApi } from "@/lib/api/handler";
-import { idFromRoute } from "@/lib/api/params";
-import { requireRole } from "@/lib/auth";
+import { jsonError, withApi } from "@/server/api/handler";
+import { idFromRoute } from "@/lib/validations/ids";
+import { requireRole } from "@/server/auth";
 import { ImportFileError, type MappingOverride } from "@/lib/import";
-import { checkImportFileInWorker } from "@/lib/import/check-in-worker";
+import { checkImportFileInWorker } from "@/server/import/check-in-worker";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const MAX_IMPORT_BYTES = 10 * 1024 * 1024;
 
@@ -35,7 +36,7 @@ function parseDryRun(value: FormDataEntryValue | null): boolean {
 // multipart: file (required), dryRun ("true" validates only), mapping (JSON), sheet (name).
 export const POST = withApi(
   async (request: Request, context: { params: Promise<{ siteId: string }> }) => {
-    const caller = await requireRole("engineer", "manager", "admin");
+    const caller = await requireRole(...VENDOR_ROLES);
     const site = getSiteOrThrow(caller, idFromRoute((await context.params).siteId));
     // The multipart envelope adds a few hundred bytes to the file itself.
     if (Number(request.headers.get("content-length") ?? 0) > MAX_IMPORT_BYTES + 16 * 1024) {
@@ -57,7 +58,7 @@ export const POST = withApi(
       if (file.size > MAX_IMPORT_BYTES)
         return jsonError(413, "The file is larger than 10 MB; split it into smaller files");
       const dryRun = parseDryRun(form.get("dryRun"));
-      // Read in a worker thread (lib/import/check-in-worker.ts): a large file does not hold up
+      // Read in a worker thread (server/import/check-in-worker.ts): a large file does not hold up
       // the requests of other users while it is read.
       const checked = await checkImportFileInWorker(
         new Uint8Array(await file.arrayBuffer()),

@@ -4,13 +4,14 @@ import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
-import { requirePageUser } from "@/lib/auth";
+import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Add axis" };
 
 export default async function NewAxisPage({ params }: { params: Promise<{ siteId: string }> }) {
-  const user = await requirePageUser("engineer", "manager", "admin");
+  const user = await requirePageUser(...VENDOR_ROLES);
   const id = idParam((await params).siteId);
   const site = orNotFound(() => getSiteOrThrow(user, id));
   const machines = listMachines(user, site.id);
