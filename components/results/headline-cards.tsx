@@ -1,4 +1,6 @@
 import { Badge } from "@/components/ui/badge";
+import { Term } from "@/components/ui/term";
+import { FINANCE_TERMS, UP_FRONT_COST_BREAKDOWN } from "@/lib/glossary";
 import type { CaseResult, ParsedCase, Scenario } from "@/lib/engine";
 import { paybackShort } from "@/lib/results/engine-v2";
 import {
@@ -34,6 +36,9 @@ export function HeadlineCards({ result, input }: { result: CaseResult; input: Pa
           />
         ))}
       </div>
+      <p className="mt-2 text-small text-steel-700">
+        {FINANCE_TERMS.upFrontCost} is the same in every scenario: {UP_FRONT_COST_BREAKDOWN}.
+      </p>
     </section>
   );
 }
@@ -59,7 +64,7 @@ function ScenarioCard({
     >
       <header className="flex flex-wrap items-center justify-between gap-2">
         <h3 id={titleId} className="text-lead">
-          {h.label}
+          <Term kind="scenario">{h.label}</Term>
         </h3>
         {primary ? <Badge tone="flux">Basis of the proposal</Badge> : <Badge>For comparison</Badge>}
       </header>
@@ -72,7 +77,10 @@ function ScenarioCard({
         {formatMoney(h.npv, currency)}
       </p>
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
-        <Row term="Capex" value={formatMoney(h.capex, currency)} />
+        <Row
+          term={FINANCE_TERMS.upFrontCost}
+          value={formatMoney(h.capex, currency)}
+        />
         <Row term="Payback" value={paybackShort(scenario, horizonYears)} />
         <Row
           term="Discounted payback"

@@ -3,6 +3,7 @@ import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult } from "@/lib/engine";
 import { valueBySource } from "@/lib/results/engine-v2";
 import { formatMoney } from "@/lib/results/format";
+import { SCENARIO_LABELS } from "@/lib/glossary";
 
 /**
  * Each year's flow of the physics scenario split by where the money comes from, so that finance
@@ -20,7 +21,9 @@ export function ValueBySourceTable({ result }: { result: CaseResult }) {
         follow inflation. Tax is what the flows owe after depreciation (a negative amount is a
         shield); sources that are zero in every year are left out.
       </p>
-      <Table caption="Value of the physics scenario by source and year, with the yearly cash flow they add up to">
+      <Table
+      caption={`Value of the ${SCENARIO_LABELS.physics.toLowerCase()} by source and year, with the yearly cash flow they add up to`}
+    >
         <thead>
           <tr>
             <Th>Source</Th>

@@ -1,16 +1,10 @@
 import { QUOTE_STAGES, type QuoteStage } from "../../db/schema/quotes";
+import { QUOTE_STAGE_LABELS } from "../glossary";
 
 export { QUOTE_STAGES, type QuoteStage };
 
-// The stages of a quote in Loopshift's words, for badges, filters and charts.
-export const STAGE_LABELS: Record<QuoteStage, string> = {
-  ready: "Ready to send",
-  sent: "With the customer",
-  changes: "Changes asked",
-  accepted: "Accepted",
-  declined: "Declined",
-  replaced: "Replaced by a newer version",
-};
+// The stages of a quote in Loopshift's words, for badges, filters and charts (lib/glossary).
+export const STAGE_LABELS: Record<QuoteStage, string> = QUOTE_STAGE_LABELS;
 
 // Stages still in play: their value is the open pipeline.
 export const OPEN_STAGES: readonly QuoteStage[] = ["ready", "sent", "changes"];

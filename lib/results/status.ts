@@ -1,4 +1,5 @@
 import type { LoopResult } from "@/lib/engine";
+import { LOOP_STATUS_LABELS, type LoopStatusKey } from "@/lib/glossary";
 import { formatNumber } from "./format";
 
 /** Badge tones of components/ui/badge, named here so that the words and the colour agree. */
@@ -11,12 +12,19 @@ export interface LoopStatusView {
   detail: string;
 }
 
-const STATUS: Record<string, { words: string; tone: StatusTone }> = {
-  ok: { words: "Margin kept", tone: "success" },
-  "at-risk": { words: "Thin margin", tone: "caution" },
-  "step-loss": { words: "Loses steps", tone: "danger" },
-  undersized: { words: "Kit too small", tone: "danger" },
+const TONE: Record<LoopStatusKey, StatusTone> = {
+  ok: "success",
+  "at-risk": "caution",
+  "step-loss": "danger",
+  undersized: "danger",
 };
+
+const STATUS: Record<string, { words: string; tone: StatusTone }> = Object.fromEntries(
+  (Object.keys(TONE) as LoopStatusKey[]).map((key) => [
+    key,
+    { words: LOOP_STATUS_LABELS[key], tone: TONE[key] },
+  ]),
+);
 
 /** A loop's status in words and tone (docs/model.md (Torque margin and speed)), never by colour alone. */
 export function loopStatus(loop: LoopResult, requiredPct: number | null): LoopStatusView {

@@ -19,6 +19,7 @@ import { idParam } from "@/lib/pages";
 import { SENDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { formatMoney, formatPayback } from "@/lib/results/format";
+import { FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -67,12 +68,12 @@ export default async function ProposalPage({
           <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-small">
             <Fact term="Stage" value={<QuoteStageBadge stage={quote.stage} />} />
             <Fact term="Owner" value={quote.ownerName} />
-            <Fact term="Value (capex)" value={formatMoney(quote.value, quote.currency)} />
+            <Fact term={FINANCE_TERMS.pipelineValue} value={formatMoney(quote.value, quote.currency)} />
             <Fact
               term="Weighted value"
               value={`${formatMoney(quote.weighted, quote.currency)} (${quote.probabilityPct} % for this stage)`}
             />
-            <Fact term="Payback (modelled)" value={formatPayback(quote.paybackYears)} />
+            <Fact term={`Payback (${SCENARIO_LABELS.physics.toLowerCase()})`} value={formatPayback(quote.paybackYears)} />
             <Fact term="Expected close" value={quote.expectedCloseOn} />
             <Fact
               term="Largest kit discount"
