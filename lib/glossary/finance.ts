@@ -12,6 +12,8 @@ export const FINANCE_TERMS = {
   labourRate: "Labour rate",
   npv: "Net present value",
   payback: "Payback",
+  /** The payback a proposal is sold on: that of the engine's own scenario. */
+  estimatedPayback: "Payback (engineering estimate)",
   pipelineValue: "Value (up-front cost)",
   totalPipelineValue: "Total value (up-front cost)",
 } as const;

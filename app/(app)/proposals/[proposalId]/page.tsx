@@ -19,7 +19,7 @@ import { idParam } from "@/lib/pages";
 import { SENDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { formatMoney, formatPayback } from "@/lib/results/format";
-import { FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";
+import { FINANCE_TERMS } from "@/lib/glossary";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -73,7 +73,7 @@ export default async function ProposalPage({
               term="Weighted value"
               value={`${formatMoney(quote.weighted, quote.currency)} (${quote.probabilityPct} % for this stage)`}
             />
-            <Fact term={`Payback (${SCENARIO_LABELS.physics.toLowerCase()})`} value={formatPayback(quote.paybackYears)} />
+            <Fact term={FINANCE_TERMS.estimatedPayback} value={formatPayback(quote.paybackYears)} />
             <Fact term="Expected close" value={quote.expectedCloseOn} />
             <Fact
               term="Largest kit discount"

@@ -7,7 +7,7 @@ import { getAccountOrThrow } from "@/db/queries/accounts";
 import { listVisibleQuotes, reviewerView } from "@/db/queries/proposals";
 import { requirePageUser } from "@/lib/auth";
 import { formatMoney, formatPayback } from "@/lib/results/format";
-import { FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";
+import { FINANCE_TERMS } from "@/lib/glossary";
 
 export const metadata: Metadata = { title: "Proposals for review" };
 
@@ -42,7 +42,7 @@ export default async function ReviewHome() {
                 <Th>Site</Th>
                 <Th>Status</Th>
                 <Th className="text-right">{FINANCE_TERMS.upFrontCost}</Th>
-                <Th className="text-right">Payback ({SCENARIO_LABELS.physics.toLowerCase()})</Th>
+                <Th className="text-right">{FINANCE_TERMS.estimatedPayback}</Th>
                 <Th>Sent (UTC)</Th>
                 <Th>From</Th>
               </tr>
