@@ -173,7 +173,7 @@ export const NAME = {
   escalation: "TariffEscalation_Pct",
   discountRate: "DiscountRate_Pct",
   horizon: "Horizon_Years",
-  laborRate: "LaborRate_PerHour",
+  laborRate: "LabourRate_PerHour",
   downtimeCost: "DowntimeCost_PerHour",
   projectCost: "ProjectOneTimeCost",
   serviceCost: "AnnualServiceCost",
