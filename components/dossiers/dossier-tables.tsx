@@ -95,10 +95,10 @@ export function PaybackGridPanel({ dossier }: { dossier: Dossier }) {
   return (
     <Panel title="Payback over tariff and running hours">
       <p className="mb-3 text-small text-steel-700">
-        Simple payback of the {SCENARIO_LABELS.physics.toLowerCase()} with the tariff (rows) and every axis&apos;s running
-        hours (columns) changed together. Green: within the first third of the {horizon}-year
-        horizon; red: not within it. The framed cell is the case as proposed. Paybacks in{" "}
-        {inMonths ? "months" : "years"}.
+        Simple payback of the {SCENARIO_LABELS.physics.toLowerCase()} with the tariff (rows) and
+        every axis&apos;s running hours (columns) changed together. Green: within the first third of
+        the {horizon}-year horizon; red: not within it. The framed cell is the case as proposed.
+        Paybacks in {inMonths ? "months" : "years"}.
       </p>
       <Table caption="Simple payback by tariff and running hours">
         <thead>

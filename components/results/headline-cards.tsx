@@ -77,10 +77,7 @@ function ScenarioCard({
         {formatMoney(h.npv, currency)}
       </p>
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
-        <Row
-          term={FINANCE_TERMS.upFrontCost}
-          value={formatMoney(h.capex, currency)}
-        />
+        <Row term={FINANCE_TERMS.upFrontCost} value={formatMoney(h.capex, currency)} />
         <Row term="Payback" value={paybackShort(scenario, horizonYears)} />
         <Row
           term="Discounted payback"

@@ -22,8 +22,8 @@ export function ValueBySourceTable({ result }: { result: CaseResult }) {
         shield); sources that are zero in every year are left out.
       </p>
       <Table
-      caption={`Value of the ${SCENARIO_LABELS.physics.toLowerCase()} by source and year, with the yearly cash flow they add up to`}
-    >
+        caption={`Value of the ${SCENARIO_LABELS.physics.toLowerCase()} by source and year, with the yearly cash flow they add up to`}
+      >
         <thead>
           <tr>
             <Th>Source</Th>

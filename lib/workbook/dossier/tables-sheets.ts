@@ -45,7 +45,9 @@ export function writeMonthlySheet(sheet: ExcelJS.Worksheet, input: ParsedCase, d
     };
     row.getCell(3).numFmt = currency;
     row.getCell(4).numFmt = currency;
-    if (i === 0) row.getCell(5).value = `The ${FINANCE_TERMS.upFrontCost.toLowerCase()} (−Capex), at the start`;
+    if (i === 0)
+      row.getCell(5).value =
+        `The ${FINANCE_TERMS.upFrontCost.toLowerCase()} (−Capex), at the start`;
     if (i === 1)
       row.getCell(5).value =
         "Each year's flow spread evenly over its 12 months (tariff escalation steps yearly)";

@@ -216,8 +216,8 @@ describe("proposal workbook structure (issue 5)", () => {
     expect(String(z.getCell(column("Warnings", "Warnings")).value)).toMatch(
       /holds a load at standstill/,
     );
-    expect(formulaOf(z.getCell(column("Up-front cost, one unit", "Money and totals (formulas)")))).toMatch(
-      /\*LabourRate_PerHour\+/,
-    );
+    expect(
+      formulaOf(z.getCell(column("Up-front cost, one unit", "Money and totals (formulas)"))),
+    ).toMatch(/\*LabourRate_PerHour\+/);
   });
 });

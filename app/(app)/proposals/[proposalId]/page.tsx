@@ -68,7 +68,10 @@ export default async function ProposalPage({
           <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-small">
             <Fact term="Stage" value={<QuoteStageBadge stage={quote.stage} />} />
             <Fact term="Owner" value={quote.ownerName} />
-            <Fact term={FINANCE_TERMS.pipelineValue} value={formatMoney(quote.value, quote.currency)} />
+            <Fact
+              term={FINANCE_TERMS.pipelineValue}
+              value={formatMoney(quote.value, quote.currency)}
+            />
             <Fact
               term="Weighted value"
               value={`${formatMoney(quote.weighted, quote.currency)} (${quote.probabilityPct} % for this stage)`}
