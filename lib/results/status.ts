@@ -19,16 +19,13 @@ const TONE: Record<LoopStatusKey, StatusTone> = {
   undersized: "danger",
 };
 
-const STATUS: Record<string, { words: string; tone: StatusTone }> = Object.fromEntries(
-  (Object.keys(TONE) as LoopStatusKey[]).map((key) => [
-    key,
-    { words: LOOP_STATUS_LABELS[key], tone: TONE[key] },
-  ]),
-);
+const isKnown = (status: string): status is LoopStatusKey => status in TONE;
 
 /** A loop's status in words and tone (docs/model.md (Torque margin and speed)), never by colour alone. */
 export function loopStatus(loop: LoopResult, requiredPct: number | null): LoopStatusView {
-  const known = STATUS[loop.status] ?? { words: loop.status, tone: "neutral" as const };
+  const known = isKnown(loop.status)
+    ? { words: LOOP_STATUS_LABELS[loop.status], tone: TONE[loop.status] }
+    : { words: loop.status, tone: "neutral" as const };
   const margin =
     loop.marginPct === null
       ? "no torque at this speed"
