@@ -17,7 +17,7 @@ export function ValueBySourceTable({ result }: { result: CaseResult }) {
   return (
     <Panel title="Value by source, year by year">
       <p className="mb-3 text-small text-steel-700">
-        Modelled physics. Energy and cooling follow the tariff and its escalation; the other sources
+        {SCENARIO_LABELS.physics}. Energy and cooling follow the tariff and its escalation; the other sources
         follow inflation. Tax is what the flows owe after depreciation (a negative amount is a
         shield); sources that are zero in every year are left out.
       </p>
