@@ -17,9 +17,9 @@ export function ValueBySourceTable({ result }: { result: CaseResult }) {
   return (
     <Panel title="Value by source, year by year">
       <p className="mb-3 text-small text-steel-700">
-        {SCENARIO_LABELS.physics}. Energy and cooling follow the tariff and its escalation; the other sources
-        follow inflation. Tax is what the flows owe after depreciation (a negative amount is a
-        shield); sources that are zero in every year are left out.
+        {SCENARIO_LABELS.physics}. Energy and cooling follow the tariff and its escalation; the
+        other sources follow inflation. Tax is what the flows owe after depreciation (a negative
+        amount is a shield); sources that are zero in every year are left out.
       </p>
       <Table
         caption={`Value of the ${SCENARIO_LABELS.physics.toLowerCase()} by source and year, with the yearly cash flow they add up to`}
