@@ -1,6 +1,6 @@
 import { Badge } from "@/components/ui/badge";
 import { Term } from "@/components/ui/term";
-import { FINANCE_TERMS, UP_FRONT_COST_BREAKDOWN } from "@/lib/glossary";
+import { BAND_POSITION_LABELS, FINANCE_TERMS, UP_FRONT_COST_BREAKDOWN } from "@/lib/glossary";
 import type { CaseResult, ParsedCase, Scenario } from "@/lib/engine";
 import { paybackShort } from "@/lib/results/engine-v2";
 import {
@@ -14,7 +14,6 @@ import {
 import { scenarioHeadlines, type ScenarioHeadline } from "@/lib/results/scenarios";
 
 const BAND_TONE = { below: "caution", within: "success", above: "flux" } as const;
-const BAND_WORDS = { below: "Below band", within: "Within band", above: "Above band" } as const;
 
 /** The business case at a glance: each scenario's figures in one column, side by side. */
 export function HeadlineCards({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
@@ -92,7 +91,11 @@ function ScenarioCard({
         />
       </dl>
       <div className="mt-4 border-t border-steel-100 pt-3">
-        {h.band ? <Badge tone={BAND_TONE[h.band]}>{BAND_WORDS[h.band]}</Badge> : null}
+        {h.band ? (
+          <Badge tone={BAND_TONE[h.band]} term="band-position">
+            {BAND_POSITION_LABELS[h.band]}
+          </Badge>
+        ) : null}
         <p className="mt-1 text-small text-steel-700">{h.bandText}</p>
       </div>
     </article>

@@ -4,6 +4,7 @@ import { ROLE_LABELS } from "./roles";
 import { SCENARIO_LABELS } from "./scenarios";
 import { CASE_STAGE_LABELS, DECISION_LABELS, QUOTE_STAGE_LABELS } from "./stages";
 import {
+  BAND_POSITION_LABELS,
   CHECKOUT_STATUS_LABELS,
   LOOP_STATUS_LABELS,
   MAIL_STATUS_LABELS,
@@ -22,6 +23,7 @@ export const TERMS_BY_KIND = {
   "mail-status": Object.values(MAIL_STATUS_LABELS),
   "loop-status": Object.values(LOOP_STATUS_LABELS),
   "payback-status": Object.values(PAYBACK_STATUS_LABELS),
+  "band-position": Object.values(BAND_POSITION_LABELS),
   scenario: Object.values(SCENARIO_LABELS),
   driver: Object.values(DRIVER_LABELS),
   finance: Object.values(FINANCE_TERMS),

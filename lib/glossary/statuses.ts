@@ -30,6 +30,15 @@ export const LOOP_STATUS_LABELS: Record<LoopStatusKey, string> = {
   undersized: "Kit too small",
 };
 
+export type BandPositionKey = "below" | "within" | "above";
+
+/** Where an energy saving lands against the band the trade claims. */
+export const BAND_POSITION_LABELS: Record<BandPositionKey, string> = {
+  below: "Below the band",
+  within: "Within the band",
+  above: "Above the band",
+};
+
 export type PaybackStatusKey = "reached" | "beyond-horizon" | "never";
 
 /** Whether a scenario's cumulative cash turns positive, and when (docs/model.md (The business case)). */

@@ -1,6 +1,6 @@
 import { avoidsEvents, orNull, type AxisColumn } from "./axis-column";
 import { FORMATS } from "./formats";
-import { LOOP_STATUS_LABELS } from "@/lib/glossary";
+import { BAND_POSITION_LABELS, LOOP_STATUS_LABELS } from "@/lib/glossary";
 import { safeText } from "./safe-text";
 import { axisWarningText } from "./warning-text";
 
@@ -219,7 +219,7 @@ export const AXIS_RESULT_COLUMNS: readonly AxisColumn[] = [
     group: "Gains, one unit",
     header: "Against the band",
     width: 9,
-    value: (r) => r.result.savings.band,
+    value: (r) => BAND_POSITION_LABELS[r.result.savings.band],
   },
   {
     key: "coolingUnit",

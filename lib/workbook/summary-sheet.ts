@@ -1,6 +1,11 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
-import { FINANCE_TERMS, PAYBACK_STATUS_LABELS, SCENARIO_LABELS } from "@/lib/glossary";
+import {
+  BAND_POSITION_LABELS,
+  FINANCE_TERMS,
+  PAYBACK_STATUS_LABELS,
+  SCENARIO_LABELS,
+} from "@/lib/glossary";
 import {
   NOT_APPLICABLE,
   breakEvenValues,
@@ -229,13 +234,13 @@ function writeBandPosition(
     typeof share !== "number"
       ? NOT_APPLICABLE
       : share * 100 < input.band.lowPct
-        ? "below the band"
+        ? BAND_POSITION_LABELS.below
         : share * 100 > input.band.highPct
-          ? "above the band"
-          : "within the band";
+          ? BAND_POSITION_LABELS.above
+          : BAND_POSITION_LABELS.within;
   sheet.getCell(top + 3, 1).value = "Against the band claimed in the trade";
   sheet.getCell(top + 3, 2).value = {
-    formula: `IF(ISNUMBER(${shareCell}),IF(${shareCell}*100<${NAME.bandLow},"below the band",IF(${shareCell}*100>${NAME.bandHigh},"above the band","within the band")),"${NOT_APPLICABLE}")`,
+    formula: `IF(ISNUMBER(${shareCell}),IF(${shareCell}*100<${NAME.bandLow},"${BAND_POSITION_LABELS.below}",IF(${shareCell}*100>${NAME.bandHigh},"${BAND_POSITION_LABELS.above}","${BAND_POSITION_LABELS.within}")),"${NOT_APPLICABLE}")`,
     result: position,
   };
 }

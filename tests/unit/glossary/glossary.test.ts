@@ -8,6 +8,7 @@ import { QUOTE_STAGES } from "@/db/schema/quotes";
 import { ROLES } from "@/db/schema/users";
 import { SENSITIVITY_DRIVERS } from "@/lib/engine";
 import {
+  BAND_POSITION_LABELS,
   CASE_STAGE_LABELS,
   CHECKOUT_STATUS_LABELS,
   DECISION_CHOICES,
@@ -46,6 +47,7 @@ const FAMILIES: [string, Record<string, string>, readonly string[]][] = [
   ["sensitivity drivers", DRIVER_LABELS, SENSITIVITY_DRIVERS],
   ["loop statuses", LOOP_STATUS_LABELS, ["ok", "at-risk", "step-loss", "undersized"]],
   ["payback statuses", PAYBACK_STATUS_LABELS, ["reached", "beyond-horizon", "never"]],
+  ["band positions", BAND_POSITION_LABELS, ["below", "within", "above"]],
 ];
 
 describe("the glossary of user-facing terms", () => {

@@ -4,6 +4,7 @@ import fixtureCase from "@/tests/fixtures/engine-case.json";
 import { buildDossier } from "@/lib/dossier";
 import { caseInputSchema } from "@/lib/engine";
 import {
+  BAND_POSITION_LABELS,
   DOSSIER_SHEET,
   DRIVER_LABELS,
   FINANCE_TERMS,
@@ -41,7 +42,11 @@ function textCells(workbook: ExcelJS.Workbook): { where: string; text: string }[
   return out;
 }
 
-const RAW_STATUS_KEYS = [...Object.keys(LOOP_STATUS_LABELS), ...Object.keys(PAYBACK_STATUS_LABELS)];
+const RAW_STATUS_KEYS = [
+  ...Object.keys(LOOP_STATUS_LABELS),
+  ...Object.keys(PAYBACK_STATUS_LABELS),
+  ...Object.keys(BAND_POSITION_LABELS),
+];
 const scenarioTitles = SCENARIOS.map((s) => SCENARIO_LABELS[s]);
 
 describe("the proposal workbook speaks the glossary", () => {
