@@ -3,6 +3,7 @@ import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
 import type { ProposalSummary } from "@/db/queries/cases";
 import { Table, Td, Th } from "@/components/ui/table";
 import { formatMoney, formatPayback } from "@/lib/results/format";
+import { FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";
 
 // Frozen versions, newest first, each with its stage with the customer and what changed since the
 // one before; the version opens the proposal's page (sending, conversation, quote).
@@ -21,8 +22,8 @@ export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
           <Th>Stage</Th>
           <Th>Frozen (UTC)</Th>
           <Th>By</Th>
-          <Th className="text-right">Capex</Th>
-          <Th className="text-right">NPV (physics)</Th>
+          <Th className="text-right">{FINANCE_TERMS.upFrontCost}</Th>
+          <Th className="text-right">NPV ({SCENARIO_LABELS.physics.toLowerCase()})</Th>
           <Th className="text-right">Payback</Th>
           <Th>What changed</Th>
           <Th>Workbook</Th>

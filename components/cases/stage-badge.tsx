@@ -1,5 +1,6 @@
 import { Badge } from "@/components/ui/badge";
 import type { CaseStage } from "@/lib/cases/stages";
+import { CASE_STAGE_LABELS } from "@/lib/glossary";
 
 const TONES: Record<CaseStage, "neutral" | "flux" | "coil" | "success" | "danger"> = {
   draft: "neutral",
@@ -10,5 +11,9 @@ const TONES: Record<CaseStage, "neutral" | "flux" | "coil" | "success" | "danger
 };
 
 export function StageBadge({ stage }: { stage: CaseStage }) {
-  return <Badge tone={TONES[stage]}>{stage}</Badge>;
+  return (
+    <Badge tone={TONES[stage]} term="case-stage">
+      {CASE_STAGE_LABELS[stage]}
+    </Badge>
+  );
 }

@@ -3,7 +3,8 @@ import { Table, Td, Th } from "@/components/ui/table";
 import type { Dossier } from "@/lib/dossier";
 import { paybackTone } from "@/lib/results/dossier";
 import { formatMoney, formatNumber, formatPayback, formatTempC } from "@/lib/results/format";
-import { DRIVER_LABELS } from "@/lib/results/tornado";
+import { Term } from "@/components/ui/term";
+import { DRIVER_LABELS, SCENARIO_LABELS } from "@/lib/glossary";
 
 const TONE = {
   good: "bg-success-50 text-success-700",
@@ -59,7 +60,9 @@ export function UncertaintySummary({ dossier }: { dossier: Dossier }) {
             <tbody className="divide-y divide-steel-100">
               {(["tariff", "hoursPerYear", "loadTorque", "stepLossEvents"] as const).map((d) => (
                 <tr key={d}>
-                  <Td>{DRIVER_LABELS[d]}</Td>
+                  <Td>
+                    <Term kind="driver">{DRIVER_LABELS[d]}</Term>
+                  </Td>
                   <Td className="text-right tabular-nums">{signed(u.ranges[d].lowPct)}</Td>
                   <Td className="text-right tabular-nums">{signed(u.ranges[d].highPct)}</Td>
                 </tr>
@@ -92,10 +95,10 @@ export function PaybackGridPanel({ dossier }: { dossier: Dossier }) {
   return (
     <Panel title="Payback over tariff and running hours">
       <p className="mb-3 text-small text-steel-700">
-        Simple payback of the physics scenario with the tariff (rows) and every axis&apos;s running
-        hours (columns) changed together. Green: within the first third of the {horizon}-year
-        horizon; red: not within it. The framed cell is the case as proposed. Paybacks in{" "}
-        {inMonths ? "months" : "years"}.
+        Simple payback of the {SCENARIO_LABELS.physics.toLowerCase()} with the tariff (rows) and
+        every axis&apos;s running hours (columns) changed together. Green: within the first third of
+        the {horizon}-year horizon; red: not within it. The framed cell is the case as proposed.
+        Paybacks in {inMonths ? "months" : "years"}.
       </p>
       <Table caption="Simple payback by tariff and running hours">
         <thead>
@@ -167,7 +170,9 @@ export function SensitivitySwingsPanel({ dossier }: { dossier: Dossier }) {
         <tbody className="divide-y divide-steel-100">
           {drivers.map((driver) => (
             <tr key={driver}>
-              <Td className="font-bold">{DRIVER_LABELS[driver]}</Td>
+              <Td className="font-bold">
+                <Term kind="driver">{DRIVER_LABELS[driver]}</Term>
+              </Td>
               {dossier.sensitivity.map((s) => {
                 const row = s.rows.find((r) => r.driver === driver)!;
                 return [

@@ -6,6 +6,7 @@ import { CHART_COLORS, chartTheme } from "@/components/results/chart-theme";
 import { Table, Td, Th } from "@/components/ui/table";
 import type { MonthlyCashFlow } from "@/lib/dossier";
 import { formatMoney, formatMoneyCompact, moneyToChartNumber } from "@/lib/results/format";
+import { FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";
 
 type Series = { id: string; data: { x: number; y: number }[] };
 
@@ -32,7 +33,7 @@ export function MonthlyCashChart({
   return (
     <ChartPanel
       title="Cumulative cash, month by month"
-      description={`Physics scenario. Each year's flow is spread evenly over its twelve months; the tariff escalation steps once a year. ${payback === null ? "The cash does not turn positive within the horizon." : `The cash turns positive in month ${payback}.`} Amounts in ${currency}, not discounted.`}
+      description={`${SCENARIO_LABELS.physics}. Each year's flow is spread evenly over its twelve months; the tariff escalation steps once a year. ${payback === null ? "The cash does not turn positive within the horizon." : `The cash turns positive in month ${payback}.`} Amounts in ${currency}, not discounted.`}
       height={300}
       legend={
         <LineLegend
@@ -63,7 +64,7 @@ export function MonthlyCashChart({
           <tbody className="divide-y divide-steel-100">
             {monthly.rows.map((r) => (
               <tr key={r.month}>
-                <Td>{r.month === 0 ? "0 (capex)" : r.month}</Td>
+                <Td>{r.month === 0 ? FINANCE_TERMS.upFrontCostYear : r.month}</Td>
                 <Td>{r.year}</Td>
                 <Td className="text-right tabular-nums">{formatMoney(r.flow, currency)}</Td>
                 <Td className="text-right tabular-nums">{formatMoney(r.cumulative, currency)}</Td>

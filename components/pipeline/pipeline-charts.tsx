@@ -5,6 +5,7 @@ import { ChartPanel, SwatchLegend } from "@/components/results/chart-panel";
 import { CHART_COLORS, chartTheme } from "@/components/results/chart-theme";
 import { Table, Td, Th } from "@/components/ui/table";
 import { formatMoney, formatMoneyCompact, moneyToChartNumber } from "@/lib/results/format";
+import { FINANCE_TERMS } from "@/lib/glossary";
 
 export type ValueRow = {
   key: string;
@@ -16,7 +17,7 @@ export type ValueRow = {
 
 // The weighted value is part of the value: a lighter shade of the same blue-green (flux-300).
 const WEIGHTED_COLOR = "#78bdb8";
-const VALUE = "Value (capex)";
+const VALUE = FINANCE_TERMS.pipelineValue;
 const WEIGHTED = "Weighted value";
 
 function ValueBars({
@@ -131,7 +132,7 @@ export function ValueByStageChart({ rows, currency }: { rows: ValueRow[]; curren
   return (
     <ChartPanel
       title="Value by stage"
-      description={`The quotes' capex in each stage, and the same weighted by the chance of closing from that stage. Amounts in ${currency}.`}
+      description={`The quotes' up-front cost in each stage, and the same weighted by the chance of closing from that stage. Amounts in ${currency}.`}
       legend={legend}
       table={
         <ValueTable rows={rows} currency={currency} first="Stage" caption="Quote value by stage" />
@@ -152,7 +153,7 @@ export function ValueByMonthChart({ rows, currency }: { rows: ValueRow[]; curren
   return (
     <ChartPanel
       title="Value by expected close month"
-      description={`When the quotes are expected to close, with their capex and weighted value per month. Amounts in ${currency}.`}
+      description={`When the quotes are expected to close, with their up-front cost and weighted value per month. Amounts in ${currency}.`}
       legend={legend}
       table={
         <ValueTable

@@ -2,6 +2,7 @@
 
 import { useState, useTransition } from "react";
 import { Badge } from "@/components/ui/badge";
+import { DECISION_LABELS } from "@/lib/glossary";
 import type { ActionResult } from "@/server/actions/result";
 import type { MailDelivery } from "@/server/mail/delivery";
 import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
@@ -15,11 +16,7 @@ export type ThreadComment = {
   authorRole: "engineer" | "manager" | "reviewer" | "admin";
 };
 
-const DECISION_BADGE = {
-  accept: { tone: "success", text: "Accepted" },
-  changes: { tone: "caution", text: "Asked for changes" },
-  decline: { tone: "danger", text: "Declined" },
-} as const;
+const DECISION_TONE = { accept: "success", changes: "caution", decline: "danger" } as const;
 
 const when = (iso: string) => `${iso.replace("T", " ").slice(0, 16)} UTC`;
 
@@ -74,8 +71,8 @@ export function CommentThread({
                   <span className="text-steel-600">{customer ? "customer" : "supplier"}</span>
                   <span className="text-steel-600">· {when(c.createdAt)}</span>
                   {c.decision ? (
-                    <Badge tone={DECISION_BADGE[c.decision].tone}>
-                      {DECISION_BADGE[c.decision].text}
+                    <Badge tone={DECISION_TONE[c.decision]} term="decision">
+                      {DECISION_LABELS[c.decision]}
                     </Badge>
                   ) : null}
                 </p>

@@ -7,6 +7,7 @@ import { Field, Input, Select } from "@/components/ui/field";
 import type { QuoteStage } from "@/lib/pipeline/stages";
 import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
 import { QuoteStageOptions } from "@/components/proposals/quote-stage-options";
+import { ROLE_LABELS, type RoleKey } from "@/lib/glossary";
 
 /** A manager's controls on a quote: stage, owner, expected close date. Every change is audited. */
 export function QuoteManagerForm({
@@ -20,7 +21,7 @@ export function QuoteManagerForm({
   stage: QuoteStage;
   ownerId: number;
   expectedCloseOn: string;
-  owners: { id: number; name: string; role: string }[];
+  owners: { id: number; name: string; role: RoleKey }[];
 }) {
   const [values, setValues] = useState({ stage, ownerId: String(ownerId), expectedCloseOn });
   const [message, setMessage] = useState<FormMessage>(null);
@@ -68,7 +69,7 @@ export function QuoteManagerForm({
           >
             {owners.map((o) => (
               <option key={o.id} value={o.id}>
-                {o.name} ({o.role})
+                {o.name} ({ROLE_LABELS[o.role]})
               </option>
             ))}
           </Select>

@@ -11,5 +11,9 @@ const TONES: Record<QuoteStage, "neutral" | "flux" | "coil" | "success" | "cauti
 };
 
 export function QuoteStageBadge({ stage }: { stage: QuoteStage }) {
-  return <Badge tone={TONES[stage]}>{STAGE_LABELS[stage]}</Badge>;
+  return (
+    <Badge tone={TONES[stage]} term="quote-stage">
+      {STAGE_LABELS[stage]}
+    </Badge>
+  );
 }

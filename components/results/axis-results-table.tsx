@@ -139,7 +139,9 @@ function LoopStatus({ status }: { status: LoopStatusView }) {
   return (
     <>
       <span className="whitespace-nowrap">
-        <Badge tone={status.tone}>{status.words}</Badge>
+        <Badge tone={status.tone} term="loop-status">
+          {status.words}
+        </Badge>
       </span>
       <span className="mt-0.5 block whitespace-nowrap text-caption text-steel-600">
         {status.detail}

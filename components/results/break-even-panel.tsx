@@ -1,6 +1,7 @@
 import { Panel } from "@/components/ui/panel";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { breakEvenLines, paybackSentence } from "@/lib/results/engine-v2";
+import { SCENARIO_LABELS } from "@/lib/glossary";
 
 /**
  * When the retrofit pays back and how far the two most uncertain inputs may fall before it
@@ -20,7 +21,9 @@ export function BreakEvenPanel({
   const horizonYears = physics.cashFlows.length - 1;
   return (
     <Panel title="Payback and break-even">
-      <p className="text-small text-steel-700">Modelled physics, the basis of the proposal.</p>
+      <p className="text-small text-steel-700">
+        {SCENARIO_LABELS.physics}, the basis of the proposal.
+      </p>
       <dl className="mt-3 divide-y divide-steel-100">
         <div className="grid gap-1 py-3 sm:grid-cols-[12rem_1fr]">
           <dt className="font-bold text-steel-800">Payback</dt>

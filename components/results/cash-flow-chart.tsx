@@ -9,6 +9,8 @@ import { cashFlowSeries, type CashFlowSeries, type ScenarioKey } from "@/lib/res
 import { ChartPanel, isNarrow, LineLegend } from "./chart-panel";
 import { CHART_COLORS, chartTheme } from "./chart-theme";
 import { styledLinesLayer, type LineStyle } from "./styled-lines";
+import { FINANCE_TERMS } from "@/lib/glossary";
+import { Term } from "@/components/ui/term";
 
 type FlowSeries = { id: string; data: { x: number; y: number }[] };
 
@@ -18,7 +20,7 @@ const STYLE_BY_KEY: Record<ScenarioKey, LineStyle> = {
   bandHigh: { color: CHART_COLORS.bandHigh, dash: "2 4" },
 };
 
-/** Cumulative cash flow of the three scenarios, from the capex at year 0 to the horizon. */
+/** Cumulative cash flow of the three scenarios, from the up-front cost at year 0 to the horizon. */
 export function CashFlowChart({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
   const currency = result.currency;
   const series = useMemo(() => cashFlowSeries(result, input), [result, input]);
@@ -41,7 +43,7 @@ export function CashFlowChart({ result, input }: { result: CaseResult; input: Pa
   return (
     <ChartPanel
       title="Cumulative cash flow"
-      description={`The retrofit's cash position year by year: the capex at year 0, then each year's savings less the service cost. Where a line crosses zero the retrofit has paid for itself. Amounts in ${currency}, not discounted.`}
+      description={`The retrofit's cash position year by year: the up-front cost at year 0, then each year's savings less the service cost. Where a line crosses zero the retrofit has paid for itself. Amounts in ${currency}, not discounted.`}
       height={320}
       legend={
         <LineLegend
@@ -122,7 +124,7 @@ function CashFlowTable({ series, currency }: { series: CashFlowSeries[]; currenc
           <Th rowSpan={2}>Year</Th>
           {series.map((s) => (
             <Th key={s.key} colSpan={2} className="text-center">
-              {s.label}
+              <Term kind="scenario">{s.label}</Term>
             </Th>
           ))}
         </tr>
@@ -140,7 +142,7 @@ function CashFlowTable({ series, currency }: { series: CashFlowSeries[]; currenc
       <tbody className="divide-y divide-steel-100">
         {years.map((year) => (
           <tr key={year}>
-            <Td>{year === 0 ? "0 (capex)" : year}</Td>
+            <Td>{year === 0 ? FINANCE_TERMS.upFrontCostYear : year}</Td>
             {series.map((s) => [
               <Td key={`${s.key}-flow`} className="text-right tabular-nums">
                 {formatMoney(s.points[year].flow, currency)}

@@ -1,4 +1,6 @@
 import { Badge } from "@/components/ui/badge";
+import { Term } from "@/components/ui/term";
+import { BAND_POSITION_LABELS, FINANCE_TERMS, UP_FRONT_COST_BREAKDOWN } from "@/lib/glossary";
 import type { CaseResult, ParsedCase, Scenario } from "@/lib/engine";
 import { paybackShort } from "@/lib/results/engine-v2";
 import {
@@ -12,7 +14,6 @@ import {
 import { scenarioHeadlines, type ScenarioHeadline } from "@/lib/results/scenarios";
 
 const BAND_TONE = { below: "caution", within: "success", above: "flux" } as const;
-const BAND_WORDS = { below: "Below band", within: "Within band", above: "Above band" } as const;
 
 /** The business case at a glance: each scenario's figures in one column, side by side. */
 export function HeadlineCards({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
@@ -34,6 +35,9 @@ export function HeadlineCards({ result, input }: { result: CaseResult; input: Pa
           />
         ))}
       </div>
+      <p className="mt-2 text-small text-steel-700">
+        {FINANCE_TERMS.upFrontCost} is the same in every scenario: {UP_FRONT_COST_BREAKDOWN}.
+      </p>
     </section>
   );
 }
@@ -59,7 +63,7 @@ function ScenarioCard({
     >
       <header className="flex flex-wrap items-center justify-between gap-2">
         <h3 id={titleId} className="text-lead">
-          {h.label}
+          <Term kind="scenario">{h.label}</Term>
         </h3>
         {primary ? <Badge tone="flux">Basis of the proposal</Badge> : <Badge>For comparison</Badge>}
       </header>
@@ -72,7 +76,7 @@ function ScenarioCard({
         {formatMoney(h.npv, currency)}
       </p>
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
-        <Row term="Capex" value={formatMoney(h.capex, currency)} />
+        <Row term={FINANCE_TERMS.upFrontCost} value={formatMoney(h.capex, currency)} />
         <Row term="Payback" value={paybackShort(scenario, horizonYears)} />
         <Row
           term="Discounted payback"
@@ -87,7 +91,11 @@ function ScenarioCard({
         />
       </dl>
       <div className="mt-4 border-t border-steel-100 pt-3">
-        {h.band ? <Badge tone={BAND_TONE[h.band]}>{BAND_WORDS[h.band]}</Badge> : null}
+        {h.band ? (
+          <Badge tone={BAND_TONE[h.band]} term="band-position">
+            {BAND_POSITION_LABELS[h.band]}
+          </Badge>
+        ) : null}
         <p className="mt-1 text-small text-steel-700">{h.bandText}</p>
       </div>
     </article>

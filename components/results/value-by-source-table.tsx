@@ -3,6 +3,7 @@ import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult } from "@/lib/engine";
 import { valueBySource } from "@/lib/results/engine-v2";
 import { formatMoney } from "@/lib/results/format";
+import { SCENARIO_LABELS } from "@/lib/glossary";
 
 /**
  * Each year's flow of the physics scenario split by where the money comes from, so that finance
@@ -16,11 +17,13 @@ export function ValueBySourceTable({ result }: { result: CaseResult }) {
   return (
     <Panel title="Value by source, year by year">
       <p className="mb-3 text-small text-steel-700">
-        Modelled physics. Energy and cooling follow the tariff and its escalation; the other sources
-        follow inflation. Tax is what the flows owe after depreciation (a negative amount is a
-        shield); sources that are zero in every year are left out.
+        {SCENARIO_LABELS.physics}. Energy and cooling follow the tariff and its escalation; the
+        other sources follow inflation. Tax is what the flows owe after depreciation (a negative
+        amount is a shield); sources that are zero in every year are left out.
       </p>
-      <Table caption="Value of the physics scenario by source and year, with the yearly cash flow they add up to">
+      <Table
+        caption={`Value of the ${SCENARIO_LABELS.physics.toLowerCase()} by source and year, with the yearly cash flow they add up to`}
+      >
         <thead>
           <tr>
             <Th>Source</Th>

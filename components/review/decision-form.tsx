@@ -4,22 +4,14 @@ import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { decideAction } from "@/server/review/actions";
 import { SubmitRow, type FormMessage } from "@/components/ui/submit-row";
+import { DECISION_CHOICES, type DecisionKey } from "@/lib/glossary";
 
-const CHOICES = [
-  {
-    value: "accept",
-    label: "Accept the proposal",
-    hint: "Your supplier will plan the retrofit with you.",
-  },
-  {
-    value: "changes",
-    label: "Ask for changes",
-    hint: "Say what should change; a new version will follow.",
-  },
-  { value: "decline", label: "Decline", hint: "Nothing further happens with this version." },
-] as const;
+const CHOICES = (["accept", "changes", "decline"] as const).map((value) => ({
+  value,
+  ...DECISION_CHOICES[value],
+}));
 
-type Decision = (typeof CHOICES)[number]["value"];
+type Decision = DecisionKey;
 
 /** The reviewer's decision with a comment; the supplier's engineer is told by e-mail. */
 export function DecisionForm({ proposalId }: { proposalId: number }) {

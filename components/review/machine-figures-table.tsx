@@ -3,6 +3,7 @@ import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { formatMoney, formatNumber } from "@/lib/results/format";
 import { machineFigures } from "@/lib/results/machine-figures";
+import { FINANCE_TERMS } from "@/lib/glossary";
 
 /** What each machine's retrofit costs and saves, all units of its axes counted. */
 export function MachineFiguresTable({
@@ -21,7 +22,9 @@ export function MachineFiguresTable({
           <tr>
             <Th>Machine</Th>
             <Th className="text-right">Axes</Th>
-            <Th className="text-right">Capex [{currency}]</Th>
+            <Th className="text-right">
+              {FINANCE_TERMS.upFrontCost} [{currency}]
+            </Th>
             <Th className="text-right">Energy today [kWh/yr]</Th>
             <Th className="text-right">Energy closed loop [kWh/yr]</Th>
             <Th className="text-right">Saved [kWh/yr]</Th>

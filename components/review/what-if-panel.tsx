@@ -11,6 +11,7 @@ import { useWhatIf, WhatIfError } from "@/lib/hooks/use-what-if";
 import { formatIrr, formatMoney, formatMoneyChange, formatPayback } from "@/lib/results/format";
 import { SCENARIO_KEYS, scenarioLabel } from "@/lib/results/scenarios";
 import Decimal from "decimal.js";
+import { Term } from "@/components/ui/term";
 
 export type SandboxFinance = {
   tariffPerKWh: string;
@@ -166,7 +167,7 @@ export function WhatIfPanel({
                 >
                   {i === 0 ? (
                     <Td rowSpan={rows.length} className="align-top font-bold">
-                      {scenarioLabel(key, band)}
+                      <Term kind="scenario">{scenarioLabel(key, band)}</Term>
                       {key === "physics" ? (
                         <span className="mt-1 block">
                           <Badge tone="flux">Basis of the proposal</Badge>

@@ -1,4 +1,5 @@
 import type { ReactNode } from "react";
+import type { TermKind } from "@/lib/glossary";
 
 type Tone = "neutral" | "flux" | "coil" | "success" | "caution" | "danger";
 
@@ -11,9 +12,19 @@ const tones: Record<Tone, string> = {
   danger: "bg-danger-50 text-danger-700",
 };
 
-export function Badge({ tone = "neutral", children }: { tone?: Tone; children: ReactNode }) {
+/** A coloured label; `term` marks a glossary word (its kind) for the glossary's page test. */
+export function Badge({
+  tone = "neutral",
+  term,
+  children,
+}: {
+  tone?: Tone;
+  term?: TermKind;
+  children: ReactNode;
+}) {
   return (
     <span
+      data-term={term}
       className={`inline-flex items-center rounded-full px-2 py-0.5 text-caption font-bold ${tones[tone]}`}
     >
       {children}

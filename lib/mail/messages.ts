@@ -1,3 +1,4 @@
+import { DECISION_LABELS, FINANCE_TERMS } from "../glossary";
 import { formatMoney, formatPayback } from "../results/format";
 import { composeMail, type MailBlock, type MailContent } from "./layout";
 
@@ -18,8 +19,8 @@ function factRows(p: ProposalFacts): [string, string][] {
   return [
     ["Proposal", `${p.caseName}, version ${p.version}`],
     ["For", p.accountName],
-    ["Investment (capex)", formatMoney(p.capex, p.currency)],
-    ["Payback, modelled physics", formatPayback(p.paybackYears, p.horizonYears)],
+    [FINANCE_TERMS.upFrontCost, formatMoney(p.capex, p.currency)],
+    [FINANCE_TERMS.estimatedPayback, formatPayback(p.paybackYears, p.horizonYears)],
   ];
 }
 
@@ -114,7 +115,7 @@ export function decisionMail(args: {
       ...(args.comment.trim()
         ? [{ kind: "quote" as const, text: args.comment.trim() }]
         : [{ kind: "note" as const, text: "No comment was given." }]),
-      { kind: "facts", rows: factRows(p) },
+      { kind: "facts", rows: [["Decision", DECISION_LABELS[args.decision]], ...factRows(p)] },
       { kind: "button", label: "Open the proposal", href: args.proposalUrl },
     ],
   );

@@ -311,7 +311,7 @@ export const METHOD_SECTIONS: MethodSection[] = [
       {
         kind: "list",
         items: [
-          "Investment (capex): for every axis unit, the kit price after discount, the installation hours at the labour rate and the commissioning cost; plus the downtime hours of each machine at the downtime rate, and the project's one-time cost.",
+          "Up-front cost (capex in the formulas): for every axis unit, the kit price after discount, the installation hours at the labour rate and the commissioning cost; plus the downtime hours of each machine at the downtime rate, and the project's one-time cost.",
           "Cost of one lost-step event: entered directly, or built from the minutes of downtime, the parts scrapped and the labour hours of a restart.",
           "Avoided events are valued only on axes whose kit is big enough and that really close the loop.",
           "Added output: a machine's throughput gain is capped by the least speed headroom of its axes, and is worth the gain times the margin of one hour of output times its running hours.",
@@ -340,7 +340,7 @@ export const METHOD_SECTIONS: MethodSection[] = [
       },
       {
         kind: "p",
-        text: "The discounted payback does the same with discounted flows. A payback is within the horizon, after the horizon (not reached yet, but the last year still adds money), or never (the last year adds nothing). Three scenarios are computed: the modelled physics, and the low and high ends of the claimed band, which assume that fraction of today's drive and cooling energy is saved.",
+        text: "The discounted payback does the same with discounted flows. A payback is within the horizon, after the horizon (not reached yet, but the last year still adds money), or never (the last year adds nothing). Three scenarios are computed: the engineering estimate (this model's own energy saving), and the low and high trade claims, the two ends of the claimed band, which assume that fraction of today's drive and cooling energy is saved.",
       },
       {
         kind: "p",

@@ -1,3 +1,5 @@
+import { QUOTE_STAGE_LABELS } from "../glossary";
+
 // Where a proposal stands with the customer, in Loopshift's own words (labels below).
 // "replaced" is an open version that a newer frozen version of the same case took over from.
 export const QUOTE_STAGES = [
@@ -10,15 +12,8 @@ export const QUOTE_STAGES = [
 ] as const;
 export type QuoteStage = (typeof QUOTE_STAGES)[number];
 
-// The stages of a quote in Loopshift's words, for badges, filters and charts.
-export const STAGE_LABELS: Record<QuoteStage, string> = {
-  ready: "Ready to send",
-  sent: "With the customer",
-  changes: "Changes asked",
-  accepted: "Accepted",
-  declined: "Declined",
-  replaced: "Replaced by a newer version",
-};
+// The stages of a quote in Loopshift's words, for badges, filters and charts (lib/glossary).
+export const STAGE_LABELS: Record<QuoteStage, string> = QUOTE_STAGE_LABELS;
 
 // Stages still in play: their value is the open pipeline.
 export const OPEN_STAGES: readonly QuoteStage[] = ["ready", "sent", "changes"];

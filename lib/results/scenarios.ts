@@ -1,23 +1,15 @@
 import Decimal from "decimal.js";
 import type { CaseResult, ParsedCase, Scenario } from "@/lib/engine";
 import { Money } from "@/lib/engine/money";
+import { scenarioLabel } from "@/lib/glossary";
 import { bandPosition, bandPositionText, type BandPosition } from "./band";
 import { DEFAULT_BAND } from "./case-view";
 
 export const SCENARIO_KEYS = ["physics", "bandLow", "bandHigh"] as const;
 export type ScenarioKey = (typeof SCENARIO_KEYS)[number];
 
-/** Scenario names in words, with the band fraction they assume. */
-export function scenarioLabel(key: ScenarioKey, band: { lowPct: number; highPct: number }): string {
-  switch (key) {
-    case "physics":
-      return "Modelled physics";
-    case "bandLow":
-      return `Low claim (${band.lowPct} % saved)`;
-    case "bandHigh":
-      return `High claim (${band.highPct} % saved)`;
-  }
-}
+// Scenario names in words, with the band fraction they assume, come from the glossary.
+export { scenarioLabel };
 
 export interface CashFlowPoint {
   year: number;

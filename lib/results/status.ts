@@ -1,4 +1,5 @@
 import type { LoopResult } from "@/lib/engine";
+import { LOOP_STATUS_LABELS, type LoopStatusKey } from "@/lib/glossary";
 import { formatNumber } from "./format";
 
 /** Badge tones of components/ui/badge, named here so that the words and the colour agree. */
@@ -11,16 +12,20 @@ export interface LoopStatusView {
   detail: string;
 }
 
-const STATUS: Record<string, { words: string; tone: StatusTone }> = {
-  ok: { words: "Margin kept", tone: "success" },
-  "at-risk": { words: "Thin margin", tone: "caution" },
-  "step-loss": { words: "Loses steps", tone: "danger" },
-  undersized: { words: "Kit too small", tone: "danger" },
+const TONE: Record<LoopStatusKey, StatusTone> = {
+  ok: "success",
+  "at-risk": "caution",
+  "step-loss": "danger",
+  undersized: "danger",
 };
+
+const isKnown = (status: string): status is LoopStatusKey => status in TONE;
 
 /** A loop's status in words and tone (docs/model.md (Torque margin and speed)), never by colour alone. */
 export function loopStatus(loop: LoopResult, requiredPct: number | null): LoopStatusView {
-  const known = STATUS[loop.status] ?? { words: loop.status, tone: "neutral" as const };
+  const known = isKnown(loop.status)
+    ? { words: LOOP_STATUS_LABELS[loop.status], tone: TONE[loop.status] }
+    : { words: loop.status, tone: "neutral" as const };
   const margin =
     loop.marginPct === null
       ? "no torque at this speed"

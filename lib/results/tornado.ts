@@ -1,18 +1,9 @@
 import type { CaseResult, ParsedCase, SensitivityDriver } from "@/lib/engine";
 import { Money } from "@/lib/engine/money";
+import { DRIVER_LABELS } from "@/lib/glossary";
 
-/** The sensitivity drivers of docs/model.md (The business case) in words. */
-export const DRIVER_LABELS: Record<SensitivityDriver, string> = {
-  tariff: "Electricity tariff",
-  hoursPerYear: "Running hours per year",
-  loadTorque: "Load torque on every axis",
-  kitPrice: "Kit price",
-  laborRate: "Labour rate",
-  stepLossEvents: "Lost-step events per year",
-  discountRate: "Discount rate",
-  throughputGain: "Throughput gain of every machine",
-  idleCurrent: "Idle current at standstill",
-};
+// The sensitivity drivers in words come from the glossary.
+export { DRIVER_LABELS };
 
 export interface TornadoRow {
   driver: SensitivityDriver;

@@ -1,5 +1,6 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { FINANCE_TERMS } from "@/lib/glossary";
 import {
   FORMATS,
   currencyFormat,
@@ -91,7 +92,7 @@ function entries(input: ParsedCase): Entry[] {
     },
     {
       part: "Finance",
-      label: "Labor rate",
+      label: FINANCE_TERMS.labourRate,
       path: "finance.laborRatePerHour",
       value: money(finance.laborRatePerHour),
       unit: `${currency}/h`,
@@ -178,7 +179,7 @@ function entries(input: ParsedCase): Entry[] {
     },
     {
       part: "Finance",
-      label: "Depreciation period (straight line over the whole capex)",
+      label: `Depreciation period (straight line over the whole ${FINANCE_TERMS.upFrontCost.toLowerCase()})`,
       path: "finance.depreciationYears",
       value: finance.depreciationYears,
       unit: "years (1 to 30)",

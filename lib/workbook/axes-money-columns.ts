@@ -1,5 +1,6 @@
 import { avoidsEvents, eventCostValue, money, type AxisColumn } from "./axis-column";
 import { FORMATS } from "./formats";
+import { FINANCE_TERMS } from "@/lib/glossary";
 import { NAME } from "./layout";
 
 /** Each axis's money and totals, as formulas over its own row, that the Cash flow sheet sums. */
@@ -8,7 +9,7 @@ export const AXIS_MONEY_COLUMNS: readonly AxisColumn[] = [
   {
     key: "capexUnit",
     group: "Money and totals (formulas)",
-    header: "Capex, one unit",
+    header: FINANCE_TERMS.upFrontCostOneUnit,
     width: 13,
     format: "currency",
     value: (r) => ({
@@ -19,7 +20,7 @@ export const AXIS_MONEY_COLUMNS: readonly AxisColumn[] = [
   {
     key: "capexTotal",
     group: "Money and totals (formulas)",
-    header: "Capex, all units",
+    header: FINANCE_TERMS.upFrontCostAllUnits,
     width: 13,
     format: "currency",
     value: (r) => ({

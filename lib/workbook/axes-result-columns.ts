@@ -1,5 +1,6 @@
 import { avoidsEvents, orNull, type AxisColumn } from "./axis-column";
 import { FORMATS } from "./formats";
+import { BAND_POSITION_LABELS, LOOP_STATUS_LABELS } from "@/lib/glossary";
 import { safeText } from "./safe-text";
 import { axisWarningText } from "./warning-text";
 
@@ -10,7 +11,7 @@ export const AXIS_RESULT_COLUMNS: readonly AxisColumn[] = [
     group: "Open loop today",
     header: "Status",
     width: 10,
-    value: (r) => r.result.openLoop.status,
+    value: (r) => LOOP_STATUS_LABELS[r.result.openLoop.status],
   },
   {
     key: "olMargin",
@@ -98,7 +99,7 @@ export const AXIS_RESULT_COLUMNS: readonly AxisColumn[] = [
     group: "Closed loop",
     header: "Status",
     width: 11,
-    value: (r) => r.result.closedLoop.status,
+    value: (r) => LOOP_STATUS_LABELS[r.result.closedLoop.status],
   },
   {
     key: "clMargin",
@@ -218,7 +219,7 @@ export const AXIS_RESULT_COLUMNS: readonly AxisColumn[] = [
     group: "Gains, one unit",
     header: "Against the band",
     width: 9,
-    value: (r) => r.result.savings.band,
+    value: (r) => BAND_POSITION_LABELS[r.result.savings.band],
   },
   {
     key: "coolingUnit",

@@ -1,6 +1,7 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { VALUE_SOURCES, type ValueSource } from "@/lib/engine";
+import { FINANCE_TERMS, PAYBACK_STATUS_LABELS, SCENARIO_LABELS } from "@/lib/glossary";
 import {
   BEYOND_HORIZON,
   NOT_APPLICABLE,
@@ -46,6 +47,9 @@ import {
   type MachineRanges,
   type ScenarioKey,
 } from "./layout";
+
+/** The engine's own scenario, as a label suffix: "Drive energy saved, engineering estimate". */
+const ESTIMATE = SCENARIO_LABELS.physics.toLowerCase();
 
 const GROUP_HEADERS = [
   "Cash flow",
@@ -193,7 +197,7 @@ const RESULT_LABELS: Record<keyof typeof results, string> = {
   discountedPayback: "Payback, discounted (years)",
   roi: "ROI over the horizon (%)",
   irrGuess: "IRR search starts at (lower bound of the IRR)",
-  paybackStatus: "Payback status (reached, beyond-horizon, never)",
+  paybackStatus: `Payback status (${Object.values(PAYBACK_STATUS_LABELS).join(", ")})`,
 };
 
 function writeResults(
@@ -300,8 +304,8 @@ function writeResults(
     put(
       results.paybackStatus,
       scenarioName("PaybackStatus", scenario),
-      `IF(ISNUMBER(${flow}${results.payback}),"reached",IF(INDEX(${flows},${NAME.horizon}+1)>0,"beyond-horizon","never"))`,
-      paybackStatusValue(s),
+      `IF(ISNUMBER(${flow}${results.payback}),"${PAYBACK_STATUS_LABELS.reached}",IF(INDEX(${flows},${NAME.horizon}+1)>0,"${PAYBACK_STATUS_LABELS["beyond-horizon"]}","${PAYBACK_STATUS_LABELS.never}"))`,
+      PAYBACK_STATUS_LABELS[paybackStatusValue(s)],
       "@",
     );
     // docs/model.md (The business case): ROI % = 100·(Σ_(t≥1) CF_t + CF_0)/Capex.
@@ -316,10 +320,10 @@ function writeResults(
 }
 
 const BREAK_EVEN_LABELS: Record<keyof typeof CASH_FLOW.breakEven, string> = {
-  tariffSlope: "NPV change per 1 of tariff (per kWh), physics",
-  tariff: "Break-even tariff (per kWh): NPV = 0, physics",
-  stepLossSlope: "NPV change per 1 of the step-loss factor, physics",
-  stepLossFactor: "Break-even step-loss factor (× every axis's events): NPV = 0, physics",
+  tariffSlope: `NPV change per 1 of tariff (per kWh), ${ESTIMATE}`,
+  tariff: `Break-even tariff (per kWh): NPV = 0, ${ESTIMATE}`,
+  stepLossSlope: `NPV change per 1 of the step-loss factor, ${ESTIMATE}`,
+  stepLossFactor: `Break-even step-loss factor (× every axis's events): NPV = 0, ${ESTIMATE}`,
 };
 
 /**
@@ -408,16 +412,16 @@ function writeTerms(
   }[] = [
     {
       row: terms.capex,
-      label: "Capex",
+      label: FINANCE_TERMS.upFrontCost,
       name: NAME.capex,
       formula: `${sumOf(axes.capexTotal)}+${downtime}+${NAME.projectCost}`,
       value: Number(totals.capex),
       format: currency,
-      how: "Σ axes' capex (Axes) + Σ machines' downtime hours × cost per hour + one-time project cost",
+      how: "Σ axes' up-front cost (Axes) + Σ machines' downtime hours × cost per hour + one-time project cost",
     },
     {
       row: terms.energySaved,
-      label: "Drive energy saved, physics (kWh/yr)",
+      label: `Drive energy saved, ${ESTIMATE} (kWh/yr)`,
       name: NAME.energySaved,
       formula: sumOf(axes.energySavedTotal),
       value: totals.energySavedKWhPerYear,
@@ -426,7 +430,7 @@ function writeTerms(
     },
     {
       row: terms.coolingSaved,
-      label: "Cooling energy saved, physics (kWh/yr)",
+      label: `Cooling energy saved, ${ESTIMATE} (kWh/yr)`,
       name: NAME.coolingSaved,
       formula: sumOf(axes.coolingSavedTotal),
       value: totals.coolingSavedKWhPerYear,

@@ -1,5 +1,6 @@
 import type ExcelJS from "exceljs";
 import { VALUE_SOURCES, type ValueSource } from "@/lib/engine";
+import { SCENARIO_LABELS, SHEET } from "@/lib/glossary";
 
 /**
  * Where each sheet puts what the others read. The Cash flow sheet has a fixed shape (31 year
@@ -7,13 +8,8 @@ import { VALUE_SOURCES, type ValueSource } from "@/lib/engine";
  * the Axes and Assumptions tables grow with the case and report their ranges when written.
  */
 
-export const SHEET = {
-  summary: "Summary",
-  axes: "Axes",
-  cashFlow: "Cash flow",
-  assumptions: "Assumptions",
-  cautions: "Cautions",
-} as const;
+// The sheet names are glossary terms (lib/glossary/sheets.ts).
+export { SHEET };
 
 /** Header rows kept in view (and printed on every page) and leading columns kept in view, per sheet. */
 export const FROZEN: Record<(typeof SHEET)[keyof typeof SHEET], { rows: number; columns: number }> =
@@ -153,11 +149,11 @@ export const SCENARIO_NAME: Record<ScenarioKey, string> = {
   bandHigh: "BandHigh",
 };
 
-export const SCENARIO_TITLE: Record<ScenarioKey, string> = {
-  physics: "Physics (the engine's energy model)",
-  bandLow: "Band low (trade claim, low end)",
-  bandHigh: "Band high (trade claim, high end)",
-};
+/**
+ * Scenario titles are the glossary's names, as on screen and in the e-mails. The band each
+ * trade-claim scenario assumes is an input on the Assumptions sheet, so a title does not repeat it.
+ */
+export const SCENARIO_TITLE: Record<ScenarioKey, string> = SCENARIO_LABELS;
 
 /**
  * Workbook-level defined names. The formulas of the Cash flow and Summary sheets read the
@@ -177,7 +173,7 @@ export const NAME = {
   escalation: "TariffEscalation_Pct",
   discountRate: "DiscountRate_Pct",
   horizon: "Horizon_Years",
-  laborRate: "LaborRate_PerHour",
+  laborRate: "LabourRate_PerHour",
   downtimeCost: "DowntimeCost_PerHour",
   projectCost: "ProjectOneTimeCost",
   serviceCost: "AnnualServiceCost",

@@ -1,6 +1,12 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import {
+  BAND_POSITION_LABELS,
+  FINANCE_TERMS,
+  PAYBACK_STATUS_LABELS,
+  SCENARIO_LABELS,
+} from "@/lib/glossary";
+import {
   NOT_APPLICABLE,
   breakEvenValues,
   irrValue,
@@ -23,6 +29,9 @@ import {
 } from "./layout";
 import { safeText } from "./safe-text";
 import type { WorkbookMeta } from "./types";
+
+/** The engine's own scenario, as a label suffix: "Drive energy saved, engineering estimate". */
+const ESTIMATE = SCENARIO_LABELS.physics.toLowerCase();
 
 export const SUMMARY_TABLE_HEADER_ROW = 11;
 
@@ -83,7 +92,7 @@ export function writeSummarySheet(
 
   const figures: Figure[] = [
     {
-      label: "Capex",
+      label: FINANCE_TERMS.upFrontCost,
       unit: input.currency,
       format: currency,
       formula: () => NAME.capex,
@@ -140,10 +149,10 @@ export function writeSummarySheet(
     },
     {
       label: "Payback status",
-      unit: "reached, beyond-horizon or never",
+      unit: Object.values(PAYBACK_STATUS_LABELS).join(", "),
       format: "@",
       formula: (s) => scenarioName("PaybackStatus", s),
-      value: (s) => paybackStatusValue(scenarios[s]),
+      value: (s) => PAYBACK_STATUS_LABELS[paybackStatusValue(scenarios[s])],
     },
     {
       label: "ROI over the horizon",
@@ -173,13 +182,13 @@ export function writeSummarySheet(
   const breakEven = breakEvenValues(input, result);
   const breakEvenRows: [string, string, number | string, string][] = [
     [
-      "Break-even tariff, physics (NPV = 0)",
+      `Break-even tariff, ${ESTIMATE} (NPV = 0)`,
       NAME.breakEvenTariff,
       breakEven.tariff,
       tariffFormat(input.currency),
     ],
     [
-      "Break-even step-loss factor, physics (× every axis's events)",
+      `Break-even step-loss factor, ${ESTIMATE} (× every axis's events)`,
       NAME.breakEvenStepLoss,
       breakEven.stepLossFactor,
       FORMATS.ratio,
@@ -206,7 +215,7 @@ function writeBandPosition(
   const share = today > 0 ? saved / today : NOT_APPLICABLE;
   const rows: [string, string, number | string, string][] = [
     ["Drive energy today, open loop (kWh/yr)", NAME.energyOpenLoop, today, FORMATS.kWh],
-    ["Drive energy saved, physics (kWh/yr)", NAME.energySaved, saved, FORMATS.kWh],
+    [`Drive energy saved, ${ESTIMATE} (kWh/yr)`, NAME.energySaved, saved, FORMATS.kWh],
     [
       "Share of today's drive energy saved",
       `IF(${NAME.energyOpenLoop}>0,${NAME.energySaved}/${NAME.energyOpenLoop},"${NOT_APPLICABLE}")`,
@@ -225,13 +234,13 @@ function writeBandPosition(
     typeof share !== "number"
       ? NOT_APPLICABLE
       : share * 100 < input.band.lowPct
-        ? "below the band"
+        ? BAND_POSITION_LABELS.below
         : share * 100 > input.band.highPct
-          ? "above the band"
-          : "within the band";
+          ? BAND_POSITION_LABELS.above
+          : BAND_POSITION_LABELS.within;
   sheet.getCell(top + 3, 1).value = "Against the band claimed in the trade";
   sheet.getCell(top + 3, 2).value = {
-    formula: `IF(ISNUMBER(${shareCell}),IF(${shareCell}*100<${NAME.bandLow},"below the band",IF(${shareCell}*100>${NAME.bandHigh},"above the band","within the band")),"${NOT_APPLICABLE}")`,
+    formula: `IF(ISNUMBER(${shareCell}),IF(${shareCell}*100<${NAME.bandLow},"${BAND_POSITION_LABELS.below}",IF(${shareCell}*100>${NAME.bandHigh},"${BAND_POSITION_LABELS.above}","${BAND_POSITION_LABELS.within}")),"${NOT_APPLICABLE}")`,
     result: position,
   };
 }

@@ -27,7 +27,7 @@ export function axisWarningText(
     case "CL_KIT_UNDERSIZED":
       return "The kit cannot deliver the torque this axis demands; its step-loss savings are not counted.";
     case "SAVING_OUTSIDE_BAND":
-      return `The physics saving of ${axis.savings.energyPct === null ? "this axis" : `${axis.savings.energyPct.toFixed(1)} %`} lies ${axis.savings.band} the band claimed in the trade.`;
+      return `The engineering estimate of ${axis.savings.energyPct === null ? "this axis's saving" : `the saving, ${axis.savings.energyPct.toFixed(1)} %,`} lies ${axis.savings.band} the band claimed in the trade.`;
     case "CURRENT_ABOVE_RATING":
       return "Today's current setting dissipates more than the motor's rating at 20 °C.";
     case "HOLDING_LOAD":

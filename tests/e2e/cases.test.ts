@@ -20,7 +20,7 @@ afterAll(async () => {
 
 const physicsNpv = () =>
   page
-    .getByRole("article", { name: "Modelled physics" })
+    .getByRole("article", { name: "Engineering estimate" })
     .locator("text=/€-?[\\d,]+\\.\\d\\d/")
     .first()
     .textContent();
@@ -39,7 +39,7 @@ describe("an engineer builds a case and freezes a proposal", () => {
     await page.getByText(/The case now holds \d+ axes\./).waitFor();
     await page.getByRole("button", { name: "Suggest kits" }).click();
     await page.getByText(/Kits suggested for \d+ of \d+ axes\./).waitFor();
-    await page.getByRole("article", { name: "Modelled physics" }).waitFor();
+    await page.getByRole("article", { name: "Engineering estimate" }).waitFor();
     await screenshot(page, "case-results");
   });
 

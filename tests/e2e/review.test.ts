@@ -84,7 +84,7 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
     await page.getByLabel("Repeat the password").fill("pat-chooses-this-1");
     await page.getByRole("button", { name: "Set password and open the proposal" }).click();
     await page.waitForURL(`**/review/proposals/${proposalId}`);
-    await page.getByRole("article", { name: "Modelled physics" }).waitFor();
+    await page.getByRole("article", { name: "Engineering estimate" }).waitFor();
     await page.getByRole("heading", { name: "Cumulative cash flow" }).waitFor();
     await page.getByRole("heading", { name: "Figures by machine" }).waitFor();
     await page.getByRole("heading", { name: "Assumptions" }).waitFor();

@@ -13,6 +13,7 @@ import {
 import { asStoredV1Result } from "@/tests/support/stored-v1-result";
 import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
+import { PAYBACK_STATUS_LABELS } from "@/lib/glossary";
 import { caller } from "../support/callers";
 import {
   cachedFormulaValues,
@@ -113,7 +114,7 @@ function expectEngineFigures(calc: ExcelJS.Workbook, result: CaseResult): Record
     close(`ROI_${suffix}`, s.roiPct, "n/a");
     // Engine v2 (docs/model.md (The business case)); a stored v1 result has no payback status of its own.
     if (s.paybackStatus !== undefined)
-      expect(value(`PaybackStatus_${suffix}`)).toBe(s.paybackStatus);
+      expect(value(`PaybackStatus_${suffix}`)).toBe(PAYBACK_STATUS_LABELS[s.paybackStatus]);
   }
   // Break-even of the physics scenario: a tariff per kWh and a factor, to 1e-9.
   if (result.breakEven !== undefined) {
@@ -261,7 +262,7 @@ describe("LibreOffice Calc recalculating the exported workbook (docs/model.md (S
     await calc.xlsx.load(recalculateWithLibreOffice(stripped) as unknown as ArrayBuffer);
     // Its stored figures, recalculated: a v1 input has no inflation or tax.
     const seen = expectEngineFigures(calc, v1);
-    expect(definedNameValue(calc, "PaybackStatus_Physics")).toBe("reached");
+    expect(definedNameValue(calc, "PaybackStatus_Physics")).toBe(PAYBACK_STATUS_LABELS.reached);
     console.info("stored v1 result, LibreOffice:", JSON.stringify(seen));
   }, 180_000);
 

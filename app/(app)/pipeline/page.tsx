@@ -17,6 +17,7 @@ import { formatMoney, formatPayback, formatPct } from "@/lib/results/format";
 import { pipelineFiltersSchema } from "@/lib/validations/pipeline";
 import { QuoteStageOptions } from "@/components/proposals/quote-stage-options";
 import { needsDiscountApproval } from "@/lib/pipeline/discount";
+import { FINANCE_TERMS } from "@/lib/glossary";
 
 export const metadata: Metadata = { title: "Pipeline" };
 
@@ -162,7 +163,7 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                   note={`${open.length} still open`}
                 />
                 <Card
-                  label="Total value (capex)"
+                  label={FINANCE_TERMS.totalPipelineValue}
                   value={formatMoney(t.value, t.currency)}
                   note={`Open: ${formatMoney(sum(open.map((q) => q.value)), t.currency)}`}
                 />

@@ -1,5 +1,6 @@
 import type { Dossier } from "@/lib/dossier";
 import type { ParsedCase } from "@/lib/engine";
+import { DOSSIER_SHEET } from "@/lib/glossary";
 import { footerOf, streamWorkbook, writeProposalSheets } from "../build-workbook";
 import { sheetOptions } from "../formats";
 import { safeText } from "../safe-text";
@@ -8,13 +9,8 @@ import { axisSheetName, writeAxisSheet } from "./axis-sheets";
 import { writeMonthlySheet, writePaybackGridSheet, writeSensitivitySheet } from "./tables-sheets";
 import { writeUncertaintySheet } from "./uncertainty-sheet";
 
-export const DOSSIER_SHEET = {
-  monthly: "Monthly cash flow",
-  paybackGrid: "Payback grid",
-  sensitivity: "Sensitivity",
-  uncertainty: "Uncertainty",
-  axisIndex: "Axis sheets",
-} as const;
+// The dossier's sheet names are glossary terms (lib/glossary/sheets.ts).
+export { DOSSIER_SHEET };
 
 /**
  * The dossier workbook: the five sheets of the proposal workbook, computed from the same frozen

@@ -1,6 +1,7 @@
 import type ExcelJS from "exceljs";
 import type { Dossier } from "@/lib/dossier";
 import type { ParsedCase, SensitivityDriver } from "@/lib/engine";
+import { DRIVER_LABELS, FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";
 import { BEYOND_HORIZON } from "../cash-flow-values";
 import {
   FORMATS,
@@ -15,17 +16,8 @@ import { SHEET, cashFlowColumn, sheetRef, yearRow } from "../layout";
 const money = (v: string) => Number(v);
 const payback = (years: number | null) => years ?? BEYOND_HORIZON;
 
-export const DRIVER_LABEL: Record<SensitivityDriver, string> = {
-  tariff: "Electricity tariff",
-  hoursPerYear: "Running hours per year",
-  loadTorque: "Load torque (all axes)",
-  kitPrice: "Kit price",
-  laborRate: "Labor rate",
-  stepLossEvents: "Step-loss events",
-  discountRate: "Discount rate",
-  throughputGain: "Throughput gain (every machine, still capped)",
-  idleCurrent: "Idle current (every axis, at most 100 %)",
-};
+/** The drivers by the glossary's names, as the tornado on screen names them. */
+export const DRIVER_LABEL: Record<SensitivityDriver, string> = DRIVER_LABELS;
 
 /**
  * Month by month, physics scenario: each month is a live twelfth of its year's flow on the
@@ -53,7 +45,9 @@ export function writeMonthlySheet(sheet: ExcelJS.Worksheet, input: ParsedCase, d
     };
     row.getCell(3).numFmt = currency;
     row.getCell(4).numFmt = currency;
-    if (i === 0) row.getCell(5).value = "The investment (−Capex), at the start";
+    if (i === 0)
+      row.getCell(5).value =
+        `The ${FINANCE_TERMS.upFrontCost.toLowerCase()} (−Capex), at the start`;
     if (i === 1)
       row.getCell(5).value =
         "Each year's flow spread evenly over its 12 months (tariff escalation steps yearly)";
@@ -81,7 +75,7 @@ export function writePaybackGridSheet(
   for (let c = 3; c < 3 + grid.hoursPct.length; c++) sheet.getColumn(c).width = 13;
   styleTitle(sheet.addRow(["Simple payback (years), tariff × running hours"]).getCell(1));
   sheet.addRow([
-    "Each cell is the engine's physics scenario with the tariff and every axis's hours changed together; other terms as in the case.",
+    `Each cell is the ${SCENARIO_LABELS.physics.toLowerCase()} with the tariff and every axis's hours changed together; other terms as in the case.`,
   ]);
   sheet.addRow([]);
   styleHeader(

@@ -2,6 +2,7 @@ import type ExcelJS from "exceljs";
 import type { Dossier } from "@/lib/dossier";
 import { nearestRank } from "@/lib/dossier";
 import type { ParsedCase } from "@/lib/engine";
+import { SCENARIO_LABELS } from "@/lib/glossary";
 import { BEYOND_HORIZON } from "../cash-flow-values";
 import { FORMATS, currencyFormat, styleHeader, styleSection, styleTitle } from "../formats";
 import { DRIVER_LABEL } from "./tables-sheets";
@@ -32,7 +33,7 @@ export function writeUncertaintySheet(
   sheet.addRow(["Generator", u.generator]);
   sheet.addRow([
     "Method",
-    "Each draw changes the four drivers together, each independently and uniformly within its range; the engine evaluates the physics scenario for each.",
+    `Each draw changes the four drivers together, each independently and uniformly within its range; the engine evaluates the ${SCENARIO_LABELS.physics.toLowerCase()} for each.`,
   ]);
   sheet.addRow([]);
   styleHeader(sheet.addRow(["Driver", "Low (%)", "High (%)"]));

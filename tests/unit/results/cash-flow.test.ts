@@ -26,9 +26,9 @@ describe("cumulative cash flow", () => {
 
   it("names the three scenarios in words, the band ones with the fraction they assume", () => {
     expect(cashFlowSeries(result, input).map((s) => s.label)).toEqual([
-      "Modelled physics",
-      "Low claim (25 % saved)",
-      "High claim (50 % saved)",
+      "Engineering estimate",
+      "Low trade claim (25 % saved)",
+      "High trade claim (50 % saved)",
     ]);
   });
 });

@@ -60,7 +60,7 @@ describe("Cash flow sheet formulas (docs/model.md (The business case))", () => {
     const sheet = sheetOf(workbook, "Cash flow");
     const f = (address: string) => formulaOf(sheet.getCell(address));
     expect(f("C43")).toBe(
-      'IF(ISNUMBER(C39),"reached",IF(INDEX(C3:C33,Horizon_Years+1)>0,"beyond-horizon","never"))',
+      'IF(ISNUMBER(C39),"Paid back within the horizon",IF(INDEX(C3:C33,Horizon_Years+1)>0,"Paid back after the horizon","Never paid back"))',
     );
     expect(f("C44")).toBe(
       "(1-TaxRate_Pct/100)*(EnergySaved_kWh+CoolingSaved_kWh)*SUMPRODUCT($C$64:$AF$64,$C$66:$AF$66)",
@@ -129,10 +129,10 @@ describe("Cash flow sheet formulas (docs/model.md (The business case))", () => {
       "IRR_BandHigh",
     ]);
     expect(formulaOf(row("Payback, simple").getCell(2))).toBe("Payback_Physics");
-    expect(formulaOf(row("Capex").getCell(2))).toBe("Capex");
+    expect(formulaOf(row("Up-front cost").getCell(2))).toBe("Capex");
     expect(formulaOf(row("Cash flow in year 1").getCell(3))).toBe("'Cash flow'!$I$4");
     for (const label of [
-      "Capex",
+      "Up-front cost",
       "NPV",
       "IRR",
       "Payback, simple",
@@ -149,8 +149,8 @@ describe("Cash flow sheet formulas (docs/model.md (The business case))", () => {
     const at = (header: string) => headers.indexOf(header);
     for (const row of [3, 4, 5]) {
       for (const header of [
-        "Capex, one unit",
-        "Capex, all units",
+        "Up-front cost, one unit",
+        "Up-front cost, all units",
         "Drive energy saved, all units (kWh/yr)",
         "Step losses avoided, per year",
       ])

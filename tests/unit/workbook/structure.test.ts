@@ -1,5 +1,6 @@
 import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
+import { LOOP_STATUS_LABELS, PAYBACK_STATUS_LABELS } from "@/lib/glossary";
 import { definedNameTarget, xlsxPart } from "@/tests/support/libreoffice";
 import { buildWorkbookOf, formulaOf, sheetOf } from "./fixture-workbook";
 
@@ -63,7 +64,7 @@ describe("proposal workbook structure (issue 5)", () => {
     expect(value("TariffEscalation_Pct")).toBe(input.finance.tariffEscalationPct);
     expect(value("DiscountRate_Pct")).toBe(8);
     expect(value("Horizon_Years")).toBe(5);
-    expect(value("LaborRate_PerHour")).toBe(85);
+    expect(value("LabourRate_PerHour")).toBe(85);
     expect(value("DowntimeCost_PerHour")).toBe(400);
     expect(value("ProjectOneTimeCost")).toBe(1500);
     expect(value("AnnualServiceCost")).toBe(120);
@@ -86,7 +87,9 @@ describe("proposal workbook structure (issue 5)", () => {
     expect(cached("IRR_Physics")).toBe(result.scenarios.physics.irr);
     expect(cached("Payback_Physics")).toBe(result.scenarios.physics.paybackYears);
     expect(cached("NPV_BandHigh")).toBe(Number(result.scenarios.bandHigh.npv));
-    expect(cached("PaybackStatus_Physics")).toBe(result.scenarios.physics.paybackStatus);
+    expect(cached("PaybackStatus_Physics")).toBe(
+      PAYBACK_STATUS_LABELS[result.scenarios.physics.paybackStatus],
+    );
     const tariff = result.breakEven.tariffPerKWh;
     expect(cached("BreakEven_Tariff")).toBe(tariff === null ? "none" : Number(tariff));
   });
@@ -201,9 +204,11 @@ describe("proposal workbook structure (issue 5)", () => {
     const z = sheet.getRow(4);
     expect(z.getCell(1).value).toBe("M1-Z");
     expect(z.getCell(column("Status", "Open loop today")).value).toBe(
-      result.axes[1].openLoop.status,
+      LOOP_STATUS_LABELS[result.axes[1].openLoop.status],
     );
-    expect(z.getCell(column("Status", "Closed loop")).value).toBe(result.axes[1].closedLoop.status);
+    expect(z.getCell(column("Status", "Closed loop")).value).toBe(
+      LOOP_STATUS_LABELS[result.axes[1].closedLoop.status],
+    );
     expect(z.getCell(column("Torque freed (N·m)", "Gains, one unit")).value).toBe(
       result.axes[1].savings.torqueFreedNm,
     );
@@ -211,8 +216,8 @@ describe("proposal workbook structure (issue 5)", () => {
     expect(String(z.getCell(column("Warnings", "Warnings")).value)).toMatch(
       /holds a load at standstill/,
     );
-    expect(formulaOf(z.getCell(column("Capex, one unit", "Money and totals (formulas)")))).toMatch(
-      /\*LaborRate_PerHour\+/,
-    );
+    expect(
+      formulaOf(z.getCell(column("Up-front cost, one unit", "Money and totals (formulas)"))),
+    ).toMatch(/\*LabourRate_PerHour\+/);
   });
 });

@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import fixtureCase from "@/tests/fixtures/engine-case.json";
 import { caseInputSchema, evaluateParsedCase } from "@/lib/engine";
 import { buildProposalWorkbook } from "@/lib/workbook";
+import { PAYBACK_STATUS_LABELS } from "@/lib/glossary";
 import { asStoredV1Result } from "@/tests/support/stored-v1-result";
 import { definedNameTarget } from "@/tests/support/libreoffice";
 import { META, buildWorkbookOf, formulaOf, sheetOf } from "./fixture-workbook";
@@ -61,7 +62,7 @@ describe("a proposal issued by engine v1 keeps a workbook (docs/model.md: stored
     ]);
     // The stored figures are what the cached values show.
     expect(cachedByName(workbook, "NPV_Physics")).toBe(Number(v1.scenarios.physics.npv));
-    expect(cachedByName(workbook, "PaybackStatus_Physics")).toBe("reached");
+    expect(cachedByName(workbook, "PaybackStatus_Physics")).toBe(PAYBACK_STATUS_LABELS.reached);
     // The value-by-source rows are worked out from the v1 totals and add up to its flows.
     const sheet = sheetOf(workbook, "Cash flow");
     for (let t = 1; t <= input.finance.horizonYears; t++) {

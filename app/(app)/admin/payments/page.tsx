@@ -6,6 +6,7 @@ import { Table, Td, Th } from "@/components/ui/table";
 import { readDossierPrice } from "@/db/queries/dossiers";
 import { listCheckouts } from "@/db/queries/payments";
 import { requirePageUser } from "@/server/auth";
+import { CHECKOUT_STATUS_LABELS } from "@/lib/glossary";
 import { formatMoney } from "@/lib/results/format";
 
 export const metadata: Metadata = { title: "Dossier price and payments" };
@@ -59,7 +60,9 @@ export default async function PaymentsPage() {
                   <Td className="break-all">{c.buyerEmail}</Td>
                   <Td className="text-right tabular-nums">{formatMoney(c.amount, c.currency)}</Td>
                   <Td>
-                    <Badge tone={STATUS_TONE[c.status]}>{c.status}</Badge>
+                    <Badge tone={STATUS_TONE[c.status]} term="checkout-status">
+                      {CHECKOUT_STATUS_LABELS[c.status]}
+                    </Badge>
                   </Td>
                   <Td className="whitespace-nowrap tabular-nums">
                     {c.grantedAt ? c.grantedAt.replace("T", " ").slice(0, 16) : "—"}

@@ -22,6 +22,7 @@ import { parseCaseInput } from "@/lib/results/case-view";
 import { formatMoney, formatPayback } from "@/lib/results/format";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { discountAboveThreshold, needsDiscountApproval } from "@/lib/pipeline/discount";
+import { FINANCE_TERMS } from "@/lib/glossary";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -69,12 +70,15 @@ export default async function ProposalPage({
           <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2 text-small">
             <Fact term="Stage" value={<QuoteStageBadge stage={quote.stage} />} />
             <Fact term="Owner" value={quote.ownerName} />
-            <Fact term="Value (capex)" value={formatMoney(quote.value, quote.currency)} />
+            <Fact
+              term={FINANCE_TERMS.pipelineValue}
+              value={formatMoney(quote.value, quote.currency)}
+            />
             <Fact
               term="Weighted value"
               value={`${formatMoney(quote.weighted, quote.currency)} (${quote.probabilityPct} % for this stage)`}
             />
-            <Fact term="Payback (modelled)" value={formatPayback(quote.paybackYears)} />
+            <Fact term={FINANCE_TERMS.estimatedPayback} value={formatPayback(quote.paybackYears)} />
             <Fact term="Expected close" value={quote.expectedCloseOn} />
             <Fact
               term="Largest kit discount"

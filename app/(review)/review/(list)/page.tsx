@@ -7,6 +7,7 @@ import { getAccountOrThrow } from "@/db/queries/accounts";
 import { listVisibleQuotes, reviewerView } from "@/db/queries/proposals";
 import { requirePageUser } from "@/server/auth";
 import { formatMoney, formatPayback } from "@/lib/results/format";
+import { FINANCE_TERMS } from "@/lib/glossary";
 
 export const metadata: Metadata = { title: "Proposals for review" };
 
@@ -40,8 +41,8 @@ export default async function ReviewHome() {
                 <Th>Proposal</Th>
                 <Th>Site</Th>
                 <Th>Status</Th>
-                <Th className="text-right">Investment</Th>
-                <Th className="text-right">Payback (modelled)</Th>
+                <Th className="text-right">{FINANCE_TERMS.upFrontCost}</Th>
+                <Th className="text-right">{FINANCE_TERMS.estimatedPayback}</Th>
                 <Th>Sent (UTC)</Th>
                 <Th>From</Th>
               </tr>

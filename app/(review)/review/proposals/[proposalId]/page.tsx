@@ -28,6 +28,7 @@ import { DECIDABLE_STAGES } from "@/lib/pipeline/stages";
 import { parseCaseInput } from "@/lib/results/case-view";
 import { paybackLead } from "@/lib/results/engine-v2";
 import { formatMoney } from "@/lib/results/format";
+import { FINANCE_TERMS } from "@/lib/glossary";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -67,7 +68,7 @@ export default async function ReviewProposalPage({
       />
       <PageHeader
         title={`${quote.caseName}, version ${quote.version}`}
-        lead={`${quote.siteName} · sent by ${quote.ownerName} on ${quote.sentAt?.slice(0, 10)} · investment ${formatMoney(quote.value, quote.currency)}, ${paybackLead(physics, horizon)}`}
+        lead={`${quote.siteName} · sent by ${quote.ownerName} on ${quote.sentAt?.slice(0, 10)} · ${FINANCE_TERMS.upFrontCost.toLowerCase()} ${formatMoney(quote.value, quote.currency)}, ${paybackLead(physics, horizon)}`}
         actions={
           <div className="flex flex-wrap items-center gap-3">
             <QuoteStageBadge stage={quote.stage} />

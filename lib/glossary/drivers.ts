@@ -1,0 +1,14 @@
+import type { SensitivityDriver } from "@/lib/engine";
+
+/** The sensitivity drivers of docs/model.md (The business case): tornado, dossier tables and sheets. */
+export const DRIVER_LABELS: Record<SensitivityDriver, string> = {
+  tariff: "Electricity tariff",
+  hoursPerYear: "Running hours per year",
+  loadTorque: "Load torque on every axis",
+  kitPrice: "Kit price",
+  laborRate: "Labour rate",
+  stepLossEvents: "Lost-step events per year",
+  discountRate: "Discount rate",
+  throughputGain: "Throughput gain of every machine",
+  idleCurrent: "Idle current at standstill",
+};
