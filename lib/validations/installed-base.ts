@@ -2,13 +2,18 @@ import { z } from "zod";
 import { idSchema } from "@/lib/api/params";
 import {
   bounded,
-  boundedInt,
-  choice,
+  choiceField,
   holdingTorque,
   money,
+  moneyField,
+  numberField,
   pct,
+  presence,
+  ranged,
   torque,
+  torqueField,
 } from "@/lib/engine/schema-fields";
+import { AXIS_FIELDS } from "@/lib/fields";
 import { axisInputSchema as engineAxisSchema, stepLossEventSchema } from "@/lib/engine/schema";
 
 // Shared by the forms, the server actions, the API and the importer. Values are stored in SI
@@ -27,8 +32,9 @@ export const siteInputSchema = z.object({
     .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
   tariffPerKWh: money(),
   gridKgCo2PerKWh: bounded("gridKgCo2PerKWh").default(0),
-  ambientC: bounded("ambientC").default(40),
-  hoursPerYear: bounded("hoursPerYear"),
+  // The site's ambient and hours are the defaults of its axes' fields of the same name.
+  ambientC: numberField(AXIS_FIELDS.ambientC),
+  hoursPerYear: numberField(AXIS_FIELDS.hoursPerYear),
 });
 
 export const machineInputSchema = z.object({
@@ -44,42 +50,46 @@ export const machineInputSchema = z.object({
   marginPerOutputHour: money().default("0"),
 });
 
+const A = AXIS_FIELDS;
+
+// Each field's range, choices and default are the registry's (lib/fields/axis.ts), never
+// restated here; tests/unit/fields/registry.test.ts checks that this schema holds exactly them.
 export const axisFieldsSchema = z.object({
   label: name("axis label"),
-  quantity: boundedInt("quantity").default(1),
-  // motor (datasheet values); bounds are the engine's (FIELD_BOUNDS), never restated here
-  rotorTeeth: boundedInt("rotorTeeth").default(50),
-  holdingTorqueNm: holdingTorque(),
-  ratedCurrentA: bounded("ratedCurrentA"),
-  phaseResistanceOhm: bounded("phaseResistanceOhm"),
-  phaseInductanceMh: bounded("phaseInductanceMh"), // docs/model.md (Torque at speed): the engine needs L > 0
-  thermalResistanceKPerW: optionalNumber(bounded("thermalResistanceKPerW")),
-  ratedTempRiseK: bounded("ratedTempRiseK").default(80),
-  insulationClass: choice(["B", "F", "H"]).default("B"),
-  hysteresisWPerHz: bounded("hysteresisWPerHz").default(0),
-  eddyWPerHz2: bounded("eddyWPerHz2").default(0),
+  quantity: numberField(A.quantity),
+  // motor (datasheet values)
+  rotorTeeth: numberField(A.rotorTeeth),
+  holdingTorqueNm: presence(holdingTorque(), A.holdingTorqueNm),
+  ratedCurrentA: numberField(A.ratedCurrentA),
+  phaseResistanceOhm: numberField(A.phaseResistanceOhm),
+  phaseInductanceMh: numberField(A.phaseInductanceMh), // docs/model.md (Torque at speed): the engine needs L > 0
+  thermalResistanceKPerW: optionalNumber(ranged(A.thermalResistanceKPerW.range)),
+  ratedTempRiseK: numberField(A.ratedTempRiseK),
+  insulationClass: choiceField(A.insulationClass),
+  hysteresisWPerHz: numberField(A.hysteresisWPerHz),
+  eddyWPerHz2: numberField(A.eddyWPerHz2),
   // drive (as set today)
-  busVoltageV: bounded("busVoltageV"),
-  currentSettingA: bounded("currentSettingA"),
-  currentConvention: choice(["peak", "rms"]).default("peak"),
-  stepMode: choice(["full", "half", "half-compensated", "micro"]).default("micro"),
-  microsteps: boundedInt("microsteps").default(16),
-  idleCurrentPct: pct().default(50),
-  driveEfficiencyPct: bounded("efficiencyPct").default(90),
-  driveStandbyW: bounded("standbyW").default(2),
+  busVoltageV: numberField(A.busVoltageV),
+  currentSettingA: numberField(A.currentSettingA),
+  currentConvention: choiceField(A.currentConvention),
+  stepMode: choiceField(A.stepMode),
+  microsteps: numberField(A.microsteps),
+  idleCurrentPct: numberField(A.idleCurrentPct),
+  driveEfficiencyPct: numberField(A.driveEfficiencyPct),
+  driveStandbyW: numberField(A.driveStandbyW),
   // duty
-  hoursPerYear: bounded("hoursPerYear"),
-  movePct: pct(),
-  holdPct: pct(),
-  speedRpm: bounded("speedRpm"),
-  loadTorqueNm: torque(),
-  peakTorqueNm: torque(),
-  holdTorqueNm: torque().default(0),
-  ambientC: bounded("ambientC").default(40),
+  hoursPerYear: numberField(A.hoursPerYear),
+  movePct: numberField(A.movePct),
+  holdPct: numberField(A.holdPct),
+  speedRpm: numberField(A.speedRpm),
+  loadTorqueNm: torqueField(A.loadTorqueNm),
+  peakTorqueNm: torqueField(A.peakTorqueNm),
+  holdTorqueNm: torqueField(A.holdTorqueNm),
+  ambientC: numberField(A.ambientC),
   // reliability
-  stepLossEventsPerYear: bounded("stepLossEventsPerYear").default(0),
-  costPerEvent: money().default("0"),
-  avoidedPct: pct().default(90),
+  stepLossEventsPerYear: numberField(A.stepLossEventsPerYear),
+  costPerEvent: moneyField(A.costPerEvent),
+  avoidedPct: numberField(A.avoidedPct),
 });
 
 export function checkAxisConsistency(
@@ -129,11 +139,11 @@ const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peak
 export const axisApiSchema = axisFieldsSchema
   .extend({
     machineId: idSchema(),
-    movePct: pct().optional(),
-    holdPct: pct().optional(),
-    speedRpm: bounded("speedRpm").optional(),
-    loadTorqueNm: torque().optional(),
-    peakTorqueNm: torque().optional(),
+    movePct: numberField(A.movePct).optional(),
+    holdPct: numberField(A.holdPct).optional(),
+    speedRpm: numberField(A.speedRpm).optional(),
+    loadTorqueNm: torqueField(A.loadTorqueNm).optional(),
+    peakTorqueNm: torqueField(A.peakTorqueNm).optional(),
     // Absent = "0", or built from `event`; both at once is refused, as the engine does.
     costPerEvent: money().optional(),
     motion: motionSchema.nullable().optional(),
