@@ -41,8 +41,6 @@ export const int = (min: number, max?: number) => {
 // The bounds are the field registry's (lib/fields); re-exported for the engine's callers.
 export { FIELD_BOUNDS, MONEY_MAX, type BoundedField, type FieldBound };
 
-
-
 const withUnit = (value: number, unit: string) => (unit === "" ? `${value}` : `${value} ${unit}`);
 
 /** The messages of a bound, e.g. "must be at most 80 °C"; shared with the importer's cells. */
@@ -274,7 +272,10 @@ type Presence<T extends z.ZodType, S> = S extends { readonly default: unknown }
     : T;
 
 /** The field's default, or optional, or required: as the registry says. */
-export function presence<T extends z.ZodType, S extends FieldSpec>(schema: T, spec: S): Presence<T, S> {
+export function presence<T extends z.ZodType, S extends FieldSpec>(
+  schema: T,
+  spec: S,
+): Presence<T, S> {
   if (spec.default !== undefined)
     return schema.default(spec.default as never) as unknown as Presence<T, S>;
   if (spec.optional === true) return schema.optional() as unknown as Presence<T, S>;

@@ -3,9 +3,7 @@ import {
   atLeast,
   bool,
   bounded,
-  boundedInt,
   holdingTorque,
-  choice,
   FIELD_BOUNDS,
   inertia,
   id,
@@ -23,7 +21,12 @@ import {
   presence,
   torqueField,
 } from "./schema-fields";
-import { AXIS_FIELDS as A, EVENT_FIELDS as E, KIT_FIELDS as K, MECHANISMS, MOTION_FIELDS as M } from "../fields";
+import {
+  AXIS_FIELDS as A,
+  EVENT_FIELDS as E,
+  KIT_FIELDS as K,
+  MOTION_FIELDS as M,
+} from "../fields";
 
 /**
  * The input of docs/model.md with its defaults. Objects whose every field has a default use

@@ -34,6 +34,8 @@ export interface FieldSpec {
   /** May stay empty without a default (null when stored). */
   readonly optional?: true;
   readonly choices?: readonly string[];
+  /** How a choice reads in a form's list, where the stored word alone says too little. */
+  readonly choiceLabels?: Readonly<Record<string, string>>;
   /** For text: the most characters it takes. */
   readonly maxLength?: number;
   /** Left blank on a form or an import row, the site's value of the same name is taken. */

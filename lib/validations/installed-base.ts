@@ -10,7 +10,6 @@ import {
   pct,
   presence,
   ranged,
-  torque,
   torqueField,
 } from "@/lib/engine/schema-fields";
 import { AXIS_FIELDS } from "@/lib/fields";
