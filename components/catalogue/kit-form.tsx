@@ -16,12 +16,14 @@ import {
   TextField,
   asNumber,
 } from "@/components/ui/form-fields";
+import { KIT_FIELDS as K } from "@/lib/fields";
 
 type KitFormValues = z.input<typeof kitInputSchema>;
 
 export type KitMotorOption = { id: number; code: string; name: string; active: boolean };
 
 // A new kit starts with the schema defaults (docs/model.md KitInput) filled in.
+// A new kit starts from the registry's defaults (lib/fields/kit.ts).
 function defaults(kit?: Kit): DefaultValues<KitFormValues> {
   if (!kit) {
     return {
@@ -29,15 +31,15 @@ function defaults(kit?: Kit): DefaultValues<KitFormValues> {
       name: "",
       price: "",
       currency: "EUR",
-      sensing: "encoder",
+      sensing: K.sensing.default,
       motorId: "",
       maxCurrentPeakA: undefined,
       busVoltageV: undefined,
-      efficiencyPct: 92,
-      standbyW: 3,
+      efficiencyPct: K.efficiencyPct.default,
+      standbyW: K.standbyW.default,
       encoderW: undefined,
-      minCurrentPct: 10,
-      sensorlessMinRpm: 60,
+      minCurrentPct: K.minCurrentPct.default,
+      sensorlessMinRpm: K.sensorlessMinRpm.default,
     };
   }
   return {

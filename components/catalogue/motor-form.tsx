@@ -18,6 +18,7 @@ import {
   TorqueField,
   asNumber,
 } from "@/components/ui/form-fields";
+import { AXIS_FIELDS as A } from "@/lib/fields";
 
 // The form always sends the torque with its unit; the schema also takes a bare N·m number,
 // which the form never produces.
@@ -26,22 +27,23 @@ type MotorFormValues = Omit<z.input<typeof motorInputSchema>, "holdingTorqueNm">
 };
 
 // A new motor starts with the schema defaults filled in and its datasheet values empty.
+// A new motor starts from the registry's defaults (lib/fields/axis.ts).
 function defaults(motor?: Motor): DefaultValues<MotorFormValues> {
   if (!motor) {
     return {
       code: "",
       name: "",
       frameSize: undefined,
-      rotorTeeth: 50,
+      rotorTeeth: A.rotorTeeth.default,
       holdingTorqueNm: { value: undefined, unit: "N·m" },
       ratedCurrentA: undefined,
       phaseResistanceOhm: undefined,
       phaseInductanceMh: undefined,
       thermalResistanceKPerW: undefined,
-      ratedTempRiseK: 80,
-      insulationClass: "B",
-      hysteresisWPerHz: 0,
-      eddyWPerHz2: 0,
+      ratedTempRiseK: A.ratedTempRiseK.default,
+      insulationClass: A.insulationClass.default,
+      hysteresisWPerHz: A.hysteresisWPerHz.default,
+      eddyWPerHz2: A.eddyWPerHz2.default,
     };
   }
   return {

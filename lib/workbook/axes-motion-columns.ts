@@ -86,6 +86,7 @@ export const AXIS_MOTION_COLUMNS: readonly AxisColumn[] = [
   input("dwell", sheetHeader(M.dwellTimeS), FORMATS.physics, (m) => m.dwellTimeS),
   input("returnMove", sheetHeader(M.returnMove), "@", (m) => (m.returnMove ? "yes" : "no"), 8),
   input("energized", sheetHeader(M.energizedPct), FORMATS.pct, (m) => m.energizedPct),
+  input("maxInertiaRatio", sheetHeader(M.maxInertiaRatio), FORMATS.pct2, (m) => m.maxInertiaRatio),
   {
     key: "mechPower",
     group: GROUP,
