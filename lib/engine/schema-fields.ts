@@ -305,3 +305,38 @@ export const torqueField = <const S extends FieldSpec>(spec: S) => presence(torq
 
 /** A money field of the registry, with its presence. */
 export const moneyField = <const S extends FieldSpec>(spec: S) => presence(money(), spec);
+
+/** The registry's optional text fields (a tag, a note): described once, carried as typed. */
+type OptionalTextKey<F> = {
+  [K in keyof F]: F[K] extends { readonly kind: "text"; readonly optional: true } ? K : never;
+}[keyof F];
+
+const textWithin = (spec: FieldSpec) => {
+  const max = spec.maxLength ?? 120;
+  return text().max(max, `must be at most ${max} characters`);
+};
+
+/**
+ * Every optional text field of `fields` as an optional string: the engine carries them through
+ * to its readers (the workbook) and computes nothing with them.
+ */
+export function optionalTextShape<F extends Record<string, FieldSpec>>(fields: F) {
+  const shape: Record<string, z.ZodType> = {};
+  for (const [key, spec] of Object.entries(fields))
+    if (spec.kind === "text" && spec.optional === true) shape[key] = textWithin(spec).optional();
+  return shape as { [K in OptionalTextKey<F>]: z.ZodOptional<z.ZodString> };
+}
+
+const nullableText = (spec: FieldSpec) =>
+  z.preprocess(
+    (v) => (v === undefined || (typeof v === "string" && v.trim() === "") ? null : v),
+    textWithin(spec).trim().nullable(),
+  );
+
+/** The same fields as a form or the API takes them: trimmed, an empty box stored as null. */
+export function nullableTextShape<F extends Record<string, FieldSpec>>(fields: F) {
+  const shape: Record<string, z.ZodType> = {};
+  for (const [key, spec] of Object.entries(fields))
+    if (spec.kind === "text" && spec.optional === true) shape[key] = nullableText(spec);
+  return shape as { [K in OptionalTextKey<F>]: ReturnType<typeof nullableText> };
+}

@@ -18,6 +18,7 @@ import {
   choiceField,
   moneyField,
   numberField,
+  optionalTextShape,
   presence,
   torqueField,
 } from "./schema-fields";
@@ -209,6 +210,8 @@ const axisObject = obj({
   label: text(),
   machineId: id(),
   quantity: numberField(A.quantity),
+  // The registry's optional text fields of an axis (its asset tag): carried, never computed with.
+  ...optionalTextShape(A),
   motor: motorInputSchema,
   drive: driveSchema,
   duty: dutySchema,

@@ -39,3 +39,10 @@ export function registeredFields(): { path: string; key: string; spec: FieldSpec
     ...nested("retrofit.kit", KIT_FIELDS),
   ];
 }
+
+/** The keys of the optional text fields among `fields` (tags and notes, no arithmetic). */
+export function optionalTextKeys(fields: Record<string, FieldSpec>): string[] {
+  return Object.entries(fields)
+    .filter(([, spec]) => spec.kind === "text" && spec.optional === true)
+    .map(([key]) => key);
+}

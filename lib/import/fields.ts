@@ -67,6 +67,8 @@ export interface ImportField {
   min?: number;
   minExclusive?: boolean;
   max?: number;
+  /** For text: the most characters a cell takes (else the length of a name). */
+  maxLength?: number;
   /** Other header texts that name this field unambiguously. */
   synonyms?: readonly string[];
   /** What the datasheet (or the plant) value is. */
@@ -124,6 +126,7 @@ function columnOf(key: ImportFieldKey, spec: FieldSpec, nested: boolean): Import
     ...(checkCell && !share ? { bound: boundOf(spec.range!) } : {}),
     ...(share ? { min: SHARE_BOUND.min, max: SHARE_BOUND.max } : {}),
     ...(spec.aliases ? { synonyms: spec.aliases } : {}),
+    ...(spec.maxLength !== undefined ? { maxLength: spec.maxLength } : {}),
     help: spec.help,
   };
 }

@@ -6,6 +6,7 @@ import {
   holdingTorque,
   money,
   moneyField,
+  nullableTextShape,
   numberField,
   pct,
   presence,
@@ -89,6 +90,8 @@ export const axisFieldsSchema = z.object({
   stepLossEventsPerYear: numberField(A.stepLossEventsPerYear),
   costPerEvent: moneyField(A.costPerEvent),
   avoidedPct: numberField(A.avoidedPct),
+  // optional text (an asset tag): an empty box is stored as null
+  ...nullableTextShape(A),
 });
 
 export function checkAxisConsistency(

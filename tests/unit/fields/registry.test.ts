@@ -51,7 +51,6 @@ function engineSchemaAt(fieldPath: string): Schema | undefined {
 }
 
 const ALL = registeredFields();
-const NUMERIC = ALL.filter(({ spec }) => spec.kind === "number" || spec.kind === "int");
 
 /** A value just outside each end of the field's range (relative steps so that 1e-9 stays meaningful). */
 function outside(spec: FieldSpec) {
