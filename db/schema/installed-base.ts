@@ -74,6 +74,7 @@ export const axes = sqliteTable(
       .references(() => machines.id, { onDelete: "cascade" }),
     label: text("label").notNull(),
     quantity: integer("quantity").notNull().default(A.quantity.default),
+    assetTag: text("asset_tag"),
     referenceMotorId: integer("reference_motor_id").references(() => motors.id, {
       onDelete: "set null",
     }),

@@ -372,6 +372,18 @@ export const AXIS_FIELDS = {
     sheetWidth: 10,
     sheetFormat: "pct",
   },
+  // Fields added later go last: the import template's existing columns then keep their places.
+  assetTag: {
+    group: "axis",
+    label: "Asset tag",
+    help: "The plant's own tag for the axis, as on its label or in its maintenance system; may stay blank.",
+    kind: "text",
+    unit: null,
+    optional: true,
+    maxLength: 40,
+    aliases: ["Asset number", "Asset ID"],
+    sheetWidth: 14,
+  },
 } as const satisfies Record<string, AxisFieldSpec>;
 
 export type AxisFieldKey = keyof typeof AXIS_FIELDS;

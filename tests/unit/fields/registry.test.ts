@@ -292,3 +292,25 @@ describe("defaults exist once", () => {
     ).toEqual([]);
   });
 });
+
+describe("a field added to the registry only: the axis's asset tag", () => {
+  it("reaches the form and the API with its length, the import template, the table and the workbook", () => {
+    const tag = "X".repeat(40);
+    expect(axisFieldsSchema.shape.assetTag.safeParse(tag).data).toBe(tag);
+    expect(axisFieldsSchema.shape.assetTag.safeParse("  ").data).toBeNull();
+    expect(axisFieldsSchema.shape.assetTag.safeParse(`${tag}X`).success).toBe(false);
+    expect(engineSchemaAt("assetTag")?.safeParse(undefined).success).toBe(true);
+    const column = IMPORT_FIELDS.find((f) => f.key === "assetTag");
+    expect(column).toMatchObject({
+      label: "Asset tag",
+      type: "text",
+      required: false,
+      maxLength: 40,
+    });
+    expect(TABLE_COLUMNS.find((c) => c.key === "assetTag")?.label).toBe("Asset tag");
+    expect(AXIS_INPUT_COLUMNS.find((c) => c.key === "assetTag")).toMatchObject({
+      group: "Axis",
+      header: "Asset tag",
+    });
+  });
+});
