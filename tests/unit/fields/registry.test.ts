@@ -3,6 +3,8 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import type { z } from "zod";
 import { AXIS_COLUMNS as TABLE_COLUMNS } from "@/components/installed-base/axis-columns";
+import { axisInputOf, DEFAULT_RETROFIT_TERMS } from "@/db/queries/case-input";
+import type { Axis } from "@/db/schema";
 import { axisInputSchema as engineAxisSchema } from "@/lib/engine/schema";
 import {
   AXIS_FIELDS,
@@ -312,5 +314,48 @@ describe("a field added to the registry only: the axis's asset tag", () => {
       group: "Axis",
       header: "Asset tag",
     });
+  });
+});
+
+describe("a stored axis reaches the engine field by field (db/queries/case-input.ts)", () => {
+  it("carries every stored axis field to its registry path in AxisInput", () => {
+    // A distinctive value per field, inside its range: a field mapped to the wrong path or left out shows.
+    const stored: Record<string, unknown> = {
+      id: 7,
+      siteId: 1,
+      machineId: 3,
+      createdAt: "2026-01-01T00:00:00.000Z",
+      referenceMotorId: null,
+      pullOutCurve: null,
+      resonance: null,
+      motion: null,
+      event: null,
+    };
+    // Each field its own share of its range (0.05 + 0.007 per place): two fields never take the same value.
+    Object.entries(AXIS_FIELDS as Record<string, FieldSpec>).forEach(([key, spec], place) => {
+      if (spec.kind === "enum") stored[key] = spec.choices!.at(-1);
+      else if (spec.kind === "money") stored[key] = "12.5";
+      else if (spec.kind === "text") stored[key] = `text of ${key}`.slice(0, spec.maxLength);
+      else {
+        const { min, max } = boundOf(spec.range!);
+        const value = min + (Math.min(max, min + 100) - min) * (0.05 + 0.007 * place);
+        stored[key] = spec.kind === "int" ? Math.max(Math.ceil(value), min) : value;
+      }
+    });
+    const input = axisInputOf(
+      stored as unknown as Axis,
+      { id: "k", name: "Kit", price: "100" },
+      DEFAULT_RETROFIT_TERMS,
+    );
+    const parsed = engineAxisSchema.parse(input) as unknown as Record<string, unknown>;
+    for (const { path: p, key } of ALL.filter(
+      (f) => !f.path.includes(".") || /^(motor|drive|duty|reliability)\.[^.]+$/.test(f.path),
+    )) {
+      const value = p
+        .split(".")
+        .reduce<unknown>((o, part) => (o as Record<string, unknown>)[part], parsed);
+      const expected = key === "costPerEvent" ? "12.5" : stored[key];
+      expect(value, p).toEqual(expected);
+    }
   });
 });
