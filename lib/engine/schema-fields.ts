@@ -333,10 +333,57 @@ const nullableText = (spec: FieldSpec) =>
     textWithin(spec).trim().nullable(),
   );
 
-/** The same fields as a form or the API takes them: trimmed, an empty box stored as null. */
-export function nullableTextShape<F extends Record<string, FieldSpec>>(fields: F) {
+const optionalNumberInput = (range: FieldRange | undefined, kind: FieldSpec["kind"]) =>
+  z.preprocess((v) => (v === "" || v === undefined ? null : v), ranged(range, kind).nullable());
+
+const requiredText = (spec: FieldSpec) => {
+  const max = spec.maxLength ?? 120;
+  return z
+    .string()
+    .trim()
+    .min(1, `Enter the ${spec.label.toLowerCase()}`)
+    .max(max, `Keep it under ${max} characters`);
+};
+
+/** The schema a form (and the JSON API) takes for one registry field; see formShape. */
+type FormSchemaOf<S> = S extends { readonly kind: "text"; readonly optional: true }
+  ? ReturnType<typeof nullableText>
+  : S extends { readonly kind: "text" }
+    ? ReturnType<typeof requiredText>
+    : S extends {
+          readonly kind: "enum";
+          readonly choices: infer C extends readonly [string, ...string[]];
+        }
+      ? Presence<ReturnType<typeof choice<C>>, S>
+      : S extends { readonly kind: "money" }
+        ? Presence<ReturnType<typeof money>, S>
+        : S extends { readonly range: "holdingTorqueNm" }
+          ? Presence<ReturnType<typeof holdingTorque>, S>
+          : S extends { readonly accepts: "torque" }
+            ? Presence<ReturnType<typeof torque>, S>
+            : S extends { readonly optional: true }
+              ? ReturnType<typeof optionalNumberInput>
+              : Presence<z.ZodNumber, S>;
+
+function formSchemaOf(spec: FieldSpec): z.ZodType {
+  if (spec.kind === "text") return spec.optional ? nullableText(spec) : requiredText(spec);
+  if (spec.kind === "enum")
+    return presence(choice(spec.choices as readonly [string, ...string[]]), spec);
+  if (spec.kind === "money") return presence(money(), spec);
+  if (spec.kind === "boolean") return presence(bool(), spec);
+  if (spec.range === "holdingTorqueNm") return presence(holdingTorque(), spec);
+  if (spec.accepts === "torque") return presence(torque(), spec);
+  if (spec.optional) return optionalNumberInput(spec.range, spec.kind);
+  return presence(ranged(spec.range, spec.kind), spec);
+}
+
+/**
+ * Every field of `fields` as a form and the JSON API take it, built from its registry entry: a
+ * field added to the registry is in the form's schema with no other edit. An empty box of an
+ * optional field is null; a required text says "Enter the …".
+ */
+export function formShape<F extends Record<string, FieldSpec>>(fields: F) {
   const shape: Record<string, z.ZodType> = {};
-  for (const [key, spec] of Object.entries(fields))
-    if (spec.kind === "text" && spec.optional === true) shape[key] = nullableText(spec);
-  return shape as { [K in OptionalTextKey<F>]: ReturnType<typeof nullableText> };
+  for (const [key, spec] of Object.entries(fields)) shape[key] = formSchemaOf(spec);
+  return shape as { [K in keyof F]: FormSchemaOf<F[K]> };
 }

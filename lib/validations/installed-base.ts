@@ -2,15 +2,10 @@ import { z } from "zod";
 import { idSchema } from "@/lib/api/params";
 import {
   bounded,
-  choiceField,
-  holdingTorque,
   money,
-  moneyField,
-  nullableTextShape,
+  formShape,
   numberField,
   pct,
-  presence,
-  ranged,
   torqueField,
 } from "@/lib/engine/schema-fields";
 import { AXIS_FIELDS } from "@/lib/fields";
@@ -20,8 +15,6 @@ import { axisInputSchema as engineAxisSchema, stepLossEventSchema } from "@/lib/
 // units; torque fields also take { value, unit } and are converted by the NIST SP 811 factors.
 const name = (what: string) =>
   z.string().trim().min(1, `Enter the ${what}`).max(120, "Keep it under 120 characters");
-const optionalNumber = <T extends z.ZodType>(schema: T) =>
-  z.preprocess((v) => (v === "" || v === undefined ? null : v), schema.nullable());
 
 export const siteInputSchema = z.object({
   name: name("site name"),
@@ -52,47 +45,9 @@ export const machineInputSchema = z.object({
 
 const A = AXIS_FIELDS;
 
-// Each field's range, choices and default are the registry's (lib/fields/axis.ts), never
-// restated here; tests/unit/fields/registry.test.ts checks that this schema holds exactly them.
-export const axisFieldsSchema = z.object({
-  label: name("axis label"),
-  quantity: numberField(A.quantity),
-  // motor (datasheet values)
-  rotorTeeth: numberField(A.rotorTeeth),
-  holdingTorqueNm: presence(holdingTorque(), A.holdingTorqueNm),
-  ratedCurrentA: numberField(A.ratedCurrentA),
-  phaseResistanceOhm: numberField(A.phaseResistanceOhm),
-  phaseInductanceMh: numberField(A.phaseInductanceMh), // docs/model.md (Torque at speed): the engine needs L > 0
-  thermalResistanceKPerW: optionalNumber(ranged(A.thermalResistanceKPerW.range)),
-  ratedTempRiseK: numberField(A.ratedTempRiseK),
-  insulationClass: choiceField(A.insulationClass),
-  hysteresisWPerHz: numberField(A.hysteresisWPerHz),
-  eddyWPerHz2: numberField(A.eddyWPerHz2),
-  // drive (as set today)
-  busVoltageV: numberField(A.busVoltageV),
-  currentSettingA: numberField(A.currentSettingA),
-  currentConvention: choiceField(A.currentConvention),
-  stepMode: choiceField(A.stepMode),
-  microsteps: numberField(A.microsteps),
-  idleCurrentPct: numberField(A.idleCurrentPct),
-  driveEfficiencyPct: numberField(A.driveEfficiencyPct),
-  driveStandbyW: numberField(A.driveStandbyW),
-  // duty
-  hoursPerYear: numberField(A.hoursPerYear),
-  movePct: numberField(A.movePct),
-  holdPct: numberField(A.holdPct),
-  speedRpm: numberField(A.speedRpm),
-  loadTorqueNm: torqueField(A.loadTorqueNm),
-  peakTorqueNm: torqueField(A.peakTorqueNm),
-  holdTorqueNm: torqueField(A.holdTorqueNm),
-  ambientC: numberField(A.ambientC),
-  // reliability
-  stepLossEventsPerYear: numberField(A.stepLossEventsPerYear),
-  costPerEvent: moneyField(A.costPerEvent),
-  avoidedPct: numberField(A.avoidedPct),
-  // optional text (an asset tag): an empty box is stored as null
-  ...nullableTextShape(A),
-});
+// Built from the registry (lib/fields/axis.ts): every axis field with its range, choices and
+// default, so that a field added there is on the form and the API with no edit here.
+export const axisFieldsSchema = z.object(formShape(A));
 
 export function checkAxisConsistency(
   a: { movePct: number; holdPct: number; loadTorqueNm: number; peakTorqueNm: number },
