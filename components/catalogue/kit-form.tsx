@@ -16,12 +16,14 @@ import {
   TextField,
   asNumber,
 } from "@/components/ui/form-fields";
+import { KIT_FIELDS as K, labelWithUnit } from "@/lib/fields";
 
 type KitFormValues = z.input<typeof kitInputSchema>;
 
 export type KitMotorOption = { id: number; code: string; name: string; active: boolean };
 
 // A new kit starts with the schema defaults (docs/model.md KitInput) filled in.
+// A new kit starts from the registry's defaults (lib/fields/kit.ts).
 function defaults(kit?: Kit): DefaultValues<KitFormValues> {
   if (!kit) {
     return {
@@ -29,15 +31,15 @@ function defaults(kit?: Kit): DefaultValues<KitFormValues> {
       name: "",
       price: "",
       currency: "EUR",
-      sensing: "encoder",
+      sensing: K.sensing.default,
       motorId: "",
       maxCurrentPeakA: undefined,
       busVoltageV: undefined,
-      efficiencyPct: 92,
-      standbyW: 3,
+      efficiencyPct: K.efficiencyPct.default,
+      standbyW: K.standbyW.default,
       encoderW: undefined,
-      minCurrentPct: 10,
-      sensorlessMinRpm: 60,
+      minCurrentPct: K.minCurrentPct.default,
+      sensorlessMinRpm: K.sensorlessMinRpm.default,
     };
   }
   return {
@@ -127,7 +129,7 @@ export function KitForm({ kit, motors }: { kit?: Kit; motors: KitMotorOption[] }
       <FormSection legend="Drive and motor">
         <SelectField
           id="kit-sensing"
-          label="Sensing"
+          label={K.sensing.label}
           hint="Sensorless estimates the rotor position from the back-EMF, so it runs open loop at low speed."
           error={errors.sensing?.message}
           registration={register("sensing")}
@@ -151,14 +153,14 @@ export function KitForm({ kit, motors }: { kit?: Kit; motors: KitMotorOption[] }
         </SelectField>
         <NumberField
           id="kit-max-current"
-          label="Max current (A, peak)"
+          label={labelWithUnit(K.maxCurrentPeakA, "()")}
           hint="Peak current per phase the drive may give. Left blank: √2 × the rated current of the motor the kit drives."
           error={errors.maxCurrentPeakA?.message}
           registration={register("maxCurrentPeakA", num)}
         />
         <NumberField
           id="kit-bus"
-          label="Bus voltage (V)"
+          label={labelWithUnit(K.busVoltageV, "()")}
           hint="Supply voltage of the kit's drive; it limits the current at speed. Left blank: the axis drive's."
           error={errors.busVoltageV?.message}
           registration={register("busVoltageV", num)}
@@ -168,35 +170,35 @@ export function KitForm({ kit, motors }: { kit?: Kit; motors: KitMotorOption[] }
       <FormSection legend="Power and control">
         <NumberField
           id="kit-efficiency"
-          label="Drive efficiency (%)"
+          label={labelWithUnit(K.efficiencyPct, "()")}
           hint="Of the kit's drive electronics; the loss heats the cabinet."
           error={errors.efficiencyPct?.message}
           registration={register("efficiencyPct", num)}
         />
         <NumberField
           id="kit-standby"
-          label="Standby power (W)"
+          label={labelWithUnit(K.standbyW, "()")}
           hint="What the drive draws whenever it is powered, moving or not."
           error={errors.standbyW?.message}
           registration={register("standbyW", num)}
         />
         <NumberField
           id="kit-encoder"
-          label="Encoder power (W)"
+          label={labelWithUnit(K.encoderW, "()")}
           hint="Added to standby. Left blank: 0.5 W with an encoder, 0 when sensorless."
           error={errors.encoderW?.message}
           registration={register("encoderW", num)}
         />
         <NumberField
           id="kit-min-current"
-          label="Minimum current (% of max current)"
+          label={labelWithUnit(K.minCurrentPct, "()")}
           hint="Floor of the torque current, so a lightly loaded axis still holds its position."
           error={errors.minCurrentPct?.message}
           registration={register("minCurrentPct", num)}
         />
         <NumberField
           id="kit-sensorless-rpm"
-          label="Sensorless minimum speed (rpm)"
+          label={labelWithUnit(K.sensorlessMinRpm, "()")}
           hint="Sensorless kits only: below this speed the drive runs open loop at max current."
           error={errors.sensorlessMinRpm?.message}
           registration={register("sensorlessMinRpm", num)}

@@ -18,6 +18,7 @@ import {
   TorqueField,
   asNumber,
 } from "@/components/ui/form-fields";
+import { AXIS_FIELDS as A, labelWithUnit } from "@/lib/fields";
 
 // The form always sends the torque with its unit; the schema also takes a bare N·m number,
 // which the form never produces.
@@ -26,22 +27,23 @@ type MotorFormValues = Omit<z.input<typeof motorInputSchema>, "holdingTorqueNm">
 };
 
 // A new motor starts with the schema defaults filled in and its datasheet values empty.
+// A new motor starts from the registry's defaults (lib/fields/axis.ts).
 function defaults(motor?: Motor): DefaultValues<MotorFormValues> {
   if (!motor) {
     return {
       code: "",
       name: "",
       frameSize: undefined,
-      rotorTeeth: 50,
+      rotorTeeth: A.rotorTeeth.default,
       holdingTorqueNm: { value: undefined, unit: "N·m" },
       ratedCurrentA: undefined,
       phaseResistanceOhm: undefined,
       phaseInductanceMh: undefined,
       thermalResistanceKPerW: undefined,
-      ratedTempRiseK: 80,
-      insulationClass: "B",
-      hysteresisWPerHz: 0,
-      eddyWPerHz2: 0,
+      ratedTempRiseK: A.ratedTempRiseK.default,
+      insulationClass: A.insulationClass.default,
+      hysteresisWPerHz: A.hysteresisWPerHz.default,
+      eddyWPerHz2: A.eddyWPerHz2.default,
     };
   }
   return {
@@ -132,7 +134,7 @@ export function MotorForm({ motor }: { motor?: Motor }) {
         />
         <NumberField
           id="motor-teeth"
-          label="Rotor teeth"
+          label={A.rotorTeeth.label}
           hint="50 on a 1.8° motor (200 full steps a revolution), 100 on a 0.9° motor."
           step="1"
           error={errors.rotorTeeth?.message}
@@ -143,7 +145,7 @@ export function MotorForm({ motor }: { motor?: Motor }) {
       <FormSection legend="Datasheet values">
         <TorqueField
           id="motor-holding"
-          label="Holding torque"
+          label={A.holdingTorqueNm.label}
           hint="Torque with both phases at rated current, from the datasheet; saved in N·m."
           error={torqueError}
           value={register("holdingTorqueNm.value", num)}
@@ -151,28 +153,28 @@ export function MotorForm({ motor }: { motor?: Motor }) {
         />
         <NumberField
           id="motor-current"
-          label="Rated current (A)"
+          label={labelWithUnit(A.ratedCurrentA, "()")}
           hint="Per phase, as the datasheet rates it."
           error={errors.ratedCurrentA?.message}
           registration={register("ratedCurrentA", num)}
         />
         <NumberField
           id="motor-resistance"
-          label="Phase resistance (Ω)"
+          label={labelWithUnit(A.phaseResistanceOhm, "()")}
           hint="Of one phase winding at 20 °C."
           error={errors.phaseResistanceOhm?.message}
           registration={register("phaseResistanceOhm", num)}
         />
         <NumberField
           id="motor-inductance"
-          label="Phase inductance (mH)"
+          label={labelWithUnit(A.phaseInductanceMh, "()")}
           hint="Of one phase winding; it limits how fast the current rises at speed."
           error={errors.phaseInductanceMh?.message}
           registration={register("phaseInductanceMh", num)}
         />
         <SelectField
           id="motor-insulation"
-          label="Insulation class"
+          label={A.insulationClass.label}
           hint="The winding’s temperature limit (IEC 60085): B 130 °C, F 155 °C, H 180 °C."
           error={errors.insulationClass?.message}
           registration={register("insulationClass")}
@@ -186,28 +188,28 @@ export function MotorForm({ motor }: { motor?: Motor }) {
       <FormSection legend="Heat and iron loss">
         <NumberField
           id="motor-rth"
-          label="Thermal resistance (K/W)"
+          label={labelWithUnit(A.thermalResistanceKPerW, "()")}
           hint="Winding to ambient, mounted. Left blank, it follows from the rated temperature rise at rated current (common practice)."
           error={errors.thermalResistanceKPerW?.message}
           registration={register("thermalResistanceKPerW", num)}
         />
         <NumberField
           id="motor-rise"
-          label="Rated temperature rise (K)"
+          label={labelWithUnit(A.ratedTempRiseK, "()")}
           hint="Winding rise over ambient at rated current; 80 K is common practice when the datasheet is silent."
           error={errors.ratedTempRiseK?.message}
           registration={register("ratedTempRiseK", num)}
         />
         <NumberField
           id="motor-hysteresis"
-          label="Hysteresis loss (W/Hz)"
+          label={labelWithUnit(A.hysteresisWPerHz, "()")}
           hint="Iron loss proportional to the electrical frequency; 0 when unknown."
           error={errors.hysteresisWPerHz?.message}
           registration={register("hysteresisWPerHz", num)}
         />
         <NumberField
           id="motor-eddy"
-          label="Eddy-current loss (W/Hz²)"
+          label={labelWithUnit(A.eddyWPerHz2, "()")}
           hint="Iron loss proportional to the square of the electrical frequency; 0 when unknown."
           error={errors.eddyWPerHz2?.message}
           registration={register("eddyWPerHz2", num)}

@@ -1,8 +1,18 @@
 import type { Axis } from "@/db/schema";
+import type { z } from "zod";
+import { AXIS_FIELDS, type AxisFieldSpec } from "@/lib/fields";
+import type { axisInputSchema } from "@/lib/validations/installed-base";
+
+type FormValues = z.input<typeof axisInputSchema>;
+
+const FIELDS = Object.entries(AXIS_FIELDS as Record<string, AxisFieldSpec>);
+
+// A torque is edited as { value, unit }; the schema converts it back to N·m.
+const asFormValue = (spec: AxisFieldSpec, value: unknown) =>
+  spec.accepts === "torque" ? { value, unit: spec.unit } : value;
 
 // A stored axis (SI units) as the axis form's values: torques as { value, unit: "N·m" }.
-export function axisToFormValues(a: Axis) {
-  const nm = (value: number) => ({ value, unit: "N·m" });
+export function axisToFormValues(a: Axis): FormValues {
   const {
     id: _id,
     siteId: _site,
@@ -11,11 +21,25 @@ export function axisToFormValues(a: Axis) {
     pullOutCurve: _curve,
     ...rest
   } = a;
-  return {
-    ...rest,
-    holdingTorqueNm: nm(a.holdingTorqueNm),
-    loadTorqueNm: nm(a.loadTorqueNm),
-    peakTorqueNm: nm(a.peakTorqueNm),
-    holdTorqueNm: nm(a.holdTorqueNm),
-  };
+  const values: Record<string, unknown> = { ...rest };
+  for (const [key, spec] of FIELDS)
+    values[key] = asFormValue(spec, (a as Record<string, unknown>)[key]);
+  return values as FormValues;
+}
+
+/**
+ * A new axis's form values: each field's registry default (lib/fields/axis.ts), the site's value
+ * where the registry says so, empty where the field has no default.
+ */
+export function newAxisFormValues(
+  machineId: number | undefined,
+  site: { hoursPerYear: number; ambientC: number },
+): FormValues {
+  const values: Record<string, unknown> = { machineId };
+  for (const [key, spec] of FIELDS) {
+    const fallback = spec.siteDefault ? (site as Record<string, unknown>)[key] : spec.default;
+    values[key] = spec.kind === "text" ? (fallback ?? "") : asFormValue(spec, fallback);
+  }
+  // Fields without a default stay empty until typed: the schema then says they are required.
+  return values as FormValues;
 }

@@ -7,6 +7,7 @@ import {
   type MarginsInput,
   type MotorInput,
 } from "../../lib/engine";
+import { AXIS_FIELDS, optionalTextKeys } from "../../lib/fields";
 import { caseAssumptionsSchema, type CaseAssumptions } from "../../lib/validations/case";
 import type { Axis, CaseAxis, Kit, Machine, Motor, Site } from "../schema";
 
@@ -104,12 +105,21 @@ function reliabilityInputOf(axis: Axis): AxisInput["reliability"] {
   };
 }
 
+// The axis's optional text fields of the registry (lib/fields), those it has: carried to the workbook.
+const TEXT_KEYS = optionalTextKeys(AXIS_FIELDS) as (keyof Axis)[];
+function textsOf(axis: Axis): Record<string, string> {
+  const texts: Record<string, string> = {};
+  for (const key of TEXT_KEYS) if (typeof axis[key] === "string") texts[key] = axis[key] as string;
+  return texts;
+}
+
 export function axisInputOf(axis: Axis, kit: KitInput, terms: RetrofitTerms): AxisInput {
   return {
     id: String(axis.id),
     label: axis.label,
     machineId: String(axis.machineId),
     quantity: axis.quantity,
+    ...textsOf(axis),
     motor: {
       ...motorInputOf(axis),
       ...(axis.pullOutCurve ? { pullOutCurve: axis.pullOutCurve } : {}),

@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import type { ParsedMotion } from "../../lib/engine/schema";
+import { AXIS_FIELDS as A } from "../../lib/fields";
 import { accounts } from "./accounts";
 import { motors } from "./catalogue";
 
@@ -22,7 +23,7 @@ export const sites = sqliteTable(
     currency: text("currency").notNull(),
     tariffPerKWh: text("tariff_per_kwh").notNull(),
     gridKgCo2PerKWh: real("grid_kg_co2_per_kwh").notNull().default(0),
-    ambientC: real("ambient_c").notNull().default(40),
+    ambientC: real("ambient_c").notNull().default(A.ambientC.default),
     hoursPerYear: real("hours_per_year").notNull(),
     createdAt: createdAt(),
   },
@@ -49,6 +50,7 @@ export const machines = sqliteTable(
 import type { StoredResonance, StoredStepLossEvent } from "../../lib/engine/stored";
 export type { StoredResonance, StoredStepLossEvent };
 
+// Column defaults and choices are the field registry's (lib/fields/axis.ts).
 // One open-loop axis as installed: every AxisInput field of docs/model.md but the retrofit, in SI
 // units (torque N·m, inductance mH, speed rpm, inertia kg·m²). site_id is repeated from the
 // machine so that a site's axes page straight off one index.
@@ -70,39 +72,40 @@ export const axes = sqliteTable(
       .notNull()
       .references(() => machines.id, { onDelete: "cascade" }),
     label: text("label").notNull(),
-    quantity: integer("quantity").notNull().default(1),
+    quantity: integer("quantity").notNull().default(A.quantity.default),
+    assetTag: text("asset_tag"),
     referenceMotorId: integer("reference_motor_id").references(() => motors.id, {
       onDelete: "set null",
     }),
     // motor
-    rotorTeeth: integer("rotor_teeth").notNull().default(50),
+    rotorTeeth: integer("rotor_teeth").notNull().default(A.rotorTeeth.default),
     holdingTorqueNm: real("holding_torque_nm").notNull(),
     ratedCurrentA: real("rated_current_a").notNull(),
     phaseResistanceOhm: real("phase_resistance_ohm").notNull(),
     phaseInductanceMh: real("phase_inductance_mh").notNull(),
     thermalResistanceKPerW: real("thermal_resistance_k_per_w"),
-    ratedTempRiseK: real("rated_temp_rise_k").notNull().default(80),
-    insulationClass: text("insulation_class", { enum: ["B", "F", "H"] })
+    ratedTempRiseK: real("rated_temp_rise_k").notNull().default(A.ratedTempRiseK.default),
+    insulationClass: text("insulation_class", { enum: A.insulationClass.choices })
       .notNull()
-      .default("B"),
-    hysteresisWPerHz: real("hysteresis_w_per_hz").notNull().default(0),
-    eddyWPerHz2: real("eddy_w_per_hz2").notNull().default(0),
+      .default(A.insulationClass.default),
+    hysteresisWPerHz: real("hysteresis_w_per_hz").notNull().default(A.hysteresisWPerHz.default),
+    eddyWPerHz2: real("eddy_w_per_hz2").notNull().default(A.eddyWPerHz2.default),
     pullOutCurve: text("pull_out_curve", { mode: "json" }).$type<
       { rpm: number; torqueNm: number }[]
     >(),
     // drive
     busVoltageV: real("bus_voltage_v").notNull(),
     currentSettingA: real("current_setting_a").notNull(),
-    currentConvention: text("current_convention", { enum: ["peak", "rms"] })
+    currentConvention: text("current_convention", { enum: A.currentConvention.choices })
       .notNull()
-      .default("peak"),
-    stepMode: text("step_mode", { enum: ["full", "half", "half-compensated", "micro"] })
+      .default(A.currentConvention.default),
+    stepMode: text("step_mode", { enum: A.stepMode.choices }).notNull().default(A.stepMode.default),
+    microsteps: integer("microsteps").notNull().default(A.microsteps.default),
+    idleCurrentPct: real("idle_current_pct").notNull().default(A.idleCurrentPct.default),
+    driveEfficiencyPct: real("drive_efficiency_pct")
       .notNull()
-      .default("micro"),
-    microsteps: integer("microsteps").notNull().default(16),
-    idleCurrentPct: real("idle_current_pct").notNull().default(50),
-    driveEfficiencyPct: real("drive_efficiency_pct").notNull().default(90),
-    driveStandbyW: real("drive_standby_w").notNull().default(2),
+      .default(A.driveEfficiencyPct.default),
+    driveStandbyW: real("drive_standby_w").notNull().default(A.driveStandbyW.default),
     resonance: text("resonance", { mode: "json" }).$type<StoredResonance>(),
     // duty
     hoursPerYear: real("hours_per_year").notNull(),
@@ -111,13 +114,15 @@ export const axes = sqliteTable(
     speedRpm: real("speed_rpm").notNull(),
     loadTorqueNm: real("load_torque_nm").notNull(),
     peakTorqueNm: real("peak_torque_nm").notNull(),
-    holdTorqueNm: real("hold_torque_nm").notNull().default(0),
-    ambientC: real("ambient_c").notNull().default(40),
+    holdTorqueNm: real("hold_torque_nm").notNull().default(A.holdTorqueNm.default),
+    ambientC: real("ambient_c").notNull().default(A.ambientC.default),
     motion: text("motion", { mode: "json" }).$type<ParsedMotion>(),
     // reliability
-    stepLossEventsPerYear: real("step_loss_events_per_year").notNull().default(0),
-    costPerEvent: text("cost_per_event").notNull().default("0"),
-    avoidedPct: real("avoided_pct").notNull().default(90),
+    stepLossEventsPerYear: real("step_loss_events_per_year")
+      .notNull()
+      .default(A.stepLossEventsPerYear.default),
+    costPerEvent: text("cost_per_event").notNull().default(A.costPerEvent.default),
+    avoidedPct: real("avoided_pct").notNull().default(A.avoidedPct.default),
     // reliability.event of the engine (named so in the API too): the cost of one step-loss event
     // built from what it causes; with it, cost_per_event is not sent to the engine.
     event: text("step_loss_event", { mode: "json" }).$type<StoredStepLossEvent>(),

@@ -8,6 +8,8 @@ import {
   torqueToNm,
   TORQUE_UNIT_NAMES,
 } from "./units";
+import { FIELD_BOUNDS, MONEY_MAX, type BoundedField, type FieldBound } from "../fields/bounds";
+import type { FieldRange, FieldSpec } from "../fields/types";
 
 /** How a wrong value reads in a message: "received string", "received an array". */
 export function describeInput(input: unknown): string {
@@ -36,98 +38,8 @@ export const int = (min: number, max?: number) => {
   return max === undefined ? base : base.max(max, `must be at most ${max}`);
 };
 
-/**
- * One set of bounds per input field, shared by the engine's schema, the forms
- * (lib/validations), the import columns (lib/import/fields.ts) and so the API: a value outside
- * them is not a stepper axis or a retrofit case, and inside them the engine's arithmetic stays
- * finite (evaluate.ts still checks its result). Each bound is physical or commercial, with room:
- * - hybrid steppers and their drives: NEMA 8–42 frames hold up to ~50 N·m at up to ~10 A per
- *   phase, with windings of 0.1–100 Ω and 0.1–300 mH, on buses up to ~350 V DC; so 100 N·m,
- *   100 A, 1000 Ω, 1000 mH, 1000 V. Duty torques at the motor shaft stay below 1000 N·m.
- * - speeds: beyond 60,000 rpm no stepper or mechanism in scope turns.
- * - time: a year has at most 8784 hours (leap year), 527,040 minutes.
- * - ambient: IEC 60204-1 machinery works at +5…+40 °C; −40…+80 °C covers cold stores and hot
- *   enclosures, and nothing outside it runs a motor.
- * - money: 10^12 in the case's currency is above any retrofit budget; quantity 100,000 axes per
- *   row is the case's own axis limit.
- * - percentages that are shares stay 0–100 (pct()); rates of change (escalation, discount,
- *   inflation) lie within ±100 % a year.
- * - lower ends: the smallest datasheet figures (NEMA 8: ~0.2 A, ~1 Ω, ~0.5 mH) with a factor
- *   of ten or more below them, so that a winding never computes as 0/0; a drive sets some
- *   current (0.01 A) and some bus voltage (1 V).
- * - no "greater than 0" where the engine divides by the field: such a bound admits 5·10^-324,
- *   and a quotient by it is Infinity. Instead a physical floor with room: thermal resistance
- *   0.01 K/W, rated rise 1 K, a kit's peak current 0.01 A, a cooler's COP 0.1 (thermoelectric
- *   coolers reach ~0.3), a life-halving interval 2 K (IEC 60216 materials lie near 6–12 K),
- *   pulley radius and screw lead 0.1 mm, gear ratio 0.01, stroke 0.001 mm or °, a move of 1 ms,
- *   efficiencies from 1 %, an acceleration share from 1 % of the move.
- * - the discount rate lies within −20…+100 % a year: the sensitivity scales it by up to
- *   (1 ± 100 %), and at −50 % doubled the discount factor 1/(1 + r)^t divides by zero.
- * `minExclusive` makes min a "greater than". `unit` is how the message names the bound.
- */
-export interface FieldBound {
-  readonly min: number;
-  readonly minExclusive?: boolean;
-  readonly max: number;
-  readonly unit: string;
-}
-
-export const FIELD_BOUNDS = {
-  quantity: { min: 1, max: 100_000, unit: "" },
-  rotorTeeth: { min: 1, max: 500, unit: "" },
-  holdingTorqueNm: { min: 0.001, max: 100, unit: "N·m" },
-  ratedCurrentA: { min: 0.01, max: 100, unit: "A" },
-  phaseResistanceOhm: { min: 0.01, max: 1000, unit: "Ω" },
-  phaseInductanceMh: { min: 0.01, max: 1000, unit: "mH" },
-  thermalResistanceKPerW: { min: 0.01, max: 100, unit: "K/W" },
-  ratedTempRiseK: { min: 1, max: 250, unit: "K" },
-  hysteresisWPerHz: { min: 0, max: 10, unit: "W/Hz" },
-  eddyWPerHz2: { min: 0, max: 1, unit: "W/Hz²" },
-  busVoltageV: { min: 1, max: 1000, unit: "V" },
-  currentSettingA: { min: 0.01, max: 100, unit: "A" },
-  maxCurrentPeakA: { min: 0.01, max: 100, unit: "A" },
-  microsteps: { min: 1, max: 512, unit: "" },
-  standbyW: { min: 0, max: 1000, unit: "W" },
-  hoursPerYear: { min: 0, max: 8784, unit: "h (the hours of a leap year)" },
-  speedRpm: { min: 0, max: 60_000, unit: "rpm" },
-  dutyTorqueNm: { min: 0, max: 1000, unit: "N·m" },
-  ambientC: { min: -40, max: 80, unit: "°C" },
-  stepLossEventsPerYear: { min: 0, max: 1_000_000, unit: "a year" },
-  installHours: { min: 0, max: 10_000, unit: "h" },
-  downtimeHours: { min: 0, max: 8784, unit: "h" },
-  // The engine caps the gain at the machine's headroom; 10,000 % only refuses typos.
-  throughputGainPct: { min: 0, max: 10_000, unit: "%" },
-  ratePct: { min: -100, minExclusive: true, max: 100, unit: "%" },
-  discountRatePct: { min: -20, max: 100, unit: "%" },
-  efficiencyPct: { min: 1, max: 100, unit: "%" },
-  accelSharePct: { min: 1, max: 50, unit: "%" },
-  gridKgCo2PerKWh: { min: 0, max: 10, unit: "kg/kWh" },
-  coolingCop: { min: 0.1, max: 100, unit: "" },
-  lifeHalvingK: { min: 2, max: 100, unit: "K" },
-  bandPct: { min: -100, max: 100, unit: "%" },
-  radiusMm: { min: 0.1, max: 10_000, unit: "mm" },
-  leadMm: { min: 0.1, max: 10_000, unit: "mm" },
-  gearRatio: { min: 0.01, max: 1000, unit: "" },
-  massKg: { min: 0, max: 100_000, unit: "kg" },
-  inertiaKgM2: { min: 0, max: 1000, unit: "kg·m²" },
-  // A rotor's inertia when known (0 = unknown): a NEMA 8 rotor has ~2·10^-7 kg·m², so 10^-9
-  // leaves room, and the inertia ratio load/rotor cannot overflow on a vanishing rotor.
-  rotorInertiaKgM2: { min: 1e-9, max: 1000, unit: "kg·m²" },
-  frictionCoeff: { min: 0, max: 10, unit: "" },
-  externalForceN: { min: 0, max: 1_000_000, unit: "N" },
-  stroke: { min: 0.001, max: 1_000_000, unit: "" },
-  moveTimeS: { min: 0.001, max: 3600, unit: "s" },
-  dwellTimeS: { min: 0, max: 86_400, unit: "s" },
-  maxInertiaRatio: { min: 0, minExclusive: true, max: 10_000, unit: "" },
-  downtimeMinutes: { min: 0, max: 527_040, unit: "min" },
-  scrapParts: { min: 0, max: 1_000_000_000, unit: "" },
-  restartLaborHours: { min: 0, max: 8784, unit: "h" },
-} as const satisfies Record<string, FieldBound>;
-
-export type BoundedField = keyof typeof FIELD_BOUNDS;
-
-/** The largest amount of money any field takes, in the case's currency. */
-export const MONEY_MAX = "1000000000000";
+// The bounds are the field registry's (lib/fields); re-exported for the engine's callers.
+export { FIELD_BOUNDS, MONEY_MAX, type BoundedField, type FieldBound };
 
 const withUnit = (value: number, unit: string) => (unit === "" ? `${value}` : `${value} ${unit}`);
 
@@ -346,3 +258,132 @@ export const inertia = () =>
   z.union([bounded("inertiaKgM2"), inertiaWithUnit], { error: typeError(INERTIA_EXPECTED) });
 
 export const bool = () => z.boolean({ error: typeError("true or false") });
+
+/*
+ * Schemas built from a field of the registry (lib/fields): its range, choices and default are
+ * read from there, never restated. Which builder a field takes follows its kind and the units it
+ * accepts; tests/unit/fields/registry.test.ts checks each schema against its registry entry.
+ */
+
+type Presence<T extends z.ZodType, S> = S extends { readonly default: unknown }
+  ? z.ZodDefault<T>
+  : S extends { readonly optional: true }
+    ? z.ZodOptional<T>
+    : T;
+
+/** The field's default, or optional, or required: as the registry says. */
+export function presence<T extends z.ZodType, S extends FieldSpec>(
+  schema: T,
+  spec: S,
+): Presence<T, S> {
+  if (spec.default !== undefined)
+    return schema.default(spec.default as never) as unknown as Presence<T, S>;
+  if (spec.optional === true) return schema.optional() as unknown as Presence<T, S>;
+  return schema as unknown as Presence<T, S>;
+}
+
+/** The number (no default applied) within a registry range: a share is pct(), else FIELD_BOUNDS. */
+export function ranged(range: FieldRange | undefined, kind: FieldSpec["kind"] = "number") {
+  if (range === undefined) throw new Error("a number field of the registry needs a range");
+  if (kind === "int") return range === "share" ? int(0, 100) : boundedInt(range);
+  return range === "share" ? pct() : bounded(range);
+}
+
+/** A plain number or whole-number field of the registry, with its presence. */
+export const numberField = <const S extends FieldSpec>(spec: S) =>
+  presence(ranged(spec.range, spec.kind), spec);
+
+/** A choice field of the registry, with its presence. */
+export function choiceField<
+  const S extends FieldSpec & { readonly choices: readonly [string, ...string[]] },
+>(spec: S): Presence<ReturnType<typeof choice<S["choices"]>>, S> {
+  return presence(choice<S["choices"]>(spec.choices), spec);
+}
+
+/** A duty torque (or a process torque) field of the registry, with its presence. */
+export const torqueField = <const S extends FieldSpec>(spec: S) => presence(torque(), spec);
+
+/** A money field of the registry, with its presence. */
+export const moneyField = <const S extends FieldSpec>(spec: S) => presence(money(), spec);
+
+/** The registry's optional text fields (a tag, a note): described once, carried as typed. */
+type OptionalTextKey<F> = {
+  [K in keyof F]: F[K] extends { readonly kind: "text"; readonly optional: true } ? K : never;
+}[keyof F];
+
+const textWithin = (spec: FieldSpec) => {
+  const max = spec.maxLength ?? 120;
+  return text().max(max, `must be at most ${max} characters`);
+};
+
+/**
+ * Every optional text field of `fields` as an optional string: the engine carries them through
+ * to its readers (the workbook) and computes nothing with them.
+ */
+export function optionalTextShape<F extends Record<string, FieldSpec>>(fields: F) {
+  const shape: Record<string, z.ZodType> = {};
+  for (const [key, spec] of Object.entries(fields))
+    if (spec.kind === "text" && spec.optional === true) shape[key] = textWithin(spec).optional();
+  return shape as { [K in OptionalTextKey<F>]: z.ZodOptional<z.ZodString> };
+}
+
+const nullableText = (spec: FieldSpec) =>
+  z.preprocess(
+    (v) => (v === undefined || (typeof v === "string" && v.trim() === "") ? null : v),
+    textWithin(spec).trim().nullable(),
+  );
+
+const optionalNumberInput = (range: FieldRange | undefined, kind: FieldSpec["kind"]) =>
+  z.preprocess((v) => (v === "" || v === undefined ? null : v), ranged(range, kind).nullable());
+
+const requiredText = (spec: FieldSpec) => {
+  const max = spec.maxLength ?? 120;
+  return z
+    .string()
+    .trim()
+    .min(1, `Enter the ${spec.label.toLowerCase()}`)
+    .max(max, `Keep it under ${max} characters`);
+};
+
+/** The schema a form (and the JSON API) takes for one registry field; see formShape. */
+type FormSchemaOf<S> = S extends { readonly kind: "text"; readonly optional: true }
+  ? ReturnType<typeof nullableText>
+  : S extends { readonly kind: "text" }
+    ? ReturnType<typeof requiredText>
+    : S extends {
+          readonly kind: "enum";
+          readonly choices: infer C extends readonly [string, ...string[]];
+        }
+      ? Presence<ReturnType<typeof choice<C>>, S>
+      : S extends { readonly kind: "money" }
+        ? Presence<ReturnType<typeof money>, S>
+        : S extends { readonly range: "holdingTorqueNm" }
+          ? Presence<ReturnType<typeof holdingTorque>, S>
+          : S extends { readonly accepts: "torque" }
+            ? Presence<ReturnType<typeof torque>, S>
+            : S extends { readonly optional: true }
+              ? ReturnType<typeof optionalNumberInput>
+              : Presence<z.ZodNumber, S>;
+
+function formSchemaOf(spec: FieldSpec): z.ZodType {
+  if (spec.kind === "text") return spec.optional ? nullableText(spec) : requiredText(spec);
+  if (spec.kind === "enum")
+    return presence(choice(spec.choices as readonly [string, ...string[]]), spec);
+  if (spec.kind === "money") return presence(money(), spec);
+  if (spec.kind === "boolean") return presence(bool(), spec);
+  if (spec.range === "holdingTorqueNm") return presence(holdingTorque(), spec);
+  if (spec.accepts === "torque") return presence(torque(), spec);
+  if (spec.optional) return optionalNumberInput(spec.range, spec.kind);
+  return presence(ranged(spec.range, spec.kind), spec);
+}
+
+/**
+ * Every field of `fields` as a form and the JSON API take it, built from its registry entry: a
+ * field added to the registry is in the form's schema with no other edit. An empty box of an
+ * optional field is null; a required text says "Enter the …".
+ */
+export function formShape<F extends Record<string, FieldSpec>>(fields: F) {
+  const shape: Record<string, z.ZodType> = {};
+  for (const [key, spec] of Object.entries(fields)) shape[key] = formSchemaOf(spec);
+  return shape as { [K in keyof F]: FormSchemaOf<F[K]> };
+}

@@ -3,9 +3,7 @@ import {
   atLeast,
   bool,
   bounded,
-  boundedInt,
   holdingTorque,
-  choice,
   FIELD_BOUNDS,
   inertia,
   id,
@@ -17,7 +15,19 @@ import {
   pct,
   text,
   torque,
+  choiceField,
+  moneyField,
+  numberField,
+  optionalTextShape,
+  presence,
+  torqueField,
 } from "./schema-fields";
+import {
+  AXIS_FIELDS as A,
+  EVENT_FIELDS as E,
+  KIT_FIELDS as K,
+  MOTION_FIELDS as M,
+} from "../fields";
 
 /**
  * The input of docs/model.md with its defaults. Objects whose every field has a default use
@@ -27,16 +37,16 @@ import {
 const curvePoint = obj({ rpm: bounded("speedRpm"), torqueNm: torque() });
 
 export const motorInputSchema = obj({
-  rotorTeeth: boundedInt("rotorTeeth").default(50),
-  holdingTorqueNm: holdingTorque(),
-  ratedCurrentA: bounded("ratedCurrentA"),
-  phaseResistanceOhm: bounded("phaseResistanceOhm"),
-  phaseInductanceMh: bounded("phaseInductanceMh"),
-  thermalResistanceKPerW: bounded("thermalResistanceKPerW").optional(),
-  ratedTempRiseK: bounded("ratedTempRiseK").default(80), // common practice: R_th = rise / (2·I_R²·R20)
-  insulationClass: choice(["B", "F", "H"]).default("B"),
-  hysteresisWPerHz: bounded("hysteresisWPerHz").default(0),
-  eddyWPerHz2: bounded("eddyWPerHz2").default(0),
+  rotorTeeth: numberField(A.rotorTeeth),
+  holdingTorqueNm: presence(holdingTorque(), A.holdingTorqueNm),
+  ratedCurrentA: numberField(A.ratedCurrentA),
+  phaseResistanceOhm: numberField(A.phaseResistanceOhm),
+  phaseInductanceMh: numberField(A.phaseInductanceMh),
+  thermalResistanceKPerW: numberField(A.thermalResistanceKPerW),
+  ratedTempRiseK: numberField(A.ratedTempRiseK),
+  insulationClass: choiceField(A.insulationClass),
+  hysteresisWPerHz: numberField(A.hysteresisWPerHz),
+  eddyWPerHz2: numberField(A.eddyWPerHz2),
   pullOutCurve: list(curvePoint)
     .min(1, "must hold at least one point")
     .superRefine((points, ctx) => {
@@ -57,16 +67,16 @@ export const kitInputSchema = obj({
   id: id(),
   name: text(),
   price: money(),
-  sensing: choice(["encoder", "sensorless"]).default("encoder"),
+  sensing: choiceField(K.sensing),
   motor: motorInputSchema.optional(),
-  maxCurrentPeakA: bounded("maxCurrentPeakA").optional(),
-  busVoltageV: bounded("busVoltageV").optional(),
-  efficiencyPct: bounded("efficiencyPct").default(92),
-  standbyW: bounded("standbyW").default(3),
+  maxCurrentPeakA: numberField(K.maxCurrentPeakA),
+  busVoltageV: numberField(K.busVoltageV),
+  efficiencyPct: numberField(K.efficiencyPct),
+  standbyW: numberField(K.standbyW),
   // docs/model.md: 0.5 W, 0 when sensorless; kitEncoderW() fills it since the default depends on sensing.
-  encoderW: bounded("standbyW").optional(),
-  minCurrentPct: pct().default(10),
-  sensorlessMinRpm: bounded("speedRpm").default(60),
+  encoderW: numberField(K.encoderW),
+  minCurrentPct: numberField(K.minCurrentPct),
+  sensorlessMinRpm: numberField(K.sensorlessMinRpm),
 });
 
 /** docs/model.md (Torque at speed): an open-loop mid-band dip, a model rather than a measured curve. */
@@ -84,33 +94,30 @@ const resonanceSchema = obj({
 });
 
 const driveSchema = obj({
-  busVoltageV: bounded("busVoltageV"),
-  currentSettingA: bounded("currentSettingA"),
-  currentConvention: choice(["peak", "rms"]).default("peak"),
-  stepMode: choice(["full", "half", "half-compensated", "micro"]).default("micro"),
-  microsteps: boundedInt("microsteps").default(16),
-  idleCurrentPct: pct().default(50),
-  efficiencyPct: bounded("efficiencyPct").default(90),
-  standbyW: bounded("standbyW").default(2),
+  busVoltageV: numberField(A.busVoltageV),
+  currentSettingA: numberField(A.currentSettingA),
+  currentConvention: choiceField(A.currentConvention),
+  stepMode: choiceField(A.stepMode),
+  microsteps: numberField(A.microsteps),
+  idleCurrentPct: numberField(A.idleCurrentPct),
+  efficiencyPct: numberField(A.driveEfficiencyPct),
+  standbyW: numberField(A.driveStandbyW),
   resonance: resonanceSchema.optional(),
 });
 
-export const MECHANISMS = ["belt", "rack", "screw", "rotary"] as const;
-export type Mechanism = (typeof MECHANISMS)[number];
-
-const efficiency = () => bounded("efficiencyPct");
+export { MECHANISMS, type Mechanism } from "../fields";
 
 /** docs/model.md (Motion from the mechanism): one axis's mechanism and move profile. */
 export const motionInputSchema = obj({
-  mechanism: choice(MECHANISMS),
-  radiusMm: bounded("radiusMm").optional(),
-  leadMm: bounded("leadMm").optional(),
+  mechanism: choiceField(M.mechanism),
+  radiusMm: numberField(M.radiusMm),
+  leadMm: numberField(M.leadMm),
   // absent = belt 95, rack 90, screw 90, rotary 100 (common practice)
-  efficiencyPct: efficiency().optional(),
-  gearRatio: bounded("gearRatio").default(1),
-  gearEfficiencyPct: efficiency().default(100),
-  massKg: bounded("massKg").default(0),
-  loadInertiaKgM2: inertia().default(0),
+  efficiencyPct: numberField(M.efficiencyPct),
+  gearRatio: numberField(M.gearRatio),
+  gearEfficiencyPct: numberField(M.gearEfficiencyPct),
+  massKg: numberField(M.massKg),
+  loadInertiaKgM2: presence(inertia(), M.loadInertiaKgM2),
   // 0 means unknown (MOTOR_INERTIA_UNKNOWN); a known rotor lies within its own bound.
   motorInertiaKgM2: inertia()
     .refine(
@@ -118,18 +125,21 @@ export const motionInputSchema = obj({
       (kgM2) => typeof kgM2 !== "number" || kgM2 === 0 || kgM2 >= FIELD_BOUNDS.rotorInertiaKgM2.min,
       `must be 0 (unknown) or at least ${FIELD_BOUNDS.rotorInertiaKgM2.min} kg·m²`,
     )
-    .default(0),
-  inclineDeg: atLeast(0).max(90, "must be at most 90 (vertical)").default(0),
-  frictionCoeff: bounded("frictionCoeff").default(0),
-  externalForceN: bounded("externalForceN").default(0),
-  externalTorqueNm: torque().default(0),
-  stroke: bounded("stroke"),
-  moveTimeS: bounded("moveTimeS"),
-  accelSharePct: bounded("accelSharePct").default(25),
-  dwellTimeS: bounded("dwellTimeS").default(0),
-  returnMove: bool().default(true),
-  energizedPct: pct().default(100),
-  maxInertiaRatio: bounded("maxInertiaRatio").default(10), // common practice for open-loop steppers
+    .default(M.motorInertiaKgM2.default),
+  // Its own wording: "(vertical)" says what the upper end is.
+  inclineDeg: atLeast(FIELD_BOUNDS.inclineDeg.min)
+    .max(FIELD_BOUNDS.inclineDeg.max, `must be at most ${FIELD_BOUNDS.inclineDeg.max} (vertical)`)
+    .default(M.inclineDeg.default),
+  frictionCoeff: numberField(M.frictionCoeff),
+  externalForceN: numberField(M.externalForceN),
+  externalTorqueNm: torqueField(M.externalTorqueNm),
+  stroke: numberField(M.stroke),
+  moveTimeS: numberField(M.moveTimeS),
+  accelSharePct: numberField(M.accelSharePct),
+  dwellTimeS: numberField(M.dwellTimeS),
+  returnMove: presence(bool(), M.returnMove),
+  energizedPct: numberField(M.energizedPct),
+  maxInertiaRatio: numberField(M.maxInertiaRatio),
 });
 
 /** The radius or lead each mechanism needs; checks the types it relies on. */
@@ -151,31 +161,31 @@ function checkMotion(motion: unknown, ctx: z.RefinementCtx): void {
 }
 
 const dutySchema = obj({
-  hoursPerYear: bounded("hoursPerYear"),
+  hoursPerYear: numberField(A.hoursPerYear),
   // Required unless motion supplies them (checkAxisDuty); ignored when motion is given.
-  movePct: pct().optional(),
-  holdPct: pct().optional(),
-  speedRpm: bounded("speedRpm").optional(),
-  loadTorqueNm: torque().optional(),
-  peakTorqueNm: torque().optional(),
-  holdTorqueNm: torque().default(0),
-  ambientC: bounded("ambientC").default(40),
+  movePct: numberField(A.movePct).optional(),
+  holdPct: numberField(A.holdPct).optional(),
+  speedRpm: numberField(A.speedRpm).optional(),
+  loadTorqueNm: torqueField(A.loadTorqueNm).optional(),
+  peakTorqueNm: torqueField(A.peakTorqueNm).optional(),
+  holdTorqueNm: torqueField(A.holdTorqueNm),
+  ambientC: numberField(A.ambientC),
   motion: motionInputSchema.superRefine(checkMotion, { when: () => true }).optional(),
 });
 
 /** docs/model.md (The business case): the cost of one step-loss event, built up from what it causes. */
 export const stepLossEventSchema = obj({
-  downtimeMinutes: bounded("downtimeMinutes").default(0),
-  scrapParts: bounded("scrapParts").default(0),
-  scrapCostPerPart: money().default("0"),
-  restartLaborHours: bounded("restartLaborHours").default(0),
+  downtimeMinutes: numberField(E.downtimeMinutes),
+  scrapParts: numberField(E.scrapParts),
+  scrapCostPerPart: moneyField(E.scrapCostPerPart),
+  restartLaborHours: numberField(E.restartLaborHours),
 });
 
 const reliabilitySchema = obj({
-  stepLossEventsPerYear: bounded("stepLossEventsPerYear").default(0),
+  stepLossEventsPerYear: numberField(A.stepLossEventsPerYear),
   // Absent = 0, or built from `event`; giving both is refused (checkReliability).
   costPerEvent: money().optional(),
-  avoidedPct: pct().default(90),
+  avoidedPct: numberField(A.avoidedPct),
   event: stepLossEventSchema.optional(),
 }).superRefine((r, ctx) => {
   if (r.costPerEvent !== undefined && r.event !== undefined)
@@ -199,7 +209,9 @@ const axisObject = obj({
   id: id(),
   label: text(),
   machineId: id(),
-  quantity: boundedInt("quantity").default(1),
+  quantity: numberField(A.quantity),
+  // The registry's optional text fields of an axis (its asset tag): carried, never computed with.
+  ...optionalTextShape(A),
   motor: motorInputSchema,
   drive: driveSchema,
   duty: dutySchema,

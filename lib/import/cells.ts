@@ -115,10 +115,11 @@ export function parseCell(
   switch (field.type) {
     case "text": {
       const value = text.replace(/\s+/g, " ");
-      if (value.length > MAX_NAME_LENGTH) {
+      const maxLength = field.maxLength ?? MAX_NAME_LENGTH;
+      if (value.length > maxLength) {
         return {
           ok: false,
-          message: `is ${value.length} characters long; shorten ${entering(field, "")} to at most ${MAX_NAME_LENGTH} characters`,
+          message: `is ${value.length} characters long; shorten ${entering(field, "")} to at most ${maxLength} characters`,
         };
       }
       return { ok: true, value };

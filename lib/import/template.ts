@@ -6,29 +6,27 @@ import { supportedUnits } from "./units";
 
 type Example = Record<ImportFieldKey, number | string>;
 
-/** An invented axis of NEMA 23 class, in the template's (SI) units; blank = left to its default. */
+/** Each column's default as the example rows show it (lib/fields), "" where there is none. */
+const DEFAULTS = Object.fromEntries(IMPORT_FIELDS.map((f) => [f.key, f.default ?? ""])) as Example;
+
+/**
+ * An invented axis of NEMA 23 class, in the template's (SI) units; where it has a field's
+ * default the registry's value is written out, so that the example shows it.
+ */
 const TYPED_EXAMPLE: Example = {
+  ...DEFAULTS,
   machine: "Carton erector 2",
   label: "X feed",
   quantity: 2,
-  rotorTeeth: 50,
   holdingTorqueNm: 1.26,
   ratedCurrentA: 2.8,
   phaseResistanceOhm: 0.9,
   phaseInductanceMh: 2.5,
   thermalResistanceKPerW: "",
-  ratedTempRiseK: 80,
-  insulationClass: "B",
   hysteresisWPerHz: 0.002,
   eddyWPerHz2: 0.000002,
   busVoltageV: 48,
   currentSettingA: 2.8,
-  currentConvention: "peak",
-  stepMode: "micro",
-  microsteps: 16,
-  idleCurrentPct: 50,
-  driveEfficiencyPct: 90,
-  driveStandbyW: 2,
   hoursPerYear: 4000,
   movePct: 40,
   holdPct: 35,
@@ -39,7 +37,6 @@ const TYPED_EXAMPLE: Example = {
   ambientC: 35,
   stepLossEventsPerYear: 3,
   costPerEvent: "250.00",
-  avoidedPct: 90,
   "motion.mechanism": "",
   "motion.radiusMm": "",
   "motion.leadMm": "",
@@ -74,7 +71,7 @@ const TYPED_EXAMPLE: Example = {
 const MOTION_EXAMPLE: Example = {
   ...TYPED_EXAMPLE,
   label: "Z lift",
-  quantity: 1,
+  quantity: DEFAULTS.quantity,
   holdTorqueNm: "",
   movePct: "",
   holdPct: "",

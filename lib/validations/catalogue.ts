@@ -1,14 +1,15 @@
 import { z } from "zod";
 import { idSchema } from "@/lib/validations/ids";
 import {
-  bounded,
-  boundedInt,
-  choice,
+  choiceField,
   holdingTorque,
   int,
   money,
-  pct,
+  numberField,
+  presence,
+  ranged,
 } from "@/lib/engine/schema-fields";
+import { AXIS_FIELDS as A, KIT_FIELDS as K } from "@/lib/fields";
 
 const optional = <T extends z.ZodType>(schema: T) =>
   z.preprocess((v) => (v === "" || v === undefined ? null : v), schema.nullable());
@@ -28,16 +29,17 @@ export const motorInputSchema = z.object({
   code,
   name,
   frameSize: int(8, 60),
-  rotorTeeth: boundedInt("rotorTeeth").default(50),
-  holdingTorqueNm: holdingTorque(),
-  ratedCurrentA: bounded("ratedCurrentA"),
-  phaseResistanceOhm: bounded("phaseResistanceOhm"),
-  phaseInductanceMh: bounded("phaseInductanceMh"), // docs/model.md (Torque at speed): the engine needs L > 0
-  thermalResistanceKPerW: optional(bounded("thermalResistanceKPerW")),
-  ratedTempRiseK: bounded("ratedTempRiseK").default(80),
-  insulationClass: choice(["B", "F", "H"]).default("B"),
-  hysteresisWPerHz: bounded("hysteresisWPerHz").default(0),
-  eddyWPerHz2: bounded("eddyWPerHz2").default(0),
+  // A catalogue motor carries the motor fields of an axis (lib/fields/axis.ts), as the engine reads them.
+  rotorTeeth: numberField(A.rotorTeeth),
+  holdingTorqueNm: presence(holdingTorque(), A.holdingTorqueNm),
+  ratedCurrentA: numberField(A.ratedCurrentA),
+  phaseResistanceOhm: numberField(A.phaseResistanceOhm),
+  phaseInductanceMh: numberField(A.phaseInductanceMh), // docs/model.md (Torque at speed): the engine needs L > 0
+  thermalResistanceKPerW: optional(ranged(A.thermalResistanceKPerW.range)),
+  ratedTempRiseK: numberField(A.ratedTempRiseK),
+  insulationClass: choiceField(A.insulationClass),
+  hysteresisWPerHz: numberField(A.hysteresisWPerHz),
+  eddyWPerHz2: numberField(A.eddyWPerHz2),
 });
 
 export const kitInputSchema = z.object({
@@ -49,15 +51,16 @@ export const kitInputSchema = z.object({
     .trim()
     .toUpperCase()
     .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
-  sensing: choice(["encoder", "sensorless"]).default("encoder"),
+  // The kit fields of the registry (lib/fields/kit.ts); an empty box of an optional one is null.
+  sensing: choiceField(K.sensing),
   motorId: optional(idSchema()),
-  maxCurrentPeakA: optional(bounded("maxCurrentPeakA")),
-  busVoltageV: optional(bounded("busVoltageV")),
-  efficiencyPct: bounded("efficiencyPct").default(92),
-  standbyW: bounded("standbyW").default(3),
-  encoderW: optional(bounded("standbyW")),
-  minCurrentPct: pct().default(10),
-  sensorlessMinRpm: bounded("speedRpm").default(60),
+  maxCurrentPeakA: optional(ranged(K.maxCurrentPeakA.range)),
+  busVoltageV: optional(ranged(K.busVoltageV.range)),
+  efficiencyPct: numberField(K.efficiencyPct),
+  standbyW: numberField(K.standbyW),
+  encoderW: optional(ranged(K.encoderW.range)),
+  minCurrentPct: numberField(K.minCurrentPct),
+  sensorlessMinRpm: numberField(K.sensorlessMinRpm),
 });
 
 export type MotorCatalogueInput = z.infer<typeof motorInputSchema>;

@@ -2,21 +2,19 @@ import { z } from "zod";
 import { idSchema } from "@/lib/validations/ids";
 import {
   bounded,
-  boundedInt,
-  choice,
-  holdingTorque,
   money,
+  formShape,
+  numberField,
   pct,
-  torque,
+  torqueField,
 } from "@/lib/engine/schema-fields";
+import { AXIS_FIELDS } from "@/lib/fields";
 import { axisInputSchema as engineAxisSchema, stepLossEventSchema } from "@/lib/engine/schema";
 
 // Shared by the forms, the server actions, the API and the importer. Values are stored in SI
 // units; torque fields also take { value, unit } and are converted by the NIST SP 811 factors.
 const name = (what: string) =>
   z.string().trim().min(1, `Enter the ${what}`).max(120, "Keep it under 120 characters");
-const optionalNumber = <T extends z.ZodType>(schema: T) =>
-  z.preprocess((v) => (v === "" || v === undefined ? null : v), schema.nullable());
 
 export const siteInputSchema = z.object({
   name: name("site name"),
@@ -27,8 +25,9 @@ export const siteInputSchema = z.object({
     .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
   tariffPerKWh: money(),
   gridKgCo2PerKWh: bounded("gridKgCo2PerKWh").default(0),
-  ambientC: bounded("ambientC").default(40),
-  hoursPerYear: bounded("hoursPerYear"),
+  // The site's ambient and hours are the defaults of its axes' fields of the same name.
+  ambientC: numberField(AXIS_FIELDS.ambientC),
+  hoursPerYear: numberField(AXIS_FIELDS.hoursPerYear),
 });
 
 export const machineInputSchema = z.object({
@@ -44,43 +43,11 @@ export const machineInputSchema = z.object({
   marginPerOutputHour: money().default("0"),
 });
 
-export const axisFieldsSchema = z.object({
-  label: name("axis label"),
-  quantity: boundedInt("quantity").default(1),
-  // motor (datasheet values); bounds are the engine's (FIELD_BOUNDS), never restated here
-  rotorTeeth: boundedInt("rotorTeeth").default(50),
-  holdingTorqueNm: holdingTorque(),
-  ratedCurrentA: bounded("ratedCurrentA"),
-  phaseResistanceOhm: bounded("phaseResistanceOhm"),
-  phaseInductanceMh: bounded("phaseInductanceMh"), // docs/model.md (Torque at speed): the engine needs L > 0
-  thermalResistanceKPerW: optionalNumber(bounded("thermalResistanceKPerW")),
-  ratedTempRiseK: bounded("ratedTempRiseK").default(80),
-  insulationClass: choice(["B", "F", "H"]).default("B"),
-  hysteresisWPerHz: bounded("hysteresisWPerHz").default(0),
-  eddyWPerHz2: bounded("eddyWPerHz2").default(0),
-  // drive (as set today)
-  busVoltageV: bounded("busVoltageV"),
-  currentSettingA: bounded("currentSettingA"),
-  currentConvention: choice(["peak", "rms"]).default("peak"),
-  stepMode: choice(["full", "half", "half-compensated", "micro"]).default("micro"),
-  microsteps: boundedInt("microsteps").default(16),
-  idleCurrentPct: pct().default(50),
-  driveEfficiencyPct: bounded("efficiencyPct").default(90),
-  driveStandbyW: bounded("standbyW").default(2),
-  // duty
-  hoursPerYear: bounded("hoursPerYear"),
-  movePct: pct(),
-  holdPct: pct(),
-  speedRpm: bounded("speedRpm"),
-  loadTorqueNm: torque(),
-  peakTorqueNm: torque(),
-  holdTorqueNm: torque().default(0),
-  ambientC: bounded("ambientC").default(40),
-  // reliability
-  stepLossEventsPerYear: bounded("stepLossEventsPerYear").default(0),
-  costPerEvent: money().default("0"),
-  avoidedPct: pct().default(90),
-});
+const A = AXIS_FIELDS;
+
+// Built from the registry (lib/fields/axis.ts): every axis field with its range, choices and
+// default, so that a field added there is on the form and the API with no edit here.
+export const axisFieldsSchema = z.object(formShape(A));
 
 export function checkAxisConsistency(
   a: { movePct: number; holdPct: number; loadTorqueNm: number; peakTorqueNm: number },
@@ -129,11 +96,11 @@ const MOTION_SUPPLIED = ["movePct", "holdPct", "speedRpm", "loadTorqueNm", "peak
 export const axisApiSchema = axisFieldsSchema
   .extend({
     machineId: idSchema(),
-    movePct: pct().optional(),
-    holdPct: pct().optional(),
-    speedRpm: bounded("speedRpm").optional(),
-    loadTorqueNm: torque().optional(),
-    peakTorqueNm: torque().optional(),
+    movePct: numberField(A.movePct).optional(),
+    holdPct: numberField(A.holdPct).optional(),
+    speedRpm: numberField(A.speedRpm).optional(),
+    loadTorqueNm: torqueField(A.loadTorqueNm).optional(),
+    peakTorqueNm: torqueField(A.peakTorqueNm).optional(),
     // Absent = "0", or built from `event`; both at once is refused, as the engine does.
     costPerEvent: money().optional(),
     motion: motionSchema.nullable().optional(),

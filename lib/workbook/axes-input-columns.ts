@@ -1,4 +1,16 @@
+import type ExcelJS from "exceljs";
 import type { MotionResult, ParsedMotor } from "@/lib/engine";
+import {
+  AXIS_FIELDS,
+  EVENT_FIELDS,
+  KIT_FIELDS,
+  labelWithUnit,
+  type AxisFieldGroup,
+  type AxisFieldKey,
+  type AxisFieldSpec,
+  type EventFieldKey,
+  type FieldSpec,
+} from "@/lib/fields";
 import { eventCostValue, money, type AxisColumn, type AxisRowContext } from "./axis-column";
 import { FORMATS } from "./formats";
 import { NAME } from "./layout";
@@ -27,10 +39,145 @@ function curveText(motor: ParsedMotor): string {
   return motor.pullOutCurve.map((p) => `${p.rpm} rpm: ${p.torqueNm} N·m`).join("; ");
 }
 
-/** The inputs of each axis, in SI units (inductance in H; speeds in rpm as docs/model.md takes them). */
+const A = AXIS_FIELDS;
+
+/** The header of a field's column: its registry label with its unit, "Idle current (%)". */
+export const sheetHeader = (spec: FieldSpec, unit = spec.unit) =>
+  labelWithUnit({ label: spec.label, unit }, "()");
+
+const GROUP_TITLE: Record<AxisFieldGroup, string> = {
+  axis: "Axis",
+  motor: "Motor",
+  drive: "Drive today",
+  duty: "Duty",
+  reliability: "Reliability",
+};
+
+// The sheet's own keys of the fields (its formulas name them through `cell(key)`).
+const KEY_OF: Partial<Record<AxisFieldKey, string>> = {
+  quantity: "qty",
+  rotorTeeth: "teeth",
+  holdingTorqueNm: "holding",
+  ratedCurrentA: "ratedA",
+  phaseResistanceOhm: "r20",
+  phaseInductanceMh: "inductance",
+  thermalResistanceKPerW: "rth",
+  ratedTempRiseK: "rise",
+  insulationClass: "class",
+  hysteresisWPerHz: "kh",
+  eddyWPerHz2: "ke",
+  busVoltageV: "busV",
+  currentSettingA: "setA",
+  currentConvention: "convention",
+  microsteps: "microsteps",
+  idleCurrentPct: "idle",
+  driveEfficiencyPct: "driveEff",
+  driveStandbyW: "driveStandby",
+  hoursPerYear: "hours",
+  movePct: "move",
+  holdPct: "hold",
+  speedRpm: "rpm",
+  loadTorqueNm: "load",
+  peakTorqueNm: "peak",
+  holdTorqueNm: "holdTorque",
+  ambientC: "ambient",
+  stepLossEventsPerYear: "events",
+  costPerEvent: "eventCostGiven",
+  avoidedPct: "avoided",
+};
+
+const SHEET_FORMAT: Record<NonNullable<FieldSpec["sheetFormat"]>, string> = {
+  whole: FORMATS.whole,
+  physics: FORMATS.physics,
+  fine: FORMATS.fine,
+  pct: FORMATS.pct,
+  pct2: FORMATS.pct2,
+  currency: "currency",
+  sci: "0.000E+00",
+};
+
+/** The value an axis field takes in the engine's parsed axis (its group object, its engine name). */
+function parsedValue(r: AxisRowContext, key: AxisFieldKey): ExcelJS.CellValue {
+  const spec: AxisFieldSpec = A[key];
+  const name = spec.engineKey ?? key;
+  const holder = spec.group === "axis" ? r.axis : (r.axis[spec.group] as object);
+  const value = (holder as Record<string, unknown>)[name];
+  if (value === undefined || value === null) return null;
+  if (spec.kind === "money") return money(String(value));
+  return spec.kind === "text" ? safeText(String(value)) : (value as ExcelJS.CellValue);
+}
+
+// Fields whose cell is not the parsed value as it stands.
+const VALUE_OF: Partial<Record<AxisFieldKey, (r: AxisRowContext) => ExcelJS.CellValue>> = {
+  phaseInductanceMh: (r) => r.axis.motor.phaseInductanceMh / 1000,
+  thermalResistanceKPerW: (r) => r.axis.motor.thermalResistanceKPerW ?? "from rated rise",
+  movePct: (r) => dutyFigure(r, "movePct"),
+  holdPct: (r) => dutyFigure(r, "holdPct"),
+  speedRpm: (r) => dutyFigure(r, "speedRpm"),
+  loadTorqueNm: (r) => dutyFigure(r, "loadTorqueNm"),
+  peakTorqueNm: (r) => dutyFigure(r, "peakTorqueNm"),
+  holdTorqueNm: (r) => dutyFigure(r, "holdTorqueNm"),
+  costPerEvent: (r) => money(r.axis.reliability.costPerEvent ?? "0"),
+};
+
+// The workbook gives inductance in H (SI), the registry in mH as datasheets do.
+const HEADER_OF: Partial<Record<AxisFieldKey, string>> = {
+  phaseInductanceMh: sheetHeader(A.phaseInductanceMh, "H"),
+  costPerEvent: `${A.costPerEvent.label}, as given`,
+};
+
+/** The Axes sheet column of a registry field: header, width and format from lib/fields/axis.ts. */
+function fieldColumn(key: AxisFieldKey): AxisColumn {
+  const spec: AxisFieldSpec = A[key];
+  return {
+    key: KEY_OF[key] ?? key,
+    group: GROUP_TITLE[spec.group],
+    header: HEADER_OF[key] ?? sheetHeader(spec),
+    width: spec.sheetWidth ?? 12,
+    ...(spec.sheetFormat ? { format: SHEET_FORMAT[spec.sheetFormat] } : {}),
+    value: VALUE_OF[key] ?? ((r) => parsedValue(r, key)),
+  };
+}
+
+const fieldsOf = (group: AxisFieldGroup, except: AxisFieldKey[] = []) =>
+  (Object.keys(A) as AxisFieldKey[])
+    .filter((key) => (A[key] as AxisFieldSpec).group === group && !except.includes(key))
+    .map(fieldColumn);
+
+// The step-loss event build-up (docs/model.md (The business case)): 0 when the axis has none.
+const EVENT_KEY: Record<EventFieldKey, string> = {
+  downtimeMinutes: "eventDowntime",
+  scrapParts: "eventScrapParts",
+  scrapCostPerPart: "eventScrapCost",
+  restartLaborHours: "eventRestartHours",
+};
+const EVENT_WIDTH: Record<EventFieldKey, number> = {
+  downtimeMinutes: 10,
+  scrapParts: 10,
+  scrapCostPerPart: 12,
+  restartLaborHours: 10,
+};
+const eventColumns = (Object.keys(EVENT_FIELDS) as EventFieldKey[]).map((key): AxisColumn => ({
+  key: EVENT_KEY[key],
+  group: GROUP_TITLE.reliability,
+  header: sheetHeader(EVENT_FIELDS[key]),
+  width: EVENT_WIDTH[key],
+  format: EVENT_FIELDS[key].kind === "money" ? "currency" : FORMATS.pct2,
+  value: (r) => {
+    const event = r.axis.reliability.event;
+    const value = event?.[key] ?? EVENT_FIELDS[key].default;
+    return typeof value === "string" ? money(value) : value;
+  },
+}));
+
+/**
+ * The inputs of each axis, in SI units (inductance in H; speeds in rpm as docs/model.md takes
+ * them). Every axis field of the registry has its column, in registry order within its group;
+ * a field added there appears here with no other edit.
+ */
 export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
   { key: "id", group: "Axis", header: "Axis id", width: 14, value: (r) => safeText(r.axis.id) },
-  { key: "label", group: "Axis", header: "Label", width: 28, value: (r) => safeText(r.axis.label) },
+  fieldColumn("label"),
   {
     key: "machine",
     group: "Axis",
@@ -45,94 +192,8 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     width: 22,
     value: (r) => safeText(r.machineName),
   },
-  {
-    key: "qty",
-    group: "Axis",
-    header: "Quantity",
-    width: 9,
-    format: FORMATS.whole,
-    value: (r) => r.axis.quantity,
-  },
-
-  {
-    key: "teeth",
-    group: "Motor",
-    header: "Rotor teeth",
-    width: 8,
-    format: FORMATS.whole,
-    value: (r) => r.axis.motor.rotorTeeth,
-  },
-  {
-    key: "holding",
-    group: "Motor",
-    header: "Holding torque (N·m)",
-    width: 10,
-    format: FORMATS.physics,
-    value: (r) => r.axis.motor.holdingTorqueNm,
-  },
-  {
-    key: "ratedA",
-    group: "Motor",
-    header: "Rated current (A)",
-    width: 9,
-    format: FORMATS.physics,
-    value: (r) => r.axis.motor.ratedCurrentA,
-  },
-  {
-    key: "r20",
-    group: "Motor",
-    header: "Phase resistance at 20 °C (Ω)",
-    width: 11,
-    format: FORMATS.physics,
-    value: (r) => r.axis.motor.phaseResistanceOhm,
-  },
-  {
-    key: "inductance",
-    group: "Motor",
-    header: "Phase inductance (H)",
-    width: 11,
-    format: FORMATS.fine,
-    value: (r) => r.axis.motor.phaseInductanceMh / 1000,
-  },
-  {
-    key: "rth",
-    group: "Motor",
-    header: "Thermal resistance (K/W)",
-    width: 11,
-    format: FORMATS.physics,
-    value: (r) => r.axis.motor.thermalResistanceKPerW ?? "from rated rise",
-  },
-  {
-    key: "rise",
-    group: "Motor",
-    header: "Rated temperature rise (K)",
-    width: 10,
-    format: FORMATS.pct,
-    value: (r) => r.axis.motor.ratedTempRiseK,
-  },
-  {
-    key: "class",
-    group: "Motor",
-    header: "Insulation class",
-    width: 9,
-    value: (r) => r.axis.motor.insulationClass,
-  },
-  {
-    key: "kh",
-    group: "Motor",
-    header: "Hysteresis loss (W/Hz)",
-    width: 10,
-    format: FORMATS.fine,
-    value: (r) => r.axis.motor.hysteresisWPerHz,
-  },
-  {
-    key: "ke",
-    group: "Motor",
-    header: "Eddy loss (W/Hz²)",
-    width: 10,
-    format: "0.000E+00",
-    value: (r) => r.axis.motor.eddyWPerHz2,
-  },
+  ...fieldsOf("axis", ["label"]),
+  ...fieldsOf("motor"),
   {
     key: "curve",
     group: "Motor",
@@ -140,184 +201,11 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
     width: 24,
     value: (r) => safeText(curveText(r.axis.motor)),
   },
-
-  {
-    key: "busV",
-    group: "Drive today",
-    header: "Bus voltage (V)",
-    width: 9,
-    format: FORMATS.pct,
-    value: (r) => r.axis.drive.busVoltageV,
-  },
-  {
-    key: "setA",
-    group: "Drive today",
-    header: "Current setting (A)",
-    width: 9,
-    format: FORMATS.physics,
-    value: (r) => r.axis.drive.currentSettingA,
-  },
-  {
-    key: "convention",
-    group: "Drive today",
-    header: "Current convention",
-    width: 10,
-    value: (r) => r.axis.drive.currentConvention,
-  },
-  {
-    key: "stepMode",
-    group: "Drive today",
-    header: "Step mode",
-    width: 12,
-    value: (r) => r.axis.drive.stepMode,
-  },
-  {
-    key: "microsteps",
-    group: "Drive today",
-    header: "Microsteps",
-    width: 9,
-    format: FORMATS.whole,
-    value: (r) => r.axis.drive.microsteps,
-  },
-  {
-    key: "idle",
-    group: "Drive today",
-    header: "Idle current (%)",
-    width: 9,
-    format: FORMATS.pct,
-    value: (r) => r.axis.drive.idleCurrentPct,
-  },
-  {
-    key: "driveEff",
-    group: "Drive today",
-    header: "Efficiency (%)",
-    width: 9,
-    format: FORMATS.pct,
-    value: (r) => r.axis.drive.efficiencyPct,
-  },
-  {
-    key: "driveStandby",
-    group: "Drive today",
-    header: "Standby (W)",
-    width: 9,
-    format: FORMATS.pct2,
-    value: (r) => r.axis.drive.standbyW,
-  },
-
-  {
-    key: "hours",
-    group: "Duty",
-    header: "Hours per year",
-    width: 9,
-    format: FORMATS.whole,
-    value: (r) => r.axis.duty.hoursPerYear,
-  },
-  {
-    key: "move",
-    group: "Duty",
-    header: "Moving (%)",
-    width: 8,
-    format: FORMATS.pct,
-    value: (r) => dutyFigure(r, "movePct"),
-  },
-  {
-    key: "hold",
-    group: "Duty",
-    header: "Holding (%)",
-    width: 8,
-    format: FORMATS.pct,
-    value: (r) => dutyFigure(r, "holdPct"),
-  },
-  {
-    key: "rpm",
-    group: "Duty",
-    header: "Speed (rpm)",
-    width: 9,
-    format: FORMATS.pct,
-    value: (r) => dutyFigure(r, "speedRpm"),
-  },
-  {
-    key: "load",
-    group: "Duty",
-    header: "Load torque, RMS (N·m)",
-    width: 10,
-    format: FORMATS.physics,
-    value: (r) => dutyFigure(r, "loadTorqueNm"),
-  },
-  {
-    key: "peak",
-    group: "Duty",
-    header: "Peak torque (N·m)",
-    width: 10,
-    format: FORMATS.physics,
-    value: (r) => dutyFigure(r, "peakTorqueNm"),
-  },
-  {
-    key: "holdTorque",
-    group: "Duty",
-    header: "Holding load (N·m)",
-    width: 10,
-    format: FORMATS.physics,
-    value: (r) => dutyFigure(r, "holdTorqueNm"),
-  },
-  {
-    key: "ambient",
-    group: "Duty",
-    header: "Ambient (°C)",
-    width: 9,
-    format: FORMATS.pct,
-    value: (r) => r.axis.duty.ambientC,
-  },
-
-  {
-    key: "events",
-    group: "Reliability",
-    header: "Step-loss events per year",
-    width: 10,
-    format: FORMATS.pct2,
-    value: (r) => r.axis.reliability.stepLossEventsPerYear,
-  },
-  {
-    key: "eventCostGiven",
-    group: "Reliability",
-    header: "Cost per event, as given",
-    width: 13,
-    format: "currency",
-    value: (r) => money(r.axis.reliability.costPerEvent ?? "0"),
-  },
+  ...fieldsOf("drive"),
+  ...fieldsOf("duty"),
+  ...fieldsOf("reliability", ["avoidedPct"]),
   // docs/model.md (The business case): or the cost built from what one event causes (not both).
-  {
-    key: "eventDowntime",
-    group: "Reliability",
-    header: "Event: downtime (min)",
-    width: 10,
-    format: FORMATS.pct2,
-    value: (r) => r.axis.reliability.event?.downtimeMinutes ?? 0,
-  },
-  {
-    key: "eventScrapParts",
-    group: "Reliability",
-    header: "Event: scrapped parts",
-    width: 10,
-    format: FORMATS.pct2,
-    value: (r) => r.axis.reliability.event?.scrapParts ?? 0,
-  },
-  {
-    key: "eventScrapCost",
-    group: "Reliability",
-    header: "Event: cost per scrapped part",
-    width: 12,
-    format: "currency",
-    value: (r) => money(r.axis.reliability.event?.scrapCostPerPart ?? "0"),
-  },
-  {
-    key: "eventRestartHours",
-    group: "Reliability",
-    header: "Event: restart labour (h)",
-    width: 10,
-    format: FORMATS.pct2,
-    value: (r) => r.axis.reliability.event?.restartLaborHours ?? 0,
-  },
+  ...eventColumns,
   {
     key: "eventCost",
     group: "Reliability",
@@ -329,14 +217,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
       result: eventCostValue(r),
     }),
   },
-  {
-    key: "avoided",
-    group: "Reliability",
-    header: "Events avoided closed loop (%)",
-    width: 10,
-    format: FORMATS.pct,
-    value: (r) => r.axis.reliability.avoidedPct,
-  },
+  fieldColumn("avoidedPct"),
 
   {
     key: "kitId",
@@ -355,7 +236,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
   {
     key: "sensing",
     group: "Retrofit",
-    header: "Sensing",
+    header: sheetHeader(KIT_FIELDS.sensing),
     width: 11,
     value: (r) => r.axis.retrofit.kit.sensing,
   },
@@ -369,7 +250,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
   {
     key: "kitMaxA",
     group: "Retrofit",
-    header: "Kit peak current (A)",
+    header: sheetHeader(KIT_FIELDS.maxCurrentPeakA),
     width: 10,
     format: FORMATS.physics,
     value: (r) => r.axis.retrofit.kit.maxCurrentPeakA ?? "√2 × rated",
@@ -377,7 +258,7 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
   {
     key: "kitBusV",
     group: "Retrofit",
-    header: "Kit bus voltage (V)",
+    header: sheetHeader(KIT_FIELDS.busVoltageV),
     width: 10,
     format: FORMATS.pct,
     value: (r) => r.axis.retrofit.kit.busVoltageV ?? "as today",

@@ -116,6 +116,18 @@ describe("editing the installed base", () => {
     expect(row.siteId).toBe(site.id);
   });
 
+  it("keeps an axis's asset tag, a field added through the registry only, and drops an empty one", () => {
+    const machine = listMachines(engineer(), siteOf("Cartonia Packaging Plant").id)[0];
+    const typed = axisInputSchema.parse({ ...axisValues(machine.id), assetTag: " MX-0042 " });
+    const tagged = createAxis(engineer(), typed);
+    expect(getAxisOrThrow(engineer(), tagged.id).assetTag).toBe("MX-0042");
+    const blank = axisInputSchema.parse({ ...axisValues(machine.id), assetTag: "" });
+    expect(createAxis(engineer(), blank).assetTag).toBeNull();
+    expect(
+      axisInputSchema.safeParse({ ...axisValues(machine.id), assetTag: "T".repeat(41) }).success,
+    ).toBe(false);
+  });
+
   it("refuses a second site of the same name in one account", () => {
     const site = siteOf("Webline Print Finishing");
     const input = siteInputSchema.parse({

@@ -67,7 +67,7 @@ describe("faults.csv: faults in several rows and columns, each at its spreadshee
         row: 3,
         column: "Step mode",
         message:
-          '"quarter" is not a valid step mode; must be one of micro, full, half, half-compensated',
+          '"quarter" is not a valid step mode; must be one of full, half, half-compensated, micro',
       },
       {
         row: 4,

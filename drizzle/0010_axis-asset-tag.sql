@@ -1,0 +1,1 @@
+ALTER TABLE `axes` ADD `asset_tag` text;
