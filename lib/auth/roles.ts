@@ -18,7 +18,5 @@ export function homeFor(role: Role): string {
   }
 }
 
-// The role names in words live in the glossary; re-exported for the existing importers. From the
-// file itself, not the glossary's index: through the index, `next build` (Turbopack 16.4) never
-// finished (over 10 minutes at full CPU), and it builds in half a minute this way.
-export { ROLE_LABELS } from "@/lib/glossary/roles";
+// The role names in words live in the glossary; re-exported for the existing importers.
+export { ROLE_LABELS } from "@/lib/glossary";

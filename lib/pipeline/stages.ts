@@ -1,5 +1,4 @@
-// From the file, not the glossary's index (see lib/auth/roles.ts: the build hangs otherwise).
-import { QUOTE_STAGE_LABELS } from "../glossary/stages";
+import { QUOTE_STAGE_LABELS } from "../glossary";
 
 // Where a proposal stands with the customer, in Loopshift's own words (labels below).
 // "replaced" is an open version that a newer frozen version of the same case took over from.
