@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
-import type { ProposalSummary } from "@/db/queries/cases";
+import type { ProposalSummary } from "@/db/queries/proposal-versions";
 import { Table, Td, Th } from "@/components/ui/table";
 import { formatMoney, formatPayback } from "@/lib/results/format";
 import { FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";

@@ -21,7 +21,7 @@ import {
   type UncertaintySettings,
 } from "@/lib/validations/dossier";
 import { recordAudit } from "./audit";
-import { getProposalOrThrow, proposalWithCaseQuery } from "./cases";
+import { getProposalOrThrow, proposalWithCaseQuery } from "./proposal-versions";
 import { proposalScope } from "./proposals";
 
 const PRICE_KEY = "dossier.price";

@@ -11,7 +11,7 @@ import {
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { NotFoundError } from "@/lib/errors";
 import { recordAudit } from "./audit";
-import { getProposalOrThrow } from "./cases";
+import { getProposalOrThrow } from "./proposal-versions";
 
 export function recordCheckoutSession(
   caller: SessionUser,

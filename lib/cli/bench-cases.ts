@@ -75,7 +75,8 @@ async function main() {
   prepareDatabase(process.env.DATABASE_PATH!);
   const { db } = await import("../../db");
   const { axes, sites } = await import("../../db/schema");
-  const { createCase, setCaseAxes } = await import("../../db/queries/cases");
+  const { createCase } = await import("../../db/queries/cases");
+  const { setCaseAxes } = await import("../../db/queries/case-axes");
   const { findActiveUserById, findUserForSignIn } = await import("../../db/queries/users");
   const engineer = findActiveUserById(findUserForSignIn("engineer@example.com")!.id)!;
   const site = db.select().from(sites).where(eq(sites.name, "North hall")).get()!;

@@ -2,13 +2,8 @@
 import "server-only";
 
 import { revalidatePath } from "next/cache";
-import {
-  createCase,
-  setAxisRetrofit,
-  setCaseAxes,
-  suggestKitsForCase,
-  updateAssumptions,
-} from "@/db/queries/cases";
+import { createCase, updateAssumptions } from "@/db/queries/cases";
+import { setAxisRetrofit, setCaseAxes, suggestKitsForCase } from "@/db/queries/case-axes";
 import { freezeProposal } from "@/server/cases/freeze";
 import { runAction } from "@/server/actions/run";
 import { requireId } from "@/lib/validations/ids";

@@ -1,5 +1,6 @@
 import "server-only";
-import { getCaseOrThrow, storeProposalVersion } from "@/db/queries/cases";
+import { getCaseOrThrow } from "@/db/queries/cases";
+import { storeProposalVersion } from "@/db/queries/proposal-versions";
 import type { Proposal } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { evaluateCached } from "./results";

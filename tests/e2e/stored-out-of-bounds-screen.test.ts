@@ -72,7 +72,7 @@ describe("a case with a stored value outside the engine's bounds", () => {
     await page.getByText(/saved/i).first().waitFor();
 
     await page.goto(`${baseUrl()}/cases/${target.caseId}`);
-    await page.getByRole("article", { name: "Modelled physics" }).waitFor();
+    await page.getByRole("article", { name: "Engineering estimate" }).waitFor();
     expect(await panel.count()).toBe(0);
   });
 });

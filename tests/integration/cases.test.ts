@@ -6,15 +6,16 @@ import {
   buildCaseInput,
   createCase,
   getCaseOrThrow,
-  getProposalOrThrow,
-  listCaseAxes,
   listCases,
-  listProposals,
+  updateAssumptions,
+} from "@/db/queries/cases";
+import {
+  listCaseAxes,
   setAxisRetrofit,
   setCaseAxes,
   suggestKitsForCase,
-  updateAssumptions,
-} from "@/db/queries/cases";
+} from "@/db/queries/case-axes";
+import { getProposalOrThrow, listProposals } from "@/db/queries/proposal-versions";
 import { freezeProposal } from "@/server/cases/freeze";
 import { caseResult } from "@/server/cases/results";
 import { listKits, listMotors, saveKit } from "@/db/queries/catalogue";

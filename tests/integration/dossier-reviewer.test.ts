@@ -1,6 +1,7 @@
 import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { listCases, listProposals } from "@/db/queries/cases";
+import { listCases } from "@/db/queries/cases";
+import { listProposals } from "@/db/queries/proposal-versions";
 import {
   getDossierAccess,
   getDossierSettings,

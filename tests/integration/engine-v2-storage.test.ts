@@ -11,9 +11,9 @@ import {
   createCase,
   getCaseOrThrow,
   listCases,
-  setCaseAxes,
   updateAssumptions,
 } from "@/db/queries/cases";
+import { setCaseAxes } from "@/db/queries/case-axes";
 import { freezeProposal } from "@/server/cases/freeze";
 import { caseResult } from "@/server/cases/results";
 import { commitImport } from "@/db/queries/imports";

@@ -8,7 +8,8 @@ import {
   saveDossierSettings,
   setDossierPrice,
 } from "@/db/queries/dossiers";
-import { listProposals, listCases } from "@/db/queries/cases";
+import { listCases } from "@/db/queries/cases";
+import { listProposals } from "@/db/queries/proposal-versions";
 import { recordCheckoutSession } from "@/db/queries/payments";
 import { recordPaymentEvent } from "@/server/payments/record-event";
 import { dossierGrants, mailQueue, paymentEvents } from "@/db/schema";

@@ -2,13 +2,8 @@ import Decimal from "decimal.js";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { listAxesForExport } from "@/db/queries/axes";
-import {
-  createCase,
-  getCaseOrThrow,
-  setAxisRetrofit,
-  setCaseAxes,
-  listCaseAxes,
-} from "@/db/queries/cases";
+import { createCase, getCaseOrThrow } from "@/db/queries/cases";
+import { setAxisRetrofit, setCaseAxes, listCaseAxes } from "@/db/queries/case-axes";
 import { freezeProposal } from "@/server/cases/freeze";
 import { acceptInvitation, inspectInvitation } from "@/db/queries/invitations";
 import { listOutbox } from "@/db/queries/outbox";

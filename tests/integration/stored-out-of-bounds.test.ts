@@ -18,7 +18,9 @@ import { GET as caseWorkbookGet } from "@/app/api/v1/cases/[caseId]/workbook/rou
 import { GET as dossierGet } from "@/app/api/v1/proposals/[proposalId]/dossier/route";
 import { GET as proposalWorkbookGet } from "@/app/api/v1/proposals/[proposalId]/workbook/route";
 import { db } from "@/db";
-import { listCaseAxes, listCases, listProposals } from "@/db/queries/cases";
+import { listCases } from "@/db/queries/cases";
+import { listCaseAxes } from "@/db/queries/case-axes";
+import { listProposals } from "@/db/queries/proposal-versions";
 import { recordCheckoutSession } from "@/db/queries/payments";
 import { recordPaymentEvent } from "@/server/payments/record-event";
 import { openQuoteFor } from "@/db/queries/quote-open";

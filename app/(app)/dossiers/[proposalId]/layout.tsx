@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import { getProposalOrThrow } from "@/db/queries/cases";
+import { getProposalOrThrow } from "@/db/queries/proposal-versions";
 import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 import { VENDOR_ROLES } from "@/lib/auth/roles";

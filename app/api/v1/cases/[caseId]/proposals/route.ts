@@ -1,5 +1,5 @@
 import { NextResponse } from "next/server";
-import { listProposals } from "@/db/queries/cases";
+import { listProposals } from "@/db/queries/proposal-versions";
 import { freezeProposal } from "@/server/cases/freeze";
 import { withApi } from "@/server/api/handler";
 import { idFromRoute } from "@/lib/validations/ids";
