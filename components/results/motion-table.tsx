@@ -3,6 +3,7 @@ import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { namesById } from "@/lib/results/case-view";
 import { formatInertia, motionRows } from "@/lib/results/engine-v2";
+import { AXIS_FIELDS } from "@/lib/fields";
 import { formatNumber, formatPct } from "@/lib/results/format";
 
 /**
@@ -28,7 +29,7 @@ export function MotionTable({ result, input }: { result: CaseResult; input: Pars
             <Th className="text-right">Speed [rpm]</Th>
             <Th className="text-right">RMS torque [N·m]</Th>
             <Th className="text-right">Peak torque [N·m]</Th>
-            <Th className="text-right">Holding load [N·m]</Th>
+            <Th className="text-right">{AXIS_FIELDS.holdTorqueNm.label} [N·m]</Th>
             <Th className="text-right">Moving / holding</Th>
             <Th className="text-right">Mech. power [W]</Th>
             <Th className="text-right">Load inertia at motor</Th>

@@ -118,7 +118,7 @@ export function formatTariff(amount: string, currency: string): string {
 }
 
 export interface BreakEvenLine {
-  /** "Electricity tariff" / "Lost-step events". */
+  /** "Electricity tariff" / "Step-loss events". */
   term: string;
   /** The value, or the reason there is none. */
   value: string;
@@ -173,7 +173,7 @@ export function breakEvenLines(
   const eventsValued = positive(result.totals.reliabilityPerYear);
   if (stepLossFactor !== null && stepLossFactor > 0) {
     events = {
-      term: "Lost-step events",
+      term: "Step-loss events",
       value: `breaks even at ${formatFactor(stepLossFactor)} the step-loss events entered`,
       note:
         stepLossFactor <= 1
@@ -182,13 +182,13 @@ export function breakEvenLines(
     };
   } else if (eventsValued) {
     events = {
-      term: "Lost-step events",
+      term: "Step-loss events",
       value: "pays back without any avoided step-loss events",
       note: "The net present value is positive even when no step-loss event is avoided; the avoided events add to it.",
     };
   } else {
     events = {
-      term: "Lost-step events",
+      term: "Step-loss events",
       value: "no break-even count",
       note: npvPositive
         ? "No avoided step-loss events are counted for this case, and it pays back without them."
@@ -212,7 +212,7 @@ export function formatFactor(factor: number): string {
 export const VALUE_SOURCE_LABELS: Record<ValueSource, string> = {
   energy: "Drive energy",
   cooling: "Cabinet cooling",
-  reliability: "Lost steps avoided",
+  reliability: "Step-loss events avoided",
   maintenance: "Maintenance",
   throughput: "Added output",
   service: "Service of the closed loop",

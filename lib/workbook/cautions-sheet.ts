@@ -1,11 +1,12 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { AXIS_FIELDS } from "@/lib/fields";
 import { styleHeader, styleSection } from "./formats";
 import { safeText } from "./safe-text";
 import { CAUTION_CODES, GENERAL_CAUTIONS, axisCautionText } from "./warning-text";
 
 const CAUTION_TITLE: Record<(typeof CAUTION_CODES)[number], string> = {
-  HOLDING_LOAD: "Load at standstill",
+  HOLDING_LOAD: AXIS_FIELDS.holdTorqueNm.label,
   OL_WINDING_OVER_CLASS: "Winding above its insulation class today",
   CL_WINDING_OVER_CLASS: "Winding above its insulation class closed loop",
   OL_THERMAL_RUNAWAY: "No steady winding temperature today",

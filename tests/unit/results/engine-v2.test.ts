@@ -198,7 +198,7 @@ describe("value by source (docs/model.md (The business case))", () => {
     const table = valueBySource(s, "EUR")!;
     expect(table.rows.map((r) => r.label)).toEqual([
       "Drive energy",
-      "Lost steps avoided",
+      "Step-loss events avoided",
       "Service of the closed loop",
     ]);
     expect(table.rows[0].total).toBe("1600.00");

@@ -185,7 +185,9 @@ describe("proposal workbook structure (issue 5)", () => {
     expect(all).toContain("brake and a safe-stop");
     expect(all).toContain("not measurements");
     expect(all).toContain("estimates from the stated assumptions");
-    expect(texts.filter((t) => t[0] === "M1-Z" && t[2] === "Load at standstill")).toHaveLength(1);
+    expect(texts.filter((t) => t[0] === "M1-Z" && t[2] === "Standstill load torque")).toHaveLength(
+      1,
+    );
   });
 
   it("writes each axis's statuses, gains and warnings in words on the Axes sheet", async () => {
