@@ -104,7 +104,13 @@ describe("business cases over HTTP", () => {
     const both = (await (
       await request(engineer, `/api/v1/cases/${mine.id}/result?include=input`)
     ).json()) as { input: unknown; result: unknown };
-    expect(both.input).toEqual(found.input);
+    // Exactly the input the case's own GET gives (its raw JSON: `found` went through the
+    // engine's schema, which fills defaults such as a motion axis's standstill load).
+    const raw = (await (await request(engineer, `/api/v1/cases/${mine.id}`)).json()) as {
+      input: unknown;
+    };
+    expect(both.input).toEqual(raw.input);
+    expect(caseInputSchema.parse(both.input)).toEqual(found.input);
     expect(caseResultSchema.parse(both.result)).toEqual(result);
     const wrong = await request(engineer, `/api/v1/cases/${mine.id}/result?include=everything`);
     expect(wrong.status).toBe(422);
