@@ -139,7 +139,10 @@ export function largestTorqueCurrentA(m: TorqueModel, rpm: number): number {
   return best === -Infinity ? 0 : best;
 }
 
-/** T_m(n) = max(0, k1·max(0, i_q,max) − T_drag(n)) (docs/model.md (Torque at speed)). */
+/**
+ * Motor torque at speed n: k1 times the largest torque current the two discs allow (none when
+ * it is negative), less the iron-loss drag, and never below zero (docs/model.md (Torque at speed)).
+ */
 export function modelTorqueNm(m: TorqueModel, rpm: number): number {
   let torque = m.k1 * Math.max(0, largestTorqueCurrentA(m, rpm));
   if (rpm > 0 && m.hasIronLoss) {

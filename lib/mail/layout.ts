@@ -31,7 +31,7 @@ export type MailBlock =
   | { kind: "note"; text: string };
 
 export const SAFETY_LINE =
-  "Figures are estimates from datasheet values and the stated assumptions. Retrofit work is electrical work on machinery: isolate and lock out, qualified persons only, and follow local codes.";
+  "Figures are estimates from datasheet values and the stated assumptions. Converting an axis means working on live machine wiring: qualified persons only, with the machine isolated and locked out, under your local codes.";
 
 const FONT = "font-family:Lato,Segoe UI,Helvetica,Arial,sans-serif;";
 

@@ -57,20 +57,20 @@ export const GENERAL_CAUTIONS: readonly { topic: string; text: string }[] = [
   {
     topic: "Electrical work on machinery",
     text:
-      "Retrofit work is electrical work on machinery: isolate and lock out, qualified persons only, " +
-      "follow the machine's risk assessment and local electrical and machinery-safety codes.",
+      "Converting an axis means working on live machine wiring: isolate and lock out the machine, " +
+      "let only qualified people do it, and follow its risk assessment and the local electrical and machinery-safety codes.",
   },
   {
     topic: "Loads at standstill",
     text:
-      "Axes that hold a load at standstill (vertical, tensioned) need a brake and a safe-stop " +
-      "concept; a closed-loop drive faults on encoder loss — plan what the axis does then.",
+      "A vertical or tensioned axis holds its load at rest: it needs a brake and a safe-stop plan, " +
+      "since a closed-loop drive trips when it loses its encoder — decide what the axis then does.",
   },
   {
     topic: "Temperatures",
     text:
-      "Winding temperatures above the insulation class, and housings hot enough to burn on touch, " +
-      "are flagged; the figures are estimates from datasheet values, not measurements.",
+      "The sheets flag windings hotter than their insulation class and housings hot enough to burn " +
+      "a hand; every temperature here is estimated from datasheet values — not measurements.",
   },
   {
     topic: "Estimates",
