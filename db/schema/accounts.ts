@@ -21,6 +21,9 @@ export const accounts = sqliteTable(
     createdAt: text("created_at")
       .notNull()
       .default(sql`(strftime('%Y-%m-%dT%H:%M:%fZ','now'))`),
+    // Set when the account is archived: it leaves the working lists, but its cases, proposals and
+    // pipeline history stay readable, and restoring clears it.
+    archivedAt: text("archived_at"),
   },
   (t) => [index("accounts_owner_idx").on(t.ownerId)],
 );

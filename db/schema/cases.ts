@@ -39,6 +39,7 @@ export const cases = sqliteTable(
       .notNull()
       .references(() => users.id),
     name: text("name").notNull(),
+    notes: text("notes"),
     stage: text("stage", { enum: CASE_STAGES }).notNull().default("draft"),
     assumptions: text("assumptions", { mode: "json" }).$type<CaseAssumptions>().notNull(),
     createdAt: text("created_at").notNull().default(now),

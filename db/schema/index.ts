@@ -11,3 +11,4 @@ export * from "./mail";
 export * from "./revisions";
 export * from "./dossiers";
 export * from "./sign-in-throttle";
+export * from "./removals";
