@@ -145,7 +145,13 @@ export function listAccountsPage(
     .from(accounts)
     .innerJoin(users, eq(users.id, accounts.ownerId))
     .where(where)
-    .orderBy(params.dir === "desc" ? desc(column) : asc(column), asc(accounts.id))
+    // Ties (one owner, one creation instant) follow the id in the same direction, so that
+    // "newest first" is newest first even within a millisecond.
+    .orderBy(
+      ...(params.dir === "desc"
+        ? [desc(column), desc(accounts.id)]
+        : [asc(column), asc(accounts.id)]),
+    )
     .limit(window.limit)
     .offset(window.offset)
     .all();
