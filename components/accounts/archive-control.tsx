@@ -20,9 +20,18 @@ export function ArchiveControl({
   const [status, setStatus] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
   const [pending, startTransition] = useTransition();
   const confirmRef = useRef<HTMLButtonElement>(null);
+  const mainRef = useRef<HTMLButtonElement>(null);
+  // The confirm step takes the focus when it opens; when it closes, or the account flips
+  // between archived and restored, the focus goes to the button that replaced it (not the page).
+  const moved = useRef(false);
   useEffect(() => {
-    if (confirming) confirmRef.current?.focus();
-  }, [confirming]);
+    if (confirming) {
+      confirmRef.current?.focus();
+      moved.current = true;
+    } else if (moved.current) {
+      mainRef.current?.focus();
+    }
+  }, [confirming, archived]);
 
   function run(action: typeof archiveAccountAction, okText: string) {
     startTransition(async () => {
@@ -35,13 +44,18 @@ export function ArchiveControl({
   return (
     <div className="space-y-3">
       {archived ? (
-        <Button
-          variant="secondary"
+        <button
+          ref={mainRef}
+          type="button"
+          className={buttonClass("secondary")}
           disabled={pending}
-          onClick={() => run(restoreAccountAction, `${name} is restored.`)}
+          onClick={() => {
+            moved.current = true;
+            run(restoreAccountAction, `${name} is restored.`);
+          }}
         >
           Restore account
-        </Button>
+        </button>
       ) : confirming ? (
         <div
           role="group"
@@ -70,9 +84,14 @@ export function ArchiveControl({
           </div>
         </div>
       ) : (
-        <Button variant="danger" onClick={() => setConfirming(true)}>
+        <button
+          ref={mainRef}
+          type="button"
+          className={buttonClass("danger")}
+          onClick={() => setConfirming(true)}
+        >
           Archive account
-        </Button>
+        </button>
       )}
       <StatusLine status={status} />
     </div>

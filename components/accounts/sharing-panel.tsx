@@ -34,7 +34,7 @@ export function SharingPanel({
           <span className="font-bold">Owner:</span> {account.ownerName}
         </p>
         {permissions.rename ? (
-          <RenameAccountForm key={account.name} accountId={account.id} name={account.name} />
+          <RenameAccountForm accountId={account.id} name={account.name} />
         ) : null}
         <section aria-labelledby="shared-with-heading" className="space-y-2">
           <h3 id="shared-with-heading" className="font-bold text-steel-800">
@@ -53,7 +53,6 @@ export function SharingPanel({
               Reassign owner
             </h3>
             <ReassignOwnerForm
-              key={account.ownerId}
               accountId={account.id}
               ownerName={account.ownerName}
               candidates={others}
