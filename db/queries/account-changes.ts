@@ -14,9 +14,10 @@ import {
 import { getAccountDetailOrThrow, INSTALLED_BASE_ROLES } from "./accounts";
 import { recordAudit } from "./audit";
 
-// Creating and changing customer accounts (the rules in words: docs/accounts.md). Each change reads the account in the caller's scope
-// first (another engineer's account is not found), then checks what the caller's role may do
-// (lib/accounts/permissions.ts), and writes its rows and its audit row in one transaction.
+// Creating and changing customer accounts (the rules in words: docs/accounts.md). Each change
+// reads the account in the caller's scope first (another engineer's account is not found), then
+// checks what the caller's role may do (lib/accounts/permissions.ts), and writes its rows and its
+// audit row in one transaction.
 
 type Account = ReturnType<typeof getAccountDetailOrThrow>;
 
