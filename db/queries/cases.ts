@@ -17,7 +17,7 @@ import type { CaseInput } from "@/lib/engine";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { NotFoundError } from "@/lib/errors";
 import type { CaseAssumptions, CreateCaseInput } from "@/lib/validations/case";
-import { accountScope, INSTALLED_BASE_ROLES } from "./accounts";
+import { accountScope, assertAccountOpen, INSTALLED_BASE_ROLES } from "./accounts";
 import { recordAudit } from "./audit";
 import { assembleCaseInput, defaultAssumptions, kitInputOf, type CaseAxisRow } from "./case-input";
 import { getSiteOrThrow } from "./sites";
@@ -80,6 +80,7 @@ export function touchCase(
 
 export function createCase(caller: SessionUser, input: CreateCaseInput) {
   const site = getSiteOrThrow(caller, input.siteId);
+  assertAccountOpen(site.accountId);
   const [row] = db
     .insert(cases)
     .values({

@@ -1,10 +1,15 @@
-import { and, asc, eq, getTableColumns, sql } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, isNull, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { accounts, axes, machines, sites } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError } from "@/lib/errors";
 import type { SiteInput } from "@/lib/validations/installed-base";
-import { accountScope, getAccountOrThrow, INSTALLED_BASE_ROLES } from "./accounts";
+import {
+  accountScope,
+  assertAccountOpen,
+  getAccountOrThrow,
+  INSTALLED_BASE_ROLES,
+} from "./accounts";
 
 // Sites are reached through their account, so the caller's account scope is in every WHERE.
 function scoped(caller: SessionUser) {
@@ -15,18 +20,26 @@ function scoped(caller: SessionUser) {
 export function listSites(caller: SessionUser, accountId?: number) {
   // An account outside the caller's reach is not found, exactly like a missing one.
   if (accountId !== undefined) getAccountOrThrow(caller, accountId);
+  return siteList(caller, accountId === undefined ? undefined : eq(sites.accountId, accountId));
+}
+
+// The sites new work may start on (the new case's site choice): those of accounts not archived.
+export function listOpenSites(caller: SessionUser) {
+  return siteList(caller, isNull(accounts.archivedAt));
+}
+
+function siteList(caller: SessionUser, where: SQL | undefined) {
   return db
     .select({
       ...getTableColumns(sites),
       accountName: accounts.name,
+      accountArchivedAt: accounts.archivedAt,
       machineCount: sql<number>`(select count(*) from ${machines} where ${machines.siteId} = ${sites.id})`,
       axisCount: sql<number>`(select coalesce(sum(${axes.quantity}), 0) from ${axes} where ${axes.siteId} = ${sites.id})`,
     })
     .from(sites)
     .innerJoin(accounts, eq(sites.accountId, accounts.id))
-    .where(
-      and(scoped(caller), accountId === undefined ? undefined : eq(sites.accountId, accountId)),
-    )
+    .where(and(scoped(caller), where))
     .orderBy(asc(accounts.name), asc(sites.name))
     .all();
 }
@@ -54,6 +67,7 @@ function assertNameFree(accountId: number, name: string, exceptId?: number) {
 
 export function createSite(caller: SessionUser, accountId: number, input: SiteInput) {
   getAccountOrThrow(caller, accountId);
+  assertAccountOpen(accountId);
   assertNameFree(accountId, input.name);
   const [row] = db
     .insert(sites)

@@ -365,6 +365,54 @@ const ACTIONS: Record<string, ActionProbe> = {
     engineer: "scoped",
     reviewer: "role",
   },
+  // Creating an account names no record: a name the other tenant's account holds is refused
+  // (names are unique across accounts) the same way whatever the ids, and nothing is written.
+  "accounts/actions createAccountAction": {
+    args: () => [{ name: "Pipetteworks Lab Automation" }],
+    refusedArgs: () => [{ name: "" }],
+    engineer: "scoped",
+    reviewer: "role",
+    manager: "form",
+    admin: "form",
+  },
+  "accounts/actions renameAccountAction": {
+    args: (i) => [{ accountId: i.account, name: "Probe account" }],
+    refusedArgs: (i) => [{ accountId: i.account, name: "" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "accounts/actions shareAccountAction": {
+    args: (i) => [{ accountId: i.account, userId: 1 }],
+    refusedArgs: (i) => [{ accountId: i.account, userId: "" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "accounts/actions unshareAccountAction": {
+    args: (i) => [{ accountId: i.account, userId: 1 }],
+    refusedArgs: (i) => [{ accountId: i.account, userId: "" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "accounts/actions reassignOwnerAction": {
+    args: (i) => [{ accountId: i.account, ownerId: 1 }],
+    refusedArgs: (i) => [{ accountId: i.account, ownerId: "" }],
+    engineer: "role",
+    reviewer: "role",
+    manager: "reaches",
+    admin: "reaches",
+  },
+  "accounts/actions archiveAccountAction": {
+    args: (i) => [{ accountId: i.account }],
+    refusedArgs: () => [{ accountId: "none" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "accounts/actions restoreAccountAction": {
+    args: (i) => [{ accountId: i.account }],
+    refusedArgs: () => [{ accountId: "none" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
   "admin/actions createUserAction": {
     args: () => [{}],
     refusedArgs: () => [{}],

@@ -5,7 +5,7 @@ import { StageBadge } from "@/components/cases/stage-badge";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Table, Td, Th } from "@/components/ui/table";
 import { listCases } from "@/db/queries/cases";
-import { listSites } from "@/db/queries/sites";
+import { listOpenSites } from "@/db/queries/sites";
 import { requirePageUser } from "@/server/auth";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 
@@ -14,7 +14,7 @@ export const metadata: Metadata = { title: "Cases" };
 export default async function CasesPage() {
   const user = await requirePageUser(...VENDOR_ROLES);
   const cases = listCases(user);
-  const sites = listSites(user);
+  const sites = listOpenSites(user);
   return (
     <div className="space-y-6">
       <PageHeader

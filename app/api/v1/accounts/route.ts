@@ -4,7 +4,10 @@ import { withApi } from "@/server/api/handler";
 import { requireRole } from "@/server/auth";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 
-export const GET = withApi(async () => {
+// Archived accounts are left out unless asked for with ?archived=show, like the accounts list.
+export const GET = withApi(async (request: Request) => {
   const caller = await requireRole(...VENDOR_ROLES);
-  return NextResponse.json({ accounts: listAccounts(caller) });
+  const archived =
+    new URL(request.url).searchParams.get("archived") === "show" ? "show" : undefined;
+  return NextResponse.json({ accounts: listAccounts(caller, { archived }) });
 });
