@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { AssumptionsForm } from "@/components/cases/assumptions-form";
 import { CaseAxesEditor } from "@/components/cases/case-axes-editor";
+import { CaseDetails } from "@/components/cases/case-details";
 import { CaseToolbar } from "@/components/cases/case-toolbar";
 import { ProposalsList } from "@/components/cases/proposals-list";
 import { StageBadge } from "@/components/cases/stage-badge";
@@ -11,6 +12,7 @@ import { listAxisPickerOptions } from "@/db/queries/axes";
 import { listKits } from "@/db/queries/catalogue";
 import { listCaseAxesOf } from "@/db/queries/case-axes";
 import { listProposalsOf } from "@/db/queries/proposal-versions";
+import { getSalesSettings } from "@/db/queries/sales-settings";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { requirePageUser } from "@/server/auth";
 import { idParam } from "@/lib/pages";
@@ -41,6 +43,9 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
         actions={<StageBadge stage={item.stage} />}
       />
       <CaseToolbar caseId={caseId} canFreeze={caseAxes.length > 0} />
+      <Panel title="Notes">
+        <CaseDetails caseId={caseId} name={item.name} notes={item.notes} />
+      </Panel>
       {caseAxes.length ? <CaseResults caseId={caseId} methodHref="/method" /> : null}
       <Panel title="Axes and kits">
         <CaseAxesEditor
@@ -54,6 +59,8 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
             price: k.price,
             currency: k.currency,
           }))}
+          currency={item.siteCurrency}
+          thresholdPct={getSalesSettings().discountThresholdPct}
         />
       </Panel>
       <Panel title="Assumptions">
