@@ -39,7 +39,8 @@ export function CaseDetails({
       </details>
       <details>
         <summary className="cursor-pointer font-bold text-flux-700">Duplicate this case</summary>
-        <DuplicateForm caseId={caseId} name={name} />
+        {/* Remounted on a rename, so that the copy's suggested name follows it. */}
+        <DuplicateForm key={name} caseId={caseId} name={name} />
       </details>
     </div>
   );
