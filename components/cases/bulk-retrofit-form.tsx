@@ -4,6 +4,7 @@ import { useState, useTransition } from "react";
 import { setCaseAxesRetrofitAction } from "@/server/cases/actions";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
+import { StatusLine } from "@/components/installed-base/use-action-form";
 import { RETROFIT_LABELS } from "@/lib/validations/case";
 import { DiscountRule } from "./discount-rule";
 
@@ -31,13 +32,13 @@ export function BulkRetrofitForm({
   kits: Kit[];
   currency: string;
   thresholdPct: number;
-  onApplied: (message: string) => void;
+  onApplied: () => void;
 }) {
   const [kitId, setKitId] = useState("");
   const [discount, setDiscount] = useState("");
   const [hours, setHours] = useState("");
   const [commissioning, setCommissioning] = useState("");
-  const [error, setError] = useState<string | null>(null);
+  const [status, setStatus] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
   const [pending, start] = useTransition();
   const count = selected.length;
   const discountAbove = discount.trim() !== "" && Number(discount) > thresholdPct;
@@ -53,17 +54,18 @@ export function BulkRetrofitForm({
         commissioningCost: commissioning.trim(),
       });
       if (!result.ok) {
-        setError(result.message);
+        setStatus({ tone: "error", text: result.message });
         return;
       }
-      setError(null);
       setKitId("");
       setDiscount("");
       setHours("");
       setCommissioning("");
-      onApplied(
-        `Set ${result.data.fields.join(", ")} on ${result.data.changed} ${result.data.changed === 1 ? "axis" : "axes"}.`,
-      );
+      setStatus({
+        tone: "ok",
+        text: `Set ${result.data.fields.join(", ")} on ${result.data.changed} ${result.data.changed === 1 ? "axis" : "axes"}.`,
+      });
+      onApplied();
     });
   }
 
@@ -77,7 +79,7 @@ export function BulkRetrofitForm({
       <p className="text-small font-bold text-steel-800">
         Set for the {count} selected {count === 1 ? "axis" : "axes"} (blank fields stay as they are)
       </p>
-      <div className="flex flex-wrap items-end gap-3">
+      <div className="flex flex-wrap items-start gap-3">
         <div>
           <label htmlFor="bulk-kit" className="block text-small font-bold">
             {RETROFIT_LABELS.kitId} for selected axes
@@ -112,6 +114,13 @@ export function BulkRetrofitForm({
             aria-describedby="bulk-discount-rule"
             className="w-28"
           />
+          <div className="mt-1 max-w-60">
+            <DiscountRule
+              id="bulk-discount-rule"
+              thresholdPct={thresholdPct}
+              above={discountAbove}
+            />
+          </div>
         </div>
         <div>
           <label htmlFor="bulk-hours" className="block text-small font-bold">
@@ -140,16 +149,14 @@ export function BulkRetrofitForm({
             className="w-36"
           />
         </div>
-        <Button type="submit" disabled={pending || count === 0}>
-          {pending ? "Applying…" : "Apply to selected axes"}
-        </Button>
+        {/* Level with the inputs, below their labels. */}
+        <div className="pt-6">
+          <Button type="submit" disabled={pending || count === 0}>
+            {pending ? "Applying…" : "Apply to selected axes"}
+          </Button>
+        </div>
       </div>
-      <DiscountRule id="bulk-discount-rule" thresholdPct={thresholdPct} above={discountAbove} />
-      {error ? (
-        <p role="alert" className="text-small font-bold text-danger-700">
-          {error}
-        </p>
-      ) : null}
+      <StatusLine status={status} />
     </form>
   );
 }

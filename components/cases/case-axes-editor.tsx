@@ -139,10 +139,7 @@ export function CaseAxesEditor({
             kits={kits}
             currency={currency}
             thresholdPct={thresholdPct}
-            onApplied={(text) => {
-              setMessage(text);
-              refresh();
-            }}
+            onApplied={refresh}
           />
         ) : null}
         <Table caption="Axes in this case and their kits">
@@ -229,7 +226,9 @@ export function CaseAxesEditor({
                       onBlur={(e) => numberChange(a, "discountPct", e.target.value)}
                     />
                     {a.discountPct > thresholdPct ? (
-                      <Badge tone="caution">Needs approval</Badge>
+                      <span className="whitespace-nowrap">
+                        <Badge tone="caution">Needs approval</Badge>
+                      </span>
                     ) : null}
                   </div>
                 </Td>

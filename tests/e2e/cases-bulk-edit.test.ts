@@ -31,7 +31,10 @@ describe("an engineer edits a case's axes in bulk, renames it and copies it", ()
     await page.getByRole("button", { name: "Save selection" }).click();
     await page.getByText(/The case now holds 14 axes\./).waitFor();
 
-    await page.getByText(/Discounts above 15 % need a manager’s approval/).first().waitFor();
+    await page
+      .getByText(/Discounts above 15 % need a manager’s approval/)
+      .first()
+      .waitFor();
     const rows = page.getByRole("checkbox", { name: /^Select Outfeed belt of / });
     await expect.poll(() => rows.count()).toBe(14);
     for (const i of [0, 1, 2]) await rows.nth(i).check();
@@ -45,7 +48,10 @@ describe("an engineer edits a case's axes in bulk, renames it and copies it", ()
     await page.getByLabel("Discount % for selected axes").fill("120");
     await page.getByLabel("Install hours for selected axes").fill("5");
     await page.getByRole("button", { name: "Apply to selected axes" }).click();
-    await page.getByRole("alert").getByText("Discount % must be at most 100").waitFor();
+    await page
+      .getByRole("form", { name: "Set terms for selected axes" })
+      .getByText("Discount % must be at most 100")
+      .waitFor();
     expect(await approvalBadges().count()).toBe(3);
     await screenshot(page, "case-bulk-edit");
   });
