@@ -1,27 +1,123 @@
 import Link from "next/link";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
 import type { ProposalSummary } from "@/db/queries/proposal-versions";
-import { Table, Td, Th } from "@/components/ui/table";
+import { buttonClass } from "@/components/ui/button";
+import { Input, Select } from "@/components/ui/field";
+import { Pager } from "@/components/ui/pager";
+import { SortHeader, Table, Td, Th } from "@/components/ui/table";
+import { listHref, type ListPage } from "@/lib/lists/list-params";
+import { QUOTE_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
+import type { ProposalListParams } from "@/lib/validations/case-lists";
 import { formatMoney, formatPayback } from "@/lib/results/format";
 import { FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";
 
-// Frozen versions, newest first, each with its stage with the customer and what changed since the
-// one before; the version opens the proposal's page (sending, conversation, quote).
-export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
-  if (!proposals.length)
+// Frozen versions, a page at a time (newest first unless sorted otherwise; filter, sort and page
+// in the URL, done in SQL by db/queries/proposal-list.ts), each with its stage with the customer
+// and what changed since the one before; the version opens the proposal's page.
+export function ProposalsList({
+  caseId,
+  result,
+  params,
+  current,
+}: {
+  caseId: number;
+  result: ListPage<ProposalSummary>;
+  params: ProposalListParams;
+  current: Record<string, string | undefined>;
+}) {
+  const path = `/cases/${caseId}`;
+  const filtered = Boolean(params.q || params.stage);
+  if (!result.total && !filtered)
     return (
       <p className="text-small text-steel-700">
         No proposal yet. Freeze the case when its figures are ready to send.
       </p>
     );
+  const href = (changes: Record<string, string | number | undefined>) =>
+    listHref(path, current, changes);
+  const sortProps = {
+    sort: params.sort,
+    dir: params.dir,
+    href: (column: string, dir: "asc" | "desc") => href({ sort: column, dir }),
+  };
+  return (
+    <div className="space-y-3">
+      <form
+        method="get"
+        action={path}
+        role="search"
+        aria-label="Filter proposals"
+        className="flex flex-wrap items-end gap-3"
+      >
+        <div>
+          <label htmlFor="proposals-q" className="block text-small font-bold text-steel-800">
+            Version or frozen by contains
+          </label>
+          <Input id="proposals-q" name="q" defaultValue={params.q ?? ""} className="w-56" />
+        </div>
+        <div>
+          <label htmlFor="proposals-stage" className="block text-small font-bold text-steel-800">
+            Proposal stage
+          </label>
+          <Select
+            id="proposals-stage"
+            name="stage"
+            defaultValue={params.stage ?? ""}
+            className="w-44"
+          >
+            <option value="">All stages</option>
+            {QUOTE_STAGES.map((s) => (
+              <option key={s} value={s}>
+                {STAGE_LABELS[s]}
+              </option>
+            ))}
+          </Select>
+        </div>
+        <input type="hidden" name="sort" value={params.sort} />
+        <input type="hidden" name="dir" value={params.dir} />
+        <button type="submit" className={buttonClass("secondary")}>
+          Filter proposals
+        </button>
+      </form>
+      {result.total === 0 ? (
+        <p className="text-small text-steel-700">
+          No version matches. <Link href={path}>Show all versions</Link>.
+        </p>
+      ) : (
+        <>
+          <VersionsTable proposals={result.rows} sortProps={sortProps} />
+          <Pager
+            page={result.page}
+            pageCount={result.pageCount}
+            total={result.total}
+            noun={["version", "versions"]}
+            href={(page) => href({ page })}
+          />
+        </>
+      )}
+    </div>
+  );
+}
+
+function VersionsTable({
+  proposals,
+  sortProps,
+}: {
+  proposals: ProposalSummary[];
+  sortProps: {
+    sort: string;
+    dir: "asc" | "desc";
+    href: (column: string, dir: "asc" | "desc") => string;
+  };
+}) {
   return (
     <Table caption="Proposal versions">
       <thead>
         <tr>
-          <Th>Version</Th>
-          <Th>Stage</Th>
+          <SortHeader label="Version" column="version" {...sortProps} />
+          <SortHeader label="Stage" column="stage" {...sortProps} />
           <Th>Frozen (UTC)</Th>
-          <Th>By</Th>
+          <SortHeader label="By" column="by" {...sortProps} />
           <Th className="text-right">{FINANCE_TERMS.upFrontCost}</Th>
           <Th className="text-right">NPV ({SCENARIO_LABELS.physics.toLowerCase()})</Th>
           <Th className="text-right">Payback</Th>
@@ -31,7 +127,7 @@ export function ProposalsList({ proposals }: { proposals: ProposalSummary[] }) {
         </tr>
       </thead>
       <tbody className="divide-y divide-steel-100">
-        {[...proposals].reverse().map((p) => (
+        {proposals.map((p) => (
           <tr key={p.id}>
             <Td className="font-bold">
               <Link href={`/proposals/${p.id}`} className="text-flux-700 hover:underline">

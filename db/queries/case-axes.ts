@@ -5,7 +5,13 @@ import { axes, caseAxes, kits, machines, motors, type Axis } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError, StoredInputError } from "@/lib/errors";
 import { storedInputMessage, storedInputProblems } from "@/lib/results/stored-input-problems";
-import type { AxisRetrofitInput, CaseAssumptions } from "@/lib/validations/case";
+import {
+  RETROFIT_LABELS,
+  type AxisRetrofitInput,
+  type BulkRetrofitInput,
+  type CaseAssumptions,
+} from "@/lib/validations/case";
+import { recordAudit } from "./audit";
 import {
   axisInputOf,
   DEFAULT_RETROFIT_TERMS,
@@ -157,6 +163,78 @@ export function setAxisRetrofit(
     .where(and(eq(caseAxes.caseId, caseId), eq(caseAxes.axisId, axisId)))
     .run();
   touchCase(caseId, found.updatedAt);
+}
+
+/**
+ * Sets the given terms (kit, discount, install hours, commissioning cost) on many axes of the case
+ * in one step; blank terms stay as they are on each axis. Everything is checked before anything is
+ * written, and the rows, the case's stamp and the one audit row go in one transaction.
+ */
+export function setCaseAxesRetrofit(caller: SessionUser, caseId: number, input: BulkRetrofitInput) {
+  const found = getCaseOrThrow(caller, caseId);
+  const wanted = [...new Set(input.axisIds)];
+  let inCase = 0;
+  for (let i = 0; i < wanted.length; i += 500) {
+    inCase += db
+      .select({ axisId: caseAxes.axisId })
+      .from(caseAxes)
+      .where(and(eq(caseAxes.caseId, caseId), inArray(caseAxes.axisId, wanted.slice(i, i + 500))))
+      .all().length;
+  }
+  if (inCase !== wanted.length) throw new NotFoundError("No such axis in this case");
+
+  const changes: Partial<AxisRetrofitInput> = {};
+  const said: string[] = [];
+  if (input.kitId !== undefined) {
+    const kit = db.select().from(kits).where(eq(kits.id, input.kitId)).get();
+    if (!kit) throw new NotFoundError(`${RETROFIT_LABELS.kitId}: no such kit in the catalogue`);
+    // Unlike one axis's edit, a bulk step never spreads a retired kit to more axes.
+    if (!kit.active)
+      throw new ConflictError(
+        `${RETROFIT_LABELS.kitId} ${kit.code} is retired: choose an active kit of the catalogue`,
+      );
+    if (kit.currency !== found.siteCurrency)
+      throw new ConflictError(
+        `${RETROFIT_LABELS.kitId} ${kit.code} is priced in ${kit.currency}, this case in ${found.siteCurrency}`,
+      );
+    changes.kitId = kit.id;
+    said.push(`kit ${kit.code}`);
+  }
+  if (input.discountPct !== undefined) {
+    changes.discountPct = input.discountPct;
+    said.push(`discount ${input.discountPct} %`);
+  }
+  if (input.installHours !== undefined) {
+    changes.installHours = input.installHours;
+    said.push(`install hours ${input.installHours}`);
+  }
+  if (input.commissioningCost !== undefined) {
+    changes.commissioningCost = input.commissioningCost;
+    said.push(`commissioning cost ${input.commissioningCost} ${found.siteCurrency}`);
+  }
+  if (said.length === 0)
+    throw new ConflictError(
+      "Fill in at least one of kit, discount %, install hours or commissioning cost to set",
+    );
+
+  db.transaction((tx) => {
+    for (let i = 0; i < wanted.length; i += 500) {
+      tx.update(caseAxes)
+        .set(changes)
+        .where(and(eq(caseAxes.caseId, caseId), inArray(caseAxes.axisId, wanted.slice(i, i + 500))))
+        .run();
+    }
+    // Same connection, so inside the transaction: a failure here leaves no row changed.
+    touchCase(caseId, found.updatedAt);
+    recordAudit({
+      actor: caller,
+      action: "case.bulk-retrofit",
+      targetType: "case",
+      targetId: caseId,
+      detail: `${found.name}: ${wanted.length} ${wanted.length === 1 ? "axis" : "axes"}; ${said.join(", ")}`,
+    });
+  });
+  return { changed: wanted.length, fields: said };
 }
 
 export type KitSuggestionRow = { axisId: number; kitId: number | null; reason: string };

@@ -29,7 +29,7 @@ export function caseScope(caller: SessionUser) {
   return accountScope(caller);
 }
 
-const caseColumns = {
+export const caseColumns = {
   ...getTableColumns(cases),
   accountName: accounts.name,
   siteName: sites.name,
@@ -42,7 +42,7 @@ const caseColumns = {
   >`(select max(${proposals.version}) from ${proposals} where ${proposals.caseId} = ${cases.id})`,
 };
 
-function caseQuery() {
+export function caseQuery() {
   return db
     .select(caseColumns)
     .from(cases)

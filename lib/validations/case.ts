@@ -47,6 +47,82 @@ export const axisRetrofitSchema = z.object({
   maintenanceSavingPerYear: money().default("0"),
 });
 
+// The retrofit terms by name, for messages and the table's labels.
+export const RETROFIT_LABELS = {
+  kitId: "Kit",
+  discountPct: "Discount %",
+  installHours: "Install hours",
+  commissioningCost: "Commissioning cost",
+  maintenanceSavingPerYear: "Maintenance saving a year",
+} as const;
+
+/**
+ * A field a bulk step may leave blank (unchanged): blank is undefined; any other value must pass
+ * the field's own schema, and each of its messages starts with the field's name, so "must be at
+ * most 100" reads "Discount % must be at most 100" wherever it is shown.
+ */
+function blankOr<T extends z.ZodType>(label: string, schema: T) {
+  // optional(): a missing key skips the transform (zod asks for the key otherwise).
+  const field = z.unknown().transform((value, ctx): z.output<T> | undefined => {
+    if (value === undefined || value === null || value === "") return undefined;
+    const parsed = schema.safeParse(value);
+    if (parsed.success) return parsed.data;
+    for (const issue of parsed.error.issues)
+      ctx.addIssue({ code: "custom", message: `${label} ${issue.message}`, path: issue.path });
+    return z.NEVER;
+  });
+  return field.optional();
+}
+
+// One step over many axes of a case: the fields given are set on every selected axis, the
+// blank ones stay as they are on each.
+export const bulkRetrofitSchema = z
+  .object({
+    axisIds: z
+      .array(recordId, { error: "Select the axes to change" })
+      .min(1, "Select at least one axis")
+      .max(100000, "A case holds at most 100000 axes")
+      .transform((ids) => [...new Set(ids)]),
+    kitId: blankOr(RETROFIT_LABELS.kitId, idSchema("must be a kit of the catalogue")),
+    discountPct: blankOr(RETROFIT_LABELS.discountPct, pct()),
+    installHours: blankOr(RETROFIT_LABELS.installHours, bounded("installHours")),
+    commissioningCost: blankOr(RETROFIT_LABELS.commissioningCost, money()),
+  })
+  .refine(
+    (v) =>
+      v.kitId !== undefined ||
+      v.discountPct !== undefined ||
+      v.installHours !== undefined ||
+      v.commissioningCost !== undefined,
+    {
+      message:
+        "Fill in at least one of kit, discount %, install hours or commissioning cost to set",
+      path: ["form"],
+    },
+  );
+
+const caseName = z
+  .string({ error: "Enter a name for the case" })
+  .trim()
+  .min(1, "Enter a name for the case")
+  .max(120, "Keep the name under 120 characters");
+
+export const CASE_NOTES_MAX = 4000;
+
+// The case's own words: its name and free notes (blank notes are none).
+export const caseDetailsSchema = z.object({
+  name: caseName,
+  notes: z
+    .string({ error: "Notes must be text" })
+    .trim()
+    .max(CASE_NOTES_MAX, `Keep the notes under ${CASE_NOTES_MAX.toLocaleString("en")} characters`)
+    .optional()
+    .transform((v) => (v ? v : null)),
+});
+
+// A copy of a case: only its name is asked, the rest comes from the case copied.
+export const duplicateCaseSchema = z.object({ name: caseName });
+
 // A case or proposal named by its id alone (suggest kits, freeze).
 export const caseIdSchema = recordId;
 
@@ -55,3 +131,6 @@ export type CaseAssumptions = z.output<typeof caseAssumptionsSchema>;
 export type CreateCaseInput = z.output<typeof createCaseSchema>;
 export type CaseAxesInput = z.output<typeof caseAxesSchema>;
 export type AxisRetrofitInput = z.output<typeof axisRetrofitSchema>;
+export type BulkRetrofitInput = z.output<typeof bulkRetrofitSchema>;
+export type CaseDetailsInput = z.output<typeof caseDetailsSchema>;
+export type DuplicateCaseInput = z.output<typeof duplicateCaseSchema>;

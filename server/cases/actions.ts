@@ -3,17 +3,28 @@ import "server-only";
 
 import { revalidatePath } from "next/cache";
 import { createCase, updateAssumptions } from "@/db/queries/cases";
-import { setAxisRetrofit, setCaseAxes, suggestKitsForCase } from "@/db/queries/case-axes";
+import {
+  setAxisRetrofit,
+  setCaseAxes,
+  setCaseAxesRetrofit,
+  suggestKitsForCase,
+} from "@/db/queries/case-axes";
+import { duplicateCase, updateCaseDetails } from "@/db/queries/case-details";
 import { freezeProposal } from "@/server/cases/freeze";
 import { runAction } from "@/server/actions/run";
+import type { ActionResult } from "@/server/actions/result";
 import { requireId } from "@/lib/validations/ids";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 import {
   axisRetrofitSchema,
+  bulkRetrofitSchema,
   caseAssumptionsSchema,
   caseAxesSchema,
+  caseDetailsSchema,
   caseIdSchema,
   createCaseSchema,
+  duplicateCaseSchema,
+  RETROFIT_LABELS,
 } from "@/lib/validations/case";
 
 const EDITORS = VENDOR_ROLES;
@@ -48,11 +59,50 @@ export async function setCaseAxesAction(caseId: number, values: unknown) {
   return result;
 }
 
+// A refused field's message starts with the field's name ("Discount % must be at most 100"),
+// and the form's summary repeats the messages instead of a bare "check the fields".
+function namingFields<T>(result: ActionResult<T>): ActionResult<T> {
+  if (result.ok || Object.keys(result.fieldErrors).length === 0) return result;
+  const fieldErrors = Object.fromEntries(
+    Object.entries(result.fieldErrors).map(([key, message]) => {
+      const label = RETROFIT_LABELS[key as keyof typeof RETROFIT_LABELS];
+      return [key, label && !message.startsWith(label) ? `${label} ${message}` : message];
+    }),
+  );
+  return { ...result, fieldErrors, message: Object.values(fieldErrors).join(" · ") };
+}
+
 export async function setAxisRetrofitAction(caseId: number, axisId: number, values: unknown) {
   const result = await runAction(EDITORS, axisRetrofitSchema, values, (caller, data) =>
     setAxisRetrofit(caller, requireId(caseId), requireId(axisId), data),
   );
   if (result.ok) refresh(caseId);
+  return namingFields(result);
+}
+
+// Kit, discount, install hours and/or commissioning cost on many axes at once.
+export async function setCaseAxesRetrofitAction(caseId: number, values: unknown) {
+  const result = await runAction(EDITORS, bulkRetrofitSchema, values, (caller, data) =>
+    setCaseAxesRetrofit(caller, requireId(caseId), data),
+  );
+  if (result.ok) refresh(caseId);
+  return namingFields(result);
+}
+
+export async function updateCaseDetailsAction(caseId: number, values: unknown) {
+  const result = await runAction(EDITORS, caseDetailsSchema, values, (caller, data) =>
+    updateCaseDetails(caller, requireId(caseId), data),
+  );
+  if (result.ok) refresh(caseId);
+  return result;
+}
+
+// Returns the copy's id only, to open its page.
+export async function duplicateCaseAction(caseId: number, values: unknown) {
+  const result = await runAction(EDITORS, duplicateCaseSchema, values, (caller, data) => ({
+    id: duplicateCase(caller, requireId(caseId), data).id,
+  }));
+  if (result.ok) revalidatePath("/cases");
   return result;
 }
 

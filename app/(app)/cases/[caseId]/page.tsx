@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { AssumptionsForm } from "@/components/cases/assumptions-form";
 import { CaseAxesEditor } from "@/components/cases/case-axes-editor";
+import { CaseDetails } from "@/components/cases/case-details";
 import { CaseToolbar } from "@/components/cases/case-toolbar";
 import { ProposalsList } from "@/components/cases/proposals-list";
 import { StageBadge } from "@/components/cases/stage-badge";
@@ -10,10 +11,13 @@ import { PageHeader, Panel } from "@/components/ui/panel";
 import { listAxisPickerOptions } from "@/db/queries/axes";
 import { listKits } from "@/db/queries/catalogue";
 import { listCaseAxesOf } from "@/db/queries/case-axes";
-import { listProposalsOf } from "@/db/queries/proposal-versions";
+import { listProposalsPage } from "@/db/queries/proposal-list";
+import { getSalesSettings } from "@/db/queries/sales-settings";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { requirePageUser } from "@/server/auth";
 import { idParam } from "@/lib/pages";
+import { flatParams } from "@/lib/lists/list-params";
+import { proposalListParamsSchema } from "@/lib/validations/case-lists";
 import { readCase } from "./case-reads";
 
 export const metadata: Metadata = { title: "Case" };
@@ -22,7 +26,13 @@ export const metadata: Metadata = { title: "Case" };
 // hundreds, and the API pages beyond that.
 const PICKER_LIMIT = 5000;
 
-export default async function CasePage({ params }: { params: Promise<{ caseId: string }> }) {
+export default async function CasePage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ caseId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requirePageUser(...VENDOR_ROLES);
   const caseId = idParam((await params).caseId);
   // The layout has read the case already: readCase returns that row, without a query.
@@ -30,7 +40,10 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
   const caseAxes = listCaseAxesOf(item);
   const siteAxes = listAxisPickerOptions(user, item.siteId, PICKER_LIMIT);
   const kits = listKits(user).filter((k) => k.currency === item.siteCurrency);
-  const proposals = listProposalsOf(item);
+  // The proposal versions' list state (filter, sort, page) is the page's query string.
+  const current = flatParams(await searchParams);
+  const proposalParams = proposalListParamsSchema.parse(current);
+  const proposals = listProposalsPage(item, proposalParams);
 
   return (
     <div className="space-y-6">
@@ -41,6 +54,9 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
         actions={<StageBadge stage={item.stage} />}
       />
       <CaseToolbar caseId={caseId} canFreeze={caseAxes.length > 0} />
+      <Panel title="Notes">
+        <CaseDetails caseId={caseId} name={item.name} notes={item.notes} />
+      </Panel>
       {caseAxes.length ? <CaseResults caseId={caseId} methodHref="/method" /> : null}
       <Panel title="Axes and kits">
         <CaseAxesEditor
@@ -54,13 +70,20 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
             price: k.price,
             currency: k.currency,
           }))}
+          currency={item.siteCurrency}
+          thresholdPct={getSalesSettings().discountThresholdPct}
         />
       </Panel>
       <Panel title="Assumptions">
         <AssumptionsForm caseId={caseId} values={item.assumptions} currency={item.siteCurrency} />
       </Panel>
-      <Panel title={`Proposals (${proposals.length})`}>
-        <ProposalsList proposals={proposals} />
+      <Panel title={`Proposals (${proposals.total})`}>
+        <ProposalsList
+          caseId={caseId}
+          result={proposals}
+          params={proposalParams}
+          current={current}
+        />
       </Panel>
     </div>
   );
