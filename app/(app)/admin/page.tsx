@@ -75,6 +75,7 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
           action="/admin"
           className="mb-4 flex flex-wrap items-end gap-3"
           role="search"
+          aria-label="Users"
         >
           <div>
             <label htmlFor="user-q" className="block text-small font-bold text-steel-800">
