@@ -13,14 +13,7 @@ const asFormValue = (spec: AxisFieldSpec, value: unknown) =>
 
 // A stored axis (SI units) as the axis form's values: torques as { value, unit: "N·m" }.
 export function axisToFormValues(a: Axis): FormValues {
-  const {
-    id: _id,
-    siteId: _site,
-    createdAt: _created,
-    referenceMotorId: _ref,
-    pullOutCurve: _curve,
-    ...rest
-  } = a;
+  const { id: _id, siteId: _site, createdAt: _created, pullOutCurve: _curve, ...rest } = a;
   const values: Record<string, unknown> = { ...rest };
   for (const [key, spec] of FIELDS)
     values[key] = asFormValue(spec, (a as Record<string, unknown>)[key]);
@@ -35,7 +28,7 @@ export function newAxisFormValues(
   machineId: number | undefined,
   site: { hoursPerYear: number; ambientC: number },
 ): FormValues {
-  const values: Record<string, unknown> = { machineId };
+  const values: Record<string, unknown> = { machineId, referenceMotorId: "" };
   for (const [key, spec] of FIELDS) {
     const fallback = spec.siteDefault ? (site as Record<string, unknown>)[key] : spec.default;
     values[key] = spec.kind === "text" ? (fallback ?? "") : asFormValue(spec, fallback);

@@ -32,12 +32,16 @@ export function AxisRegistryField<T extends FieldValues>({
   name,
   register,
   errors,
+  origin,
 }: {
   name: AxisFieldKey;
   register: UseFormRegister<T>;
   errors: FieldErrors<T>;
+  /** Where the value came from, said before the help (a catalogue motor). */
+  origin?: string;
 }) {
-  const spec: AxisFieldSpec = AXIS_FIELDS[name];
+  const registry: AxisFieldSpec = AXIS_FIELDS[name];
+  const spec = origin ? { ...registry, help: `${origin} ${registry.help}` } : registry;
   const error = messageOf(errors, name);
   const path = name as Path<T>;
   const id = `f-${name}`;

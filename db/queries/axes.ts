@@ -4,6 +4,7 @@ import { axes, machines } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { NotFoundError } from "@/lib/errors";
 import type { AxisApiInput, AxisInput, AxisListParams } from "@/lib/validations/installed-base";
+import { getMotorOrThrow } from "./catalogue";
 import { getMachineOrThrow } from "./machines";
 import { getSiteOrThrow } from "./sites";
 
@@ -91,8 +92,15 @@ export function getAxisOrThrow(caller: SessionUser, id: number) {
 // ones as they are. The JSON API states them (AxisApiInput), null removing one.
 type AxisWrite = AxisInput | AxisApiInput;
 
+// The form may name the catalogue motor its figures came from; it must exist.
+function checkReferenceMotor(caller: SessionUser, input: AxisWrite) {
+  const id = "referenceMotorId" in input ? input.referenceMotorId : null;
+  if (id != null) getMotorOrThrow(caller, id);
+}
+
 export function createAxis(caller: SessionUser, input: AxisWrite) {
   const machine = getMachineOrThrow(caller, input.machineId);
+  checkReferenceMotor(caller, input);
   const [row] = db
     .insert(axes)
     .values({ ...input, siteId: machine.siteId })
@@ -105,6 +113,7 @@ export function updateAxis(caller: SessionUser, id: number, input: AxisWrite) {
   const axis = getAxisOrThrow(caller, id);
   const machine = getMachineOrThrow(caller, input.machineId);
   if (machine.siteId !== axis.siteId) throw new NotFoundError("No such machine");
+  checkReferenceMotor(caller, input);
   db.update(axes).set(input).where(eq(axes.id, id)).run();
 }
 

@@ -33,6 +33,14 @@ export function listKits(caller: SessionUser, { includeRetired = false } = {}) {
     .sort((a, b) => new Decimal(a.price).comparedTo(b.price) || a.code.localeCompare(b.code));
 }
 
+/** A catalogue motor an axis may name as its reference (retired ones included: axes keep them). */
+export function getMotorOrThrow(caller: SessionUser, id: number) {
+  assertRole(caller, ...READERS);
+  const row = db.select().from(motors).where(eq(motors.id, id)).get();
+  if (!row) throw new NotFoundError("No such catalogue motor");
+  return row;
+}
+
 function uniqueCode(table: typeof kits | typeof motors, value: string, exceptId?: number) {
   const clash = db.select({ id: table.id }).from(table).where(eq(table.code, value)).get();
   if (clash && clash.id !== exceptId)

@@ -1,8 +1,9 @@
 import { createHash, randomBytes } from "node:crypto";
-import { and, eq, isNull, ne, sql } from "drizzle-orm";
+import { and, desc, eq, gt, isNull, ne, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { accounts, invitations, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
+import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError } from "@/lib/errors";
 import { recordAudit } from "./audit";
 
@@ -45,7 +46,17 @@ export function createInvitation(
   return { token, expiresAt };
 }
 
-/** Whether the user came in by invitation and has not chosen a password through one yet. */
+/**
+ * Whether the user came in by invitation and has not chosen a password through one yet.
+ *
+ * The users table has no "password set" column, and this needs no migration: a password is only
+ * ever chosen in two ways. An administrator creates vendor staff (and may create reviewers) with a
+ * password they type (db/queries/users.ts createUser), and such users never get an invitation.
+ * A reviewer created by sending a proposal (server/proposals/send.ts) gets a password nobody knows
+ * plus an invitation, and chooses their own only by using one (acceptInvitation sets used_at).
+ * So a user with invitations none of which was used has never set a password; anyone else has.
+ * listUsers in db/queries/users.ts states the same rule in SQL for the users list.
+ */
 export function awaitsFirstPassword(userId: number): boolean {
   const rows = db
     .select({ usedAt: invitations.usedAt })
@@ -64,7 +75,7 @@ export type InvitationState =
       expiresAt: string;
       proposalId: number | null;
     }
-  | { state: "invalid" | "used" | "replaced" }
+  | { state: "invalid" | "used" | "replaced" | "revoked" }
   | { state: "expired"; expiredAt: string };
 
 // The invitation page runs before anyone is signed in: the token itself is the credential.
@@ -84,7 +95,18 @@ export function inspectInvitation(token: string, now = new Date()): InvitationSt
     .get();
   if (!row || !row.active) return { state: "invalid" };
   if (row.invitation.usedAt) return { state: "used" };
-  if (row.invitation.revokedAt) return { state: "replaced" };
+  if (row.invitation.revokedAt) {
+    // Revoked with nothing newer after it: an administrator withdrew the link (revokeInvitation);
+    // with a newer invitation, that one replaced it.
+    const newer = db
+      .select({ id: invitations.id })
+      .from(invitations)
+      .where(
+        and(eq(invitations.userId, row.invitation.userId), gt(invitations.id, row.invitation.id)),
+      )
+      .get();
+    return { state: newer ? "replaced" : "revoked" };
+  }
   if (Date.parse(row.invitation.expiresAt) <= now.getTime())
     return { state: "expired", expiredAt: row.invitation.expiresAt };
   return {
@@ -103,6 +125,8 @@ export const INVITATION_MESSAGES = {
   used: "This invitation link has already been used to choose a password; it works only once. Sign in with your e-mail address and that password.",
   replaced:
     "A newer invitation replaced this link. Use the link in the most recent e-mail you received.",
+  revoked:
+    "This invitation link was withdrawn by an administrator. Ask your contact at the supplier to invite you again; you will receive a new link.",
   expired:
     "This invitation link has expired. Ask your contact at the supplier to send the proposal again; you will receive a new link.",
 } as const;
@@ -157,4 +181,84 @@ export function acceptInvitation(token: string, password: string, now = new Date
     detail: `${user.email} chose a password`,
   });
   return { email: user.email, proposalId: state.proposalId };
+}
+
+type InvitationTarget = { id: number; email: string; name: string; active: boolean };
+
+function invitationTargetOrThrow(userId: number): InvitationTarget {
+  const user = db
+    .select({ id: users.id, email: users.email, name: users.name, active: users.active })
+    .from(users)
+    .where(eq(users.id, userId))
+    .get();
+  if (!user) throw new NotFoundError("No such user");
+  return user;
+}
+
+export const INVITATION_ADMIN_MESSAGES = {
+  passwordSet: (email: string) =>
+    `${email} has already chosen a password, so there is no invitation to send again. If they have forgotten it, create a new user for them or ask them to use the password they chose.`,
+  deactivated: (email: string) =>
+    `${email} is deactivated. Reactivate the user before sending them a new invitation.`,
+  nothingToRevoke: (email: string) =>
+    `${email} has no open invitation link to revoke. Send the invitation again to give them a new one.`,
+  revokePasswordSet: (email: string) =>
+    `${email} has already chosen a password; their invitation was used and cannot be revoked. Deactivate the user to stop them signing in.`,
+} as const;
+
+/**
+ * The user an administrator may send a new invitation to: one still waiting to choose a
+ * password, and active (an invitation link of a deactivated user does not work). Returns the
+ * proposal of their latest invitation, so the new link leads to the same proposal.
+ */
+export function resendableInvitationOrThrow(caller: SessionUser, userId: number) {
+  assertRole(caller, "admin");
+  const user = invitationTargetOrThrow(userId);
+  if (!awaitsFirstPassword(user.id))
+    throw new ConflictError(INVITATION_ADMIN_MESSAGES.passwordSet(user.email));
+  if (!user.active) throw new ConflictError(INVITATION_ADMIN_MESSAGES.deactivated(user.email));
+  const latest = db
+    .select({ proposalId: invitations.proposalId })
+    .from(invitations)
+    .where(eq(invitations.userId, user.id))
+    .orderBy(desc(invitations.id))
+    .limit(1)
+    .get();
+  return { user, proposalId: latest?.proposalId ?? null };
+}
+
+/**
+ * Revokes the user's open invitation links: they stop working at once. The user stays, and since
+ * they never chose a password they cannot sign in until an administrator (or a proposal sent to
+ * them) invites them again.
+ */
+export function revokeInvitation(caller: SessionUser, userId: number, now = new Date()) {
+  assertRole(caller, "admin");
+  const user = invitationTargetOrThrow(userId);
+  if (!awaitsFirstPassword(user.id))
+    throw new ConflictError(INVITATION_ADMIN_MESSAGES.revokePasswordSet(user.email));
+  const stamp = now.toISOString();
+  return db.transaction((tx) => {
+    const revoked = tx
+      .update(invitations)
+      .set({ revokedAt: stamp })
+      .where(
+        and(
+          eq(invitations.userId, user.id),
+          isNull(invitations.usedAt),
+          isNull(invitations.revokedAt),
+        ),
+      )
+      .run();
+    if (revoked.changes === 0)
+      throw new ConflictError(INVITATION_ADMIN_MESSAGES.nothingToRevoke(user.email));
+    recordAudit({
+      actor: caller,
+      action: "invitation.revoke",
+      targetType: "user",
+      targetId: user.id,
+      detail: `${user.email}: invitation link revoked`,
+    });
+    return { email: user.email, revokedAt: stamp };
+  });
 }

@@ -1,10 +1,19 @@
-import { and, eq, like, type SQL } from "drizzle-orm";
-import { cases, quotes } from "@/db/schema";
+import { and, asc, count, desc, eq, like, sql, type SQL } from "drizzle-orm";
+import { db } from "@/db";
+import { accounts, cases, proposals, quotes, sites } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { stageTotals, sum, winRate, type StageTotal } from "@/lib/pipeline/figures";
 import { QUOTE_STAGES } from "@/lib/pipeline/stages";
-import type { PipelineFilters } from "@/lib/validations/pipeline";
-import { listVisibleQuotes, vendorView, type VendorProposal } from "./proposals";
+import { pageWindow, type ListPage } from "@/lib/lists/list-params";
+import type { PipelineFilters, PipelineListParams, PipelineSort } from "@/lib/validations/pipeline";
+import {
+  listVisibleQuotes,
+  proposalScope,
+  quoteOwner,
+  quoteQuery,
+  vendorView,
+  type VendorProposal,
+} from "./proposals";
 import { getSalesSettings } from "./sales-settings";
 
 export type Pipeline = {
@@ -99,5 +108,87 @@ export function pipelineFilterOptions(caller: SessionUser) {
   return {
     owners: [...owners].map(([id, name]) => ({ id, name })).sort(byName),
     accounts: [...accounts].map(([id, name]) => ({ id, name })).sort(byName),
+  };
+}
+
+export const PIPELINE_PAGE_SIZE = 25;
+
+// Each sort of the quote list as SQL. The value is stored as a decimal string, so it sorts as a
+// number; the weighted value is that number times the stage's chance as the administrator set it
+// (the rounding of the shown amount does not change the order). A payback that never comes sorts
+// after every other one.
+function sortOrder(
+  sort: PipelineSort,
+  probabilities: Record<string, number>,
+  direction: typeof asc,
+): SQL[] {
+  const stageRank = sql`case ${quotes.stage} ${sql.join(
+    QUOTE_STAGES.map((s, i) => sql`when ${s} then ${i}`),
+    sql` `,
+  )} end`;
+  const chance = sql`case ${quotes.stage} ${sql.join(
+    QUOTE_STAGES.map((s) => sql`when ${s} then ${probabilities[s]}`),
+    sql` `,
+  )} end`;
+  switch (sort) {
+    case "proposal":
+      return [direction(sql`${cases.name} collate nocase`), direction(sql`${proposals.version}`)];
+    case "account":
+      return [direction(sql`${accounts.name} collate nocase`)];
+    case "owner":
+      return [direction(sql`${quoteOwner.name} collate nocase`)];
+    case "stage":
+      return [direction(stageRank)];
+    case "value":
+      return [direction(sql`cast(${quotes.value} as real)`)];
+    case "weighted":
+      return [direction(sql`cast(${quotes.value} as real) * ${chance}`)];
+    case "close":
+      return [direction(sql`${quotes.expectedCloseOn}`)];
+    case "payback":
+      return [asc(sql`${quotes.paybackYears} is null`), direction(quotes.paybackYears)];
+    case "created":
+      return [direction(sql`${proposals.createdAt}`)];
+  }
+}
+
+/**
+ * One page of the quote list, sorted in SQL, within the same scope and filters as pipeline()
+ * (whose totals and charts stay over every filtered quote, not just this page).
+ */
+export function pipelineQuotesPage(
+  caller: SessionUser,
+  filters: PipelineFilters,
+  list: Partial<PipelineListParams> = {},
+  pageSize = PIPELINE_PAGE_SIZE,
+): ListPage<VendorProposal> {
+  const probabilities = getSalesSettings().stageProbabilities;
+  const where = and(proposalScope(caller), pipelineScope(caller), filterWhere(filters));
+  const total = db
+    .select({ n: count() })
+    .from(proposals)
+    .innerJoin(quotes, eq(quotes.proposalId, proposals.id))
+    .innerJoin(cases, eq(cases.id, proposals.caseId))
+    .innerJoin(accounts, eq(accounts.id, cases.accountId))
+    .innerJoin(sites, eq(sites.id, cases.siteId))
+    .where(where)
+    .get()!.n;
+  const window = pageWindow(total, list.page ?? 1, pageSize);
+  const direction = list.dir === "asc" ? asc : desc;
+  const rows = quoteQuery()
+    .where(where)
+    .orderBy(
+      ...sortOrder(list.sort ?? "created", probabilities, direction),
+      direction(proposals.id),
+    )
+    .limit(window.limit)
+    .offset(window.offset)
+    .all();
+  return {
+    rows: rows.map((r) => vendorView(r, probabilities)),
+    total,
+    page: window.page,
+    pageCount: window.pageCount,
+    pageSize,
   };
 }

@@ -16,6 +16,8 @@ import { VENDOR_ROLES } from "@/lib/auth/roles";
 // proposal outside the scope is not found, exactly like one that does not exist.
 
 const owner = alias(users, "quote_owner");
+// The owner's row in quoteQuery(), for lists that sort by the owner's name.
+export const quoteOwner = owner;
 const sentTo = alias(users, "quote_sent_to");
 
 const rowColumns = {

@@ -1,11 +1,30 @@
-import { and, asc, desc, eq, like, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, like, or, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
-import { accounts, users } from "@/db/schema";
+import { accounts, invitations, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError } from "@/lib/errors";
-import type { ChangeRoleInput, CreateUserInput, UserListParams } from "@/lib/validations/user";
+import { pageWindow, type ListPage } from "@/lib/lists/list-params";
+import type {
+  ChangeRoleInput,
+  CreateUserInput,
+  UserListQuery,
+  UserStatus,
+} from "@/lib/validations/user";
 import { recordAudit } from "./audit";
+
+// The rule of awaitsFirstPassword (db/queries/invitations.ts) in SQL: a user who has invitations
+// and used none has never chosen a password. Users created with a password have no invitation.
+const awaitsPassword = sql`(exists (select 1 from ${invitations} i where i.user_id = ${users.id})
+  and not exists (select 1 from ${invitations} i where i.user_id = ${users.id} and i.used_at is not null))`;
+
+const statusOf = sql<UserStatus>`case when ${users.active} = 0 then 'inactive'
+  when ${awaitsPassword} then 'invited' else 'active' end`;
+
+// The newest invitation of the user, for "invited on …, link valid until …".
+const latestInvitation = (column: "created_at" | "expires_at" | "revoked_at") =>
+  sql<string | null>`(select i.${sql.raw(column)} from ${invitations} i
+    where i.user_id = ${users.id} order by i.id desc limit 1)`;
 
 const publicColumns = {
   id: users.id,
@@ -16,6 +35,10 @@ const publicColumns = {
   accountName: accounts.name,
   active: users.active,
   createdAt: users.createdAt,
+  status: statusOf,
+  invitedAt: latestInvitation("created_at"),
+  inviteExpiresAt: latestInvitation("expires_at"),
+  inviteRevokedAt: latestInvitation("revoked_at"),
 };
 
 export type UserRow = {
@@ -27,6 +50,13 @@ export type UserRow = {
   accountName: string | null;
   active: boolean;
   createdAt: string;
+  status: UserStatus;
+  // The newest invitation, when the user has one (only meaningful while status is "invited").
+  invitedAt: string | null;
+  inviteExpiresAt: string | null;
+  inviteRevokedAt: string | null;
+  // Whether the newest link still works: null for users not waiting on an invitation.
+  inviteLink: "open" | "expired" | "revoked" | null;
 };
 
 // Sign-in runs before there is a caller, so this is the one lookup that takes none.
@@ -88,7 +118,23 @@ const sortColumns = {
   createdAt: users.createdAt,
 };
 
-export function listUsers(caller: SessionUser, params: UserListParams = {}): UserRow[] {
+export const USERS_PAGE_SIZE = 25;
+
+function inviteLinkState(
+  row: Pick<UserRow, "status" | "inviteExpiresAt" | "inviteRevokedAt">,
+  now: Date,
+): UserRow["inviteLink"] {
+  if (row.status !== "invited" || !row.inviteExpiresAt) return null;
+  if (row.inviteRevokedAt) return "revoked";
+  return Date.parse(row.inviteExpiresAt) <= now.getTime() ? "expired" : "open";
+}
+
+export function listUsers(
+  caller: SessionUser,
+  params: UserListQuery = {},
+  pageSize = USERS_PAGE_SIZE,
+  now = new Date(),
+): ListPage<UserRow> {
   assertRole(caller, "admin");
   const filters: SQL[] = [];
   if (params.q) {
@@ -96,14 +142,22 @@ export function listUsers(caller: SessionUser, params: UserListParams = {}): Use
     filters.push(or(like(users.name, pattern), like(users.email, pattern))!);
   }
   if (params.role) filters.push(eq(users.role, params.role));
+  if (params.status) filters.push(sql`${statusOf} = ${params.status}`);
+  const where = filters.length ? and(...filters) : undefined;
+  const total = db.select({ n: count() }).from(users).where(where).get()!.n;
+  const window = pageWindow(total, params.page ?? 1, pageSize);
   const column = sortColumns[params.sort ?? "name"];
-  return db
+  const rows = db
     .select(publicColumns)
     .from(users)
     .leftJoin(accounts, eq(users.accountId, accounts.id))
-    .where(filters.length ? and(...filters) : undefined)
+    .where(where)
     .orderBy(params.dir === "desc" ? desc(column) : asc(column), asc(users.id))
-    .all();
+    .limit(window.limit)
+    .offset(window.offset)
+    .all()
+    .map((row) => ({ ...row, inviteLink: inviteLinkState(row, now) }));
+  return { rows, total, page: window.page, pageCount: window.pageCount, pageSize };
 }
 
 function getUserOrThrow(id: number) {

@@ -77,6 +77,31 @@ export function invitationMail(
   );
 }
 
+/**
+ * A new invitation link sent by an administrator, for someone who has not chosen a password yet
+ * (the first link expired, was lost, or was revoked). Earlier links stop working with it.
+ */
+export function invitationResentMail(args: {
+  recipientName: string;
+  senderName: string;
+  invitationUrl: string;
+  expiresAt: string;
+  email: string;
+}): MailContent {
+  return composeMail("Your new Loopshift invitation link", "A new link to choose your password", [
+    { kind: "paragraph", text: `Hello ${args.recipientName},` },
+    {
+      kind: "paragraph",
+      text: `${args.senderName} has sent you a new link to choose a password for your account (${args.email}). The link works once and until ${dateText(args.expiresAt)}. Links in earlier invitations no longer work.`,
+    },
+    { kind: "button", label: "Choose a password", href: args.invitationUrl },
+    {
+      kind: "note",
+      text: "If you did not expect this message, ignore it: nothing happens until the link is used.",
+    },
+  ]);
+}
+
 /** To a reviewer who already has a password: a new proposal is in their portal. */
 export function proposalSentMail(args: SentArgs & { proposalUrl: string }): MailContent {
   return proposalSent(args, "Sign in to check the payback, try your own figures and decide.", [

@@ -69,8 +69,16 @@ export function checkAxisConsistency(
   }
 }
 
+// The catalogue motor whose figures the form took (components/installed-base/axis-form.tsx);
+// blank when the figures were typed from a datasheet.
+// Left out, the stored one stays (an update from the importer or an older client).
+const referenceMotorField = z.preprocess(
+  (v) => (v === "" ? null : v),
+  idSchema("Choose a motor from the catalogue, or none").nullable().optional(),
+);
+
 export const axisInputSchema = axisFieldsSchema
-  .extend({ machineId: idSchema("Choose a machine") })
+  .extend({ machineId: idSchema("Choose a machine"), referenceMotorId: referenceMotorField })
   .superRefine(checkAxisConsistency);
 
 // The engine's own schemas for the optional objects of docs/model.md, taken from its axis schema

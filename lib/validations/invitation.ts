@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idSchema } from "@/lib/validations/ids";
 
 // The reviewer's first password, chosen on the invitation page (same rule as createUserSchema).
 export const setPasswordSchema = z
@@ -15,3 +16,8 @@ export const setPasswordSchema = z
   });
 
 export type SetPasswordInput = z.infer<typeof setPasswordSchema>;
+
+// An administrator's resend or revoke names the invited user; nothing else is sent.
+export const invitationUserSchema = z.object({
+  userId: idSchema("Choose the invited user"),
+});

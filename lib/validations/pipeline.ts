@@ -1,5 +1,6 @@
 import { displayName } from "./display-name";
 import { z } from "zod";
+import { listParamsSchema } from "@/lib/lists/list-params";
 import { idSchema } from "@/lib/validations/ids";
 import { QUOTE_STAGES } from "@/lib/pipeline/stages";
 import { bounded, int, money } from "@/lib/engine/schema-fields";
@@ -99,3 +100,22 @@ export type DecisionInput = z.infer<typeof decisionSchema>;
 export type WhatIfInput = z.infer<typeof whatIfSchema>;
 export type QuoteUpdateInput = z.infer<typeof quoteUpdateSchema>;
 export type PipelineFilters = z.infer<typeof pipelineFiltersSchema>;
+
+// The quote list under the pipeline's charts sorts and pages on the server (lib/lists).
+export const PIPELINE_SORTS = [
+  "created",
+  "proposal",
+  "account",
+  "owner",
+  "stage",
+  "value",
+  "weighted",
+  "close",
+  "payback",
+] as const;
+export type PipelineSort = (typeof PIPELINE_SORTS)[number];
+export const pipelineListParamsSchema = listParamsSchema(PIPELINE_SORTS, {
+  sort: "created",
+  dir: "desc",
+});
+export type PipelineListParams = z.infer<typeof pipelineListParamsSchema>;

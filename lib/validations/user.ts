@@ -2,6 +2,7 @@ import { displayName } from "./display-name";
 import { z } from "zod";
 import { idSchema } from "@/lib/validations/ids";
 import { ROLES } from "@/lib/auth/roles";
+import { listParamsSchema } from "@/lib/lists/list-params";
 
 const roleField = z.enum(ROLES, { error: "Choose one of: engineer, manager, reviewer, admin" });
 
@@ -56,14 +57,19 @@ export const setActiveSchema = z.object({
 
 export const USER_SORTS = ["name", "email", "role", "createdAt"] as const;
 
-export const userListParamsSchema = z.object({
-  q: z.string().trim().max(100).optional().catch(undefined),
+// Invited: came in by invitation and has not chosen a password yet (see awaitsFirstPassword in
+// db/queries/invitations.ts); active: may sign in; inactive: deactivated by an administrator.
+export const USER_STATUSES = ["invited", "active", "inactive"] as const;
+export type UserStatus = (typeof USER_STATUSES)[number];
+
+export const userListParamsSchema = listParamsSchema(USER_SORTS, { sort: "name" }).extend({
   role: roleField.optional().catch(undefined),
-  sort: z.enum(USER_SORTS).optional().catch(undefined),
-  dir: z.enum(["asc", "desc"]).optional().catch(undefined),
+  status: z.enum(USER_STATUSES).optional().catch(undefined),
 });
 
 export type CreateUserInput = z.infer<typeof createUserSchema>;
 export type CreateUserFormValues = z.input<typeof createUserSchema>;
 export type ChangeRoleInput = z.infer<typeof changeRoleSchema>;
 export type UserListParams = z.infer<typeof userListParamsSchema>;
+// What a caller passes: every part may be left out and takes the list's default.
+export type UserListQuery = Partial<UserListParams>;

@@ -1,6 +1,6 @@
 import bcrypt from "bcryptjs";
 import { describe, expect, it } from "vitest";
-import { listAudit } from "@/db/queries/audit";
+import { listAudit, listAuditPage } from "@/db/queries/audit";
 import {
   changeRole,
   createUser,
@@ -24,16 +24,16 @@ describe("user administration", () => {
   });
 
   it("lists, filters and sorts users for the administrator only", () => {
-    expect(listUsers(admin()).map((u) => u.email)).toHaveLength(5);
+    expect(listUsers(admin()).rows.map((u) => u.email)).toHaveLength(5);
     expect(
       listUsers(admin(), { role: "engineer" })
-        .map((u) => u.email)
+        .rows.map((u) => u.email)
         .sort(),
     ).toEqual(["engineer2@example.com", "engineer@example.com"]);
-    expect(listUsers(admin(), { q: "REVIEW" }).map((u) => u.email)).toEqual([
+    expect(listUsers(admin(), { q: "REVIEW" }).rows.map((u) => u.email)).toEqual([
       "reviewer@example.com",
     ]);
-    const byEmailDesc = listUsers(admin(), { sort: "email", dir: "desc" }).map((u) => u.email);
+    const byEmailDesc = listUsers(admin(), { sort: "email", dir: "desc" }).rows.map((u) => u.email);
     expect(byEmailDesc).toEqual([...byEmailDesc].sort().reverse());
     expect(() => listUsers(caller("manager@example.com"))).toThrow(ForbiddenError);
   });
@@ -94,5 +94,36 @@ describe("user administration", () => {
     expect(() => setUserActive(caller("engineer@example.com"), engineer2.id, false)).toThrow(
       ForbiddenError,
     );
+  });
+
+  it("pages, filters and sorts the audit log on the server, for the administrator only", () => {
+    const engineer2 = caller("engineer2@example.com");
+    setUserActive(admin(), engineer2.id, false);
+    setUserActive(admin(), engineer2.id, true);
+    const all = listAuditPage(admin(), {}, 1000);
+    expect(all.total).toBe(all.rows.length);
+    const newestFirst = all.rows.map((e) => e.at);
+    expect(newestFirst).toEqual([...newestFirst].sort().reverse());
+    const oldestFirst = listAuditPage(admin(), { dir: "asc" }, 1000).rows.map((e) => e.id);
+    expect(oldestFirst).toEqual(all.rows.map((e) => e.id).reverse());
+
+    const deactivations = listAuditPage(admin(), { q: "user.deactivate" });
+    expect(deactivations.rows.length).toBeGreaterThan(0);
+    expect(deactivations.rows.every((e) => e.action === "user.deactivate")).toBe(true);
+    // The text filter also finds the actor's e-mail, and a "%" is a plain character.
+    expect(listAuditPage(admin(), { q: "admin@example" }).total).toBe(
+      all.rows.filter(
+        (e) => e.actorEmail === "admin@example.com" || e.detail?.includes("admin@example"),
+      ).length,
+    );
+    expect(listAuditPage(admin(), { q: "%" }).total).toBe(
+      all.rows.filter((e) => [e.action, e.actorEmail, e.detail].some((t) => t?.includes("%")))
+        .length,
+    );
+
+    const page2 = listAuditPage(admin(), { page: 2 }, 2);
+    expect(page2.page).toBe(2);
+    expect(page2.rows.map((e) => e.id)).toEqual(all.rows.slice(2, 4).map((e) => e.id));
+    expect(() => listAuditPage(caller("manager@example.com"))).toThrow(ForbiddenError);
   });
 });

@@ -1,49 +1,66 @@
 import type { Metadata } from "next";
 import { CreateUserForm } from "@/components/admin/create-user-form";
+import { InvitationActions } from "@/components/admin/invitation-actions";
 import { UserRowActions } from "@/components/admin/user-row-actions";
+import { UserStatus } from "@/components/admin/user-status";
 import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { PageHeader, Panel } from "@/components/ui/panel";
+import { Pager } from "@/components/ui/pager";
 import { SortHeader, Table, Td, Th } from "@/components/ui/table";
 import { listAccountOptions } from "@/db/queries/accounts";
-import { listAudit } from "@/db/queries/audit";
+import { listAuditPage } from "@/db/queries/audit";
 import { listUsers } from "@/db/queries/users";
 import { ROLES } from "@/db/schema/users";
 import { requirePageUser } from "@/server/auth";
 import { ROLE_LABELS } from "@/lib/auth/roles";
-import { userListParamsSchema } from "@/lib/validations/user";
+import { flatParams, listHref } from "@/lib/lists/list-params";
+import { AUDIT_URL_KEYS, auditListParamsSchema } from "@/lib/validations/audit";
+import { USER_STATUSES, userListParamsSchema } from "@/lib/validations/user";
 
 export const metadata: Metadata = { title: "Users and audit" };
 
 type SearchParams = Promise<Record<string, string | string[] | undefined>>;
 
-function first(v: string | string[] | undefined) {
-  return Array.isArray(v) ? v[0] : v;
+const STATUS_LABELS = { invited: "Invited", active: "Active", inactive: "Deactivated" } as const;
+
+// Hidden inputs that carry the other list's state through a GET filter form.
+function Keep({ current, keys }: { current: Record<string, string | undefined>; keys: string[] }) {
+  return keys.map((k) =>
+    current[k] ? <input key={k} type="hidden" name={k} value={current[k]} /> : null,
+  );
 }
 
 export default async function AdminPage({ searchParams }: { searchParams: SearchParams }) {
   const admin = await requirePageUser("admin");
-  const raw = await searchParams;
-  const params = userListParamsSchema.parse({
-    q: first(raw.q),
-    role: first(raw.role),
-    sort: first(raw.sort),
-    dir: first(raw.dir),
+  const current = flatParams(await searchParams);
+  const params = userListParamsSchema.parse(current);
+  // The audit list shares the page, so its state lives under its own names (aq, adir, apage).
+  const auditParams = auditListParamsSchema.parse({
+    q: current[AUDIT_URL_KEYS.q],
+    sort: current[AUDIT_URL_KEYS.sort],
+    dir: current[AUDIT_URL_KEYS.dir],
+    page: current[AUDIT_URL_KEYS.page],
   });
   const users = listUsers(admin, params);
   const accounts = listAccountOptions(admin);
-  const audit = listAudit(admin, 100);
-  const sort = params.sort ?? "name";
-  const dir = params.dir ?? "asc";
-  const sortHref = (column: string, d: "asc" | "desc") => {
-    const qs = new URLSearchParams();
-    if (params.q) qs.set("q", params.q);
-    if (params.role) qs.set("role", params.role);
-    qs.set("sort", column);
-    qs.set("dir", d);
-    return `/admin?${qs}`;
-  };
+  const audit = listAuditPage(admin, auditParams);
+  const { sort, dir } = params;
+  const userHref = (changes: Record<string, string | number | undefined>) =>
+    listHref("/admin", current, changes);
+  const sortHref = (column: string, d: "asc" | "desc") => userHref({ sort: column, dir: d });
+  // A change of the audit list keeps the users' page and goes back to the audit's first page.
+  const auditHref = (changes: Record<string, string | number | undefined>) =>
+    listHref("/admin", current, {
+      page: current.page,
+      [AUDIT_URL_KEYS.page]: undefined,
+      ...changes,
+    });
+  const auditSortHref = (_column: string, d: "asc" | "desc") =>
+    auditHref({ [AUDIT_URL_KEYS.dir]: d });
+  const auditKeys = Object.values(AUDIT_URL_KEYS);
+  const userKeys = ["q", "role", "status", "sort", "dir"];
 
   return (
     <div className="space-y-8">
@@ -58,6 +75,7 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
           action="/admin"
           className="mb-4 flex flex-wrap items-end gap-3"
           role="search"
+          aria-label="Users"
         >
           <div>
             <label htmlFor="user-q" className="block text-small font-bold text-steel-800">
@@ -78,8 +96,25 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
               ))}
             </Select>
           </div>
-          {params.sort ? <input type="hidden" name="sort" value={params.sort} /> : null}
-          {params.dir ? <input type="hidden" name="dir" value={params.dir} /> : null}
+          <div>
+            <label htmlFor="user-status" className="block text-small font-bold text-steel-800">
+              Status
+            </label>
+            <Select
+              id="user-status"
+              name="status"
+              defaultValue={params.status ?? ""}
+              className="w-48"
+            >
+              <option value="">Any status</option>
+              {USER_STATUSES.map((s) => (
+                <option key={s} value={s}>
+                  {STATUS_LABELS[s]}
+                </option>
+              ))}
+            </Select>
+          </div>
+          <Keep current={current} keys={["sort", "dir", ...auditKeys]} />
           <button type="submit" className={buttonClass("secondary")}>
             Filter
           </button>
@@ -102,7 +137,7 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
             </tr>
           </thead>
           <tbody className="divide-y divide-steel-100">
-            {users.map((u) => (
+            {users.rows.map((u) => (
               <tr key={u.id} data-testid={`user-${u.email}`}>
                 <Td className="font-bold">{u.name}</Td>
                 <Td className="break-all">{u.email}</Td>
@@ -113,19 +148,18 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
                   ) : null}
                 </Td>
                 <Td>
-                  {u.active ? (
-                    <Badge tone="success">Active</Badge>
-                  ) : (
-                    <Badge tone="danger">Deactivated</Badge>
-                  )}
+                  <UserStatus user={u} />
                 </Td>
                 <Td className="whitespace-nowrap">{u.createdAt.slice(0, 10)}</Td>
                 <Td>
                   <UserRowActions user={u} accounts={accounts} isSelf={u.id === admin.id} />
+                  {u.status === "invited" ? (
+                    <InvitationActions user={u} linkOpen={u.inviteLink === "open"} />
+                  ) : null}
                 </Td>
               </tr>
             ))}
-            {users.length === 0 ? (
+            {users.rows.length === 0 ? (
               <tr>
                 <Td colSpan={6} className="py-6 text-center text-steel-700">
                   No user matches this filter.
@@ -134,27 +168,60 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
             ) : null}
           </tbody>
         </Table>
+        <Pager
+          page={users.page}
+          pageCount={users.pageCount}
+          total={users.total}
+          noun={["user", "users"]}
+          href={(page) => userHref({ page })}
+        />
       </Panel>
 
       <Panel title="Add a user">
         <CreateUserForm accounts={accounts} />
       </Panel>
 
-      <Panel
-        title="Audit log"
-        actions={<span className="text-small text-steel-600">Newest first, last 100 entries</span>}
-      >
+      <Panel title="Audit log">
+        <form
+          method="get"
+          action="/admin"
+          className="mb-4 flex flex-wrap items-end gap-3"
+          role="search"
+          aria-label="Audit log"
+        >
+          <div>
+            <label htmlFor="audit-q" className="block text-small font-bold text-steel-800">
+              Action, who or detail contains
+            </label>
+            <Input
+              id="audit-q"
+              name={AUDIT_URL_KEYS.q}
+              defaultValue={auditParams.q ?? ""}
+              className="w-64"
+            />
+          </div>
+          <Keep current={current} keys={[...userKeys, "page", AUDIT_URL_KEYS.dir]} />
+          <button type="submit" className={buttonClass("secondary")}>
+            Filter the audit log
+          </button>
+        </form>
         <Table caption="Audit log">
           <thead>
             <tr>
-              <Th>When (UTC)</Th>
+              <SortHeader
+                label="When (UTC)"
+                column="at"
+                sort="at"
+                dir={auditParams.dir}
+                href={auditSortHref}
+              />
               <Th>Who</Th>
               <Th>What</Th>
               <Th>Detail</Th>
             </tr>
           </thead>
           <tbody className="divide-y divide-steel-100">
-            {audit.map((e) => (
+            {audit.rows.map((e) => (
               <tr key={e.id}>
                 <Td className="whitespace-nowrap tabular-nums">
                   {e.at.replace("T", " ").slice(0, 19)}
@@ -176,8 +243,22 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
                 <Td className="text-steel-700">{e.detail}</Td>
               </tr>
             ))}
+            {audit.rows.length === 0 ? (
+              <tr>
+                <Td colSpan={4} className="py-6 text-center text-steel-700">
+                  No audit entry matches this filter.
+                </Td>
+              </tr>
+            ) : null}
           </tbody>
         </Table>
+        <Pager
+          page={audit.page}
+          pageCount={audit.pageCount}
+          total={audit.total}
+          noun={["entry", "entries"]}
+          href={(page) => auditHref({ [AUDIT_URL_KEYS.page]: page })}
+        />
       </Panel>
     </div>
   );

@@ -6,15 +6,22 @@ import { ValueByMonthChart, ValueByStageChart } from "@/components/pipeline/pipe
 import { buttonClass } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
-import { Table, Td, Th } from "@/components/ui/table";
-import { pipeline, pipelineFilterOptions, pipelineWinRate } from "@/db/queries/pipeline";
+import { Pager } from "@/components/ui/pager";
+import { SortHeader, Table, Td, Th } from "@/components/ui/table";
+import {
+  pipeline,
+  pipelineFilterOptions,
+  pipelineQuotesPage,
+  pipelineWinRate,
+} from "@/db/queries/pipeline";
 import { getSalesSettings } from "@/db/queries/sales-settings";
 import { requirePageUser } from "@/server/auth";
-import { firstParam, type SearchParams } from "@/lib/pages";
+import { type SearchParams } from "@/lib/pages";
+import { flatParams, listHref } from "@/lib/lists/list-params";
 import { sum } from "@/lib/pipeline/figures";
 import { OPEN_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import { formatMoney, formatPayback, formatPct } from "@/lib/results/format";
-import { pipelineFiltersSchema } from "@/lib/validations/pipeline";
+import { pipelineFiltersSchema, pipelineListParamsSchema } from "@/lib/validations/pipeline";
 import { QuoteStageOptions } from "@/components/proposals/quote-stage-options";
 import { needsDiscountApproval } from "@/lib/pipeline/discount";
 import { FINANCE_TERMS } from "@/lib/glossary";
@@ -36,15 +43,28 @@ function monthsBefore(month: string, n: number) {
 
 export default async function PipelinePage({ searchParams }: { searchParams: SearchParams }) {
   const user = await requirePageUser("manager", "engineer");
-  const raw = await searchParams;
-  const filters = pipelineFiltersSchema.parse(
-    Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, firstParam(v)])),
-  );
+  const current = flatParams(await searchParams);
+  const filters = pipelineFiltersSchema.parse(current);
+  const listParams = pipelineListParamsSchema.parse(current);
   const thisMonth = new Date().toISOString().slice(0, 7);
   const period = { to: filters.to ?? thisMonth, from: filters.from ?? monthsBefore(thisMonth, 11) };
   if (period.from > period.to) [period.from, period.to] = [period.to, period.from];
 
+  // The charts and totals cover every quote the filters let through; the table shows one page.
   const data = pipeline(user, filters);
+  const quotePage = pipelineQuotesPage(user, filters, listParams);
+  const sortHref = (column: string, dir: "asc" | "desc") =>
+    listHref("/pipeline", current, { sort: column, dir });
+  const sortable = (label: string, column: string) => (
+    <SortHeader
+      key={column}
+      label={label}
+      column={column}
+      sort={listParams.sort}
+      dir={listParams.dir}
+      href={sortHref}
+    />
+  );
   const options = pipelineFilterOptions(user);
   const rate = pipelineWinRate(user, period, { owner: filters.owner, account: filters.account });
   const settings = getSalesSettings();
@@ -129,6 +149,8 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
           <FilterField id="f-to" label="Win rate to">
             <Input id="f-to" name="to" type="month" defaultValue={period.to} className="w-44" />
           </FilterField>
+          {current.sort ? <input type="hidden" name="sort" value={listParams.sort} /> : null}
+          {current.dir ? <input type="hidden" name="dir" value={listParams.dir} /> : null}
           <button type="submit" className={buttonClass("secondary")}>
             Apply filters
           </button>
@@ -211,19 +233,19 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
           <Table caption="Quotes">
             <thead>
               <tr>
-                <Th>Proposal</Th>
-                <Th>Account</Th>
-                <Th>Owner</Th>
-                <Th>Stage</Th>
-                <Th className="text-right">Value</Th>
+                {sortable("Proposal", "proposal")}
+                {sortable("Account", "account")}
+                {sortable("Owner", "owner")}
+                {sortable("Stage", "stage")}
+                {sortable("Value", "value")}
                 <Th className="text-right">Chance</Th>
-                <Th className="text-right">Weighted</Th>
-                <Th>Expected close</Th>
-                <Th className="text-right">Payback</Th>
+                {sortable("Weighted", "weighted")}
+                {sortable("Expected close", "close")}
+                {sortable("Payback", "payback")}
               </tr>
             </thead>
             <tbody className="divide-y divide-steel-100">
-              {data.quotes.map((q) => (
+              {quotePage.rows.map((q) => (
                 <tr key={q.id} data-testid={`quote-${q.id}`}>
                   <Td className="font-bold">
                     <Link href={`/proposals/${q.id}`} className="text-flux-700 hover:underline">
@@ -252,7 +274,7 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
             <tfoot>
               {data.totals.map((t) => (
                 <tr key={t.currency} className="bg-steel-50 font-bold">
-                  <Td colSpan={4}>Total ({t.count} quotes)</Td>
+                  <Td colSpan={4}>Total of the filtered quotes ({t.count})</Td>
                   <Td className="whitespace-nowrap text-right tabular-nums">
                     {formatMoney(t.value, t.currency)}
                   </Td>
@@ -265,6 +287,13 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
               ))}
             </tfoot>
           </Table>
+          <Pager
+            page={quotePage.page}
+            pageCount={quotePage.pageCount}
+            total={quotePage.total}
+            noun={["quote", "quotes"]}
+            href={(page) => listHref("/pipeline", current, { page })}
+          />
           <p className="mt-3 text-caption text-steel-600">
             Chance of closing per stage as the administrator set it
             {settings.isDefault

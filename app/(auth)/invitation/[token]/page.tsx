@@ -13,6 +13,7 @@ const TITLES = {
   invalid: "This link does not work",
   used: "This link has been used",
   replaced: "This link was replaced",
+  revoked: "This link was withdrawn",
   expired: "This link has expired",
 } as const;
 

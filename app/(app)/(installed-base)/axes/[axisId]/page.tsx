@@ -4,6 +4,7 @@ import { axisToFormValues } from "@/components/installed-base/axis-form-values";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getAxisOrThrow } from "@/db/queries/axes";
+import { listMotors } from "@/db/queries/catalogue";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
 import { requirePageUser } from "@/server/auth";
@@ -18,6 +19,10 @@ export default async function EditAxisPage({ params }: { params: Promise<{ axisI
   const axis = orNotFound(() => getAxisOrThrow(user, id));
   const site = getSiteOrThrow(user, axis.siteId);
   const machines = listMachines(user, site.id);
+  // A retired motor stays a choice for the axis that already names it.
+  const motors = listMotors(user, { includeRetired: true }).filter(
+    (m) => m.active || m.id === axis.referenceMotorId,
+  );
   return (
     <div className="space-y-6">
       <Breadcrumbs
@@ -38,6 +43,7 @@ export default async function EditAxisPage({ params }: { params: Promise<{ axisI
           machines={machines}
           axis={{ id: axis.id, values: axisToFormValues(axis) }}
           defaults={site}
+          motors={motors}
         />
       </Panel>
     </div>

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { AxisForm } from "@/components/installed-base/axis-form";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
+import { listMotors } from "@/db/queries/catalogue";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
 import { requirePageUser } from "@/server/auth";
@@ -35,7 +36,12 @@ export default async function NewAxisPage({ params }: { params: Promise<{ siteId
         </EmptyState>
       ) : (
         <Panel>
-          <AxisForm siteId={site.id} machines={machines} defaults={site} />
+          <AxisForm
+            siteId={site.id}
+            machines={machines}
+            defaults={site}
+            motors={listMotors(user)}
+          />
         </Panel>
       )}
     </div>
