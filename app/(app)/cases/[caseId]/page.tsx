@@ -4,6 +4,7 @@ import { CaseAxesEditor } from "@/components/cases/case-axes-editor";
 import { CaseToolbar } from "@/components/cases/case-toolbar";
 import { ProposalsList } from "@/components/cases/proposals-list";
 import { StageBadge } from "@/components/cases/stage-badge";
+import { RemovedAxesNotice } from "@/components/cases/removed-axes-notice";
 import { CaseResults } from "@/components/results/case-results";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
@@ -40,6 +41,7 @@ export default async function CasePage({ params }: { params: Promise<{ caseId: s
         lead={`${item.accountName} · ${item.siteName} · owner ${item.ownerName} · ${caseAxes.length} axes`}
         actions={<StageBadge stage={item.stage} />}
       />
+      <RemovedAxesNotice user={user} caseId={caseId} />
       <CaseToolbar caseId={caseId} canFreeze={caseAxes.length > 0} />
       {caseAxes.length ? <CaseResults caseId={caseId} methodHref="/method" /> : null}
       <Panel title="Axes and kits">
