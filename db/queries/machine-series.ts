@@ -1,7 +1,8 @@
 import { and, asc, count, desc, eq, getTableColumns, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { axes, machines } from "@/db/schema";
-import type { SessionUser } from "@/lib/auth/session-user";
+import { assertRole, type SessionUser } from "@/lib/auth/session-user";
+import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { pageWindow } from "@/lib/lists/list-params";
 import type { MachineAxisListParams } from "@/lib/validations/installed-base";
 import { recordAudit } from "./audit";
@@ -61,6 +62,7 @@ export function listMachineAxes(
  * transaction. Asset tags are cleared: they name physical units, which the copy is not.
  */
 export function duplicateMachine(caller: SessionUser, machineId: number, name: string) {
+  assertRole(caller, ...VENDOR_ROLES);
   const source = getMachineOrThrow(caller, machineId);
   const site = getSiteOrThrow(caller, source.siteId);
   return db.transaction(() => {

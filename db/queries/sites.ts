@@ -54,7 +54,6 @@ export function listSitesPage(
     name: sql`lower(${sites.name})`,
     machines: machineCount,
     axes: axisCount,
-    currency: sites.currency,
   }[params.sort ?? "name"];
   const rows = db
     .select({ ...getTableColumns(sites), accountName: accounts.name, machineCount, axisCount })

@@ -189,7 +189,5 @@ export const machineAxisListSchema = listParamsSchema(
   { sort: "label" },
 );
 export type MachineAxisListParams = z.infer<typeof machineAxisListSchema>;
-export const siteListSchema = listParamsSchema(["name", "machines", "axes", "currency"], {
-  sort: "name",
-});
+export const siteListSchema = listParamsSchema(["name", "machines", "axes"], { sort: "name" });
 export type SiteListParams = z.infer<typeof siteListSchema>;
