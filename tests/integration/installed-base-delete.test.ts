@@ -31,6 +31,9 @@ import {
 import { createAxis, listAxes } from "@/db/queries/axes";
 import { createMachine, listMachines } from "@/db/queries/machines";
 import { getProposalSnapshotOrThrow, listProposalsFor } from "@/db/queries/proposals";
+import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
+import { pipeline } from "@/db/queries/pipeline";
+import { buildDossier } from "@/lib/dossier";
 import { createSite, listSites } from "@/db/queries/sites";
 import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/errors";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
@@ -155,6 +158,12 @@ describe("deleting an axis", () => {
     );
     expect(workbook.byteLength).toBeGreaterThan(1000);
     expect(listProposalsFor(engineer()).some((p) => p.id === proposal.id)).toBe(true);
+    expect(pipeline(manager()).quotes.some((q) => q.id === proposal.id)).toBe(true);
+    // The dossier is built from the frozen input too, every axis of it still there.
+    const access = getDossierAccess(engineer(), proposal.id);
+    const frozen = parseFrozenInput(access.proposal);
+    const dossier = buildDossier(frozen, getDossierSettings(engineer(), proposal.id));
+    expect(dossier.result).toEqual(snapshot.result);
 
     const removed = listRemovedAxes(engineer(), found.id);
     expect(removed).toEqual([
