@@ -1,6 +1,9 @@
 import Link from "next/link";
 import { Table, Td, Th } from "@/components/ui/table";
 
+// "Axis rows" counts the rows of the axes list; "Axes (with quantity)" adds up each row's
+// quantity, the number of identical physical axes that row stands for.
+
 export function MachinesTable({
   machines,
   siteId,
@@ -13,7 +16,8 @@ export function MachinesTable({
     downtimeHours: number;
     throughputGainPct: number;
     marginPerOutputHour: string;
-    axisCount: number;
+    axisRows: number;
+    axisUnits: number;
   }[];
   siteId: number;
   currency: string;
@@ -24,7 +28,10 @@ export function MachinesTable({
         <tr>
           <Th>Machine</Th>
           <Th>Line</Th>
-          <Th className="text-right">Axes</Th>
+          <Th className="text-right">Axis rows</Th>
+          <Th className="text-right">
+            Axes <span className="font-normal">(with quantity)</span>
+          </Th>
           <Th className="text-right">Retrofit downtime [h]</Th>
           <Th className="text-right">Throughput gain [%]</Th>
           <Th className="text-right">Margin per output hour</Th>
@@ -37,15 +44,13 @@ export function MachinesTable({
         {machines.map((m) => (
           <tr key={m.id}>
             <Td className="font-bold">
-              <Link
-                href={`/sites/${siteId}?machine=${m.id}`}
-                className="text-flux-700 hover:underline"
-              >
+              <Link href={`/machines/${m.id}`} className="text-flux-700 hover:underline">
                 {m.name}
               </Link>
             </Td>
             <Td>{m.line ?? "—"}</Td>
-            <Td className="text-right tabular-nums">{m.axisCount}</Td>
+            <Td className="text-right tabular-nums">{m.axisRows}</Td>
+            <Td className="text-right tabular-nums">{m.axisUnits}</Td>
             <Td className="text-right tabular-nums">{m.downtimeHours}</Td>
             <Td className="text-right tabular-nums">{m.throughputGainPct}</Td>
             <Td className="text-right tabular-nums">
@@ -53,11 +58,11 @@ export function MachinesTable({
             </Td>
             <Td>
               <Link
-                href={`/machines/${m.id}`}
+                href={`/sites/${siteId}?machine=${m.id}`}
                 className="text-flux-700 hover:underline"
-                aria-label={`Edit ${m.name}`}
+                aria-label={`Filter the site's axes by ${m.name}`}
               >
-                Edit
+                Its axes here
               </Link>
             </Td>
           </tr>

@@ -1,4 +1,4 @@
-import { and, asc, eq, getTableColumns, sql } from "drizzle-orm";
+import { and, asc, count, eq, getTableColumns, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { axes, machines } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -6,14 +6,33 @@ import { ConflictError, NotFoundError } from "@/lib/errors";
 import type { MachineInput } from "@/lib/validations/installed-base";
 import { getSiteOrThrow } from "./sites";
 
+// Per machine: its axis rows, and its axes counted with their quantity (a row may stand for
+// several identical axes). A grouped subquery joined on the machine: a correlated subquery in a
+// one-table select would come out of drizzle with unqualified columns ("machine_id" = "id"),
+// which SQLite resolves inside the subquery to the axes table itself.
+function axisCountsByMachine() {
+  return db
+    .select({
+      machineId: axes.machineId,
+      axisRows: count().as("axis_rows"),
+      axisUnits: sql<number>`sum(${axes.quantity})`.as("axis_units"),
+    })
+    .from(axes)
+    .groupBy(axes.machineId)
+    .as("axis_counts");
+}
+
 export function listMachines(caller: SessionUser, siteId: number) {
   getSiteOrThrow(caller, siteId);
+  const counts = axisCountsByMachine();
   return db
     .select({
       ...getTableColumns(machines),
-      axisCount: sql<number>`(select coalesce(sum(${axes.quantity}), 0) from ${axes} where ${axes.machineId} = ${machines.id})`,
+      axisRows: sql<number>`coalesce(${counts.axisRows}, 0)`,
+      axisUnits: sql<number>`coalesce(${counts.axisUnits}, 0)`,
     })
     .from(machines)
+    .leftJoin(counts, eq(counts.machineId, machines.id))
     .where(eq(machines.siteId, siteId))
     .orderBy(asc(machines.name))
     .all();
@@ -30,7 +49,7 @@ export function getMachineOrThrow(caller: SessionUser, id: number) {
   return row;
 }
 
-function assertNameFree(siteId: number, name: string, exceptId?: number) {
+export function assertMachineNameFree(siteId: number, name: string, exceptId?: number) {
   const clash = db
     .select({ id: machines.id })
     .from(machines)
@@ -42,7 +61,7 @@ function assertNameFree(siteId: number, name: string, exceptId?: number) {
 
 export function createMachine(caller: SessionUser, siteId: number, input: MachineInput) {
   getSiteOrThrow(caller, siteId);
-  assertNameFree(siteId, input.name);
+  assertMachineNameFree(siteId, input.name);
   const [row] = db
     .insert(machines)
     .values({ ...input, siteId })
@@ -53,6 +72,6 @@ export function createMachine(caller: SessionUser, siteId: number, input: Machin
 
 export function updateMachine(caller: SessionUser, id: number, input: MachineInput) {
   const machine = getMachineOrThrow(caller, id);
-  assertNameFree(machine.siteId, input.name, id);
+  assertMachineNameFree(machine.siteId, input.name, id);
   db.update(machines).set(input).where(eq(machines.id, id)).run();
 }

@@ -1,9 +1,10 @@
-import { and, asc, eq, getTableColumns, isNull, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, getTableColumns, isNull, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { accounts, axes, machines, sites } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError } from "@/lib/errors";
-import type { SiteInput } from "@/lib/validations/installed-base";
+import { pageWindow } from "@/lib/lists/list-params";
+import type { SiteInput, SiteListParams } from "@/lib/validations/installed-base";
 import {
   accountScope,
   assertAccountOpen,
@@ -42,6 +43,42 @@ function siteList(caller: SessionUser, where: SQL | undefined) {
     .where(and(scoped(caller), where))
     .orderBy(asc(accounts.name), asc(sites.name))
     .all();
+}
+
+export const SITES_PAGE_SIZE = 25;
+
+// One page of an account's sites for the account page: filtered by name, sorted and paged in SQL.
+export function listSitesPage(
+  caller: SessionUser,
+  accountId: number,
+  params: Partial<SiteListParams> = {},
+) {
+  getAccountOrThrow(caller, accountId);
+  const q = params.q ? `%${params.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%` : undefined;
+  const where = and(
+    eq(sites.accountId, accountId),
+    q ? sql`${sites.name} like ${q} escape '\\'` : undefined,
+  );
+  const { total } = db.select({ total: count() }).from(sites).where(where).get()!;
+  const window = pageWindow(total, params.page ?? 1, SITES_PAGE_SIZE);
+  const machineCount = sql<number>`(select count(*) from ${machines} where ${machines.siteId} = ${sites.id})`;
+  const axisCount = sql<number>`(select coalesce(sum(${axes.quantity}), 0) from ${axes} where ${axes.siteId} = ${sites.id})`;
+  const sortBy = {
+    name: sql`lower(${sites.name})`,
+    machines: machineCount,
+    axes: axisCount,
+  }[params.sort ?? "name"];
+  const rows = db
+    .select({ ...getTableColumns(sites), accountName: accounts.name, machineCount, axisCount })
+    .from(sites)
+    // The join keeps drizzle naming "sites" in the correlated subqueries (see listMachines).
+    .innerJoin(accounts, eq(sites.accountId, accounts.id))
+    .where(where)
+    .orderBy(params.dir === "desc" ? desc(sortBy) : asc(sortBy), asc(sites.id))
+    .limit(window.limit)
+    .offset(window.offset)
+    .all();
+  return { rows, total, page: window.page, pageCount: window.pageCount, pageSize: window.pageSize };
 }
 
 export function getSiteOrThrow(caller: SessionUser, id: number) {

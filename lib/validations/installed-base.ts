@@ -9,6 +9,7 @@ import {
   torqueField,
 } from "@/lib/engine/schema-fields";
 import { AXIS_FIELDS } from "@/lib/fields";
+import { listParamsSchema } from "@/lib/lists/list-params";
 import { axisInputSchema as engineAxisSchema, stepLossEventSchema } from "@/lib/engine/schema";
 
 // Shared by the forms, the server actions, the API and the importer. Values are stored in SI
@@ -185,3 +186,16 @@ export type AxisInput = z.infer<typeof axisInputSchema>;
 export type AxisFields = z.infer<typeof axisFieldsSchema>;
 export type AxisApiInput = z.output<typeof axisApiSchema>;
 export type AxisListParams = z.infer<typeof axisListParamsSchema>;
+
+// Duplicating a machine of a series: only the new name is asked; everything else is copied.
+export const duplicateMachineSchema = z.object({ name: name("new machine's name") });
+export type DuplicateMachineInput = z.infer<typeof duplicateMachineSchema>;
+
+// The machine page's list of its axes, and the account page's list of its sites (lib/lists).
+export const machineAxisListSchema = listParamsSchema(
+  ["label", "quantity", "holdingTorqueNm", "speedRpm", "currentSettingA"],
+  { sort: "label" },
+);
+export type MachineAxisListParams = z.infer<typeof machineAxisListSchema>;
+export const siteListSchema = listParamsSchema(["name", "machines", "axes"], { sort: "name" });
+export type SiteListParams = z.infer<typeof siteListSchema>;

@@ -5,6 +5,7 @@ import { CaseDetails } from "@/components/cases/case-details";
 import { CaseToolbar } from "@/components/cases/case-toolbar";
 import { ProposalsList } from "@/components/cases/proposals-list";
 import { StageBadge } from "@/components/cases/stage-badge";
+import { RemovedAxesNotice } from "@/components/cases/removed-axes-notice";
 import { CaseResults } from "@/components/results/case-results";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
@@ -53,6 +54,7 @@ export default async function CasePage({
         lead={`${item.accountName} · ${item.siteName} · owner ${item.ownerName} · ${caseAxes.length} axes`}
         actions={<StageBadge stage={item.stage} />}
       />
+      <RemovedAxesNotice user={user} caseId={caseId} />
       <CaseToolbar caseId={caseId} canFreeze={caseAxes.length > 0} />
       <Panel title="Notes">
         <CaseDetails caseId={caseId} name={item.name} notes={item.notes} />

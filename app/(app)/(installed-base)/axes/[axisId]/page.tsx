@@ -1,10 +1,12 @@
 import type { Metadata } from "next";
 import { AxisForm } from "@/components/installed-base/axis-form";
+import { DeleteDialog } from "@/components/installed-base/delete-dialog";
 import { axisToFormValues } from "@/components/installed-base/axis-form-values";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getAxisOrThrow } from "@/db/queries/axes";
 import { listMotors } from "@/db/queries/catalogue";
+import { axisDeletionImpact, describeImpact } from "@/db/queries/installed-base-impact";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
 import { requirePageUser } from "@/server/auth";
@@ -23,6 +25,7 @@ export default async function EditAxisPage({ params }: { params: Promise<{ axisI
   const motors = listMotors(user, { includeRetired: true }).filter(
     (m) => m.active || m.id === axis.referenceMotorId,
   );
+  const impact = axisDeletionImpact(user, id);
   return (
     <div className="space-y-6">
       <Breadcrumbs
@@ -36,6 +39,15 @@ export default async function EditAxisPage({ params }: { params: Promise<{ axisI
       <PageHeader
         title={`Edit ${axis.label}`}
         lead="Values in SI units as stored; pick another unit beside a torque to enter it in that unit."
+        actions={
+          <DeleteDialog
+            kind="axis"
+            id={axis.id}
+            name={axis.label}
+            impact={describeImpact(impact)}
+            afterHref={`/machines/${axis.machineId}`}
+          />
+        }
       />
       <Panel>
         <AxisForm

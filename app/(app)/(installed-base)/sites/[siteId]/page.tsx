@@ -4,17 +4,20 @@ import { AxesTable } from "@/components/installed-base/axes-table";
 import { MachineForm } from "@/components/installed-base/machine-form";
 import { MachinesTable } from "@/components/installed-base/machines-table";
 import { ImportPanel } from "@/components/installed-base/import-panel";
+import { PendingUndo } from "@/components/installed-base/pending-undo";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { listAxes } from "@/db/queries/axes";
 import { listImports } from "@/db/queries/imports";
+import { getPendingUndo } from "@/db/queries/installed-base-delete";
 import { listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
 import { requirePageUser } from "@/server/auth";
 import { IMPORT_FIELDS } from "@/lib/import/fields";
 import { firstParam, idParam, orNotFound, type SearchParams } from "@/lib/pages";
 import { axisListParamsSchema } from "@/lib/validations/installed-base";
+import { parseId } from "@/lib/validations/ids";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 
 export const metadata: Metadata = { title: "Site" };
@@ -41,6 +44,9 @@ export default async function SitePage({
   const machines = listMachines(user, siteId);
   const axes = listAxes(user, siteId, listParams);
   const history = listImports(user, siteId);
+  // A machine or an axis deleted from its page lands here with its undo.
+  const deletedId = parseId(firstParam(raw.deleted));
+  const pending = deletedId ? getPendingUndo(user, deletedId) : null;
 
   return (
     <div className="space-y-6">
@@ -51,6 +57,7 @@ export default async function SitePage({
           { label: site.name },
         ]}
       />
+      <PendingUndo pending={pending} />
       <PageHeader
         title={site.name}
         lead={`Tariff ${site.tariffPerKWh} ${site.currency}/kWh · ${site.hoursPerYear.toLocaleString("en")} h/year · ambient ${site.ambientC} °C · grid ${site.gridKgCo2PerKWh} kg CO₂/kWh`}
