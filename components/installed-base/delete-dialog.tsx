@@ -55,11 +55,12 @@ export function DeleteDialog({
       <Button variant="danger" onClick={() => dialog.current?.showModal()}>
         Delete {kind}
       </Button>
+      {/* m-auto: the base styles zero every margin, which would pin the modal to the corner. */}
       <dialog
         ref={dialog}
         aria-labelledby={titleId}
         aria-describedby={textId}
-        className="w-[min(32rem,calc(100vw-2rem))] rounded-panel border border-steel-200 p-5 shadow-panel backdrop:bg-steel-950/40"
+        className="m-auto w-[min(32rem,calc(100vw-2rem))] rounded-panel border border-steel-200 p-5 shadow-panel backdrop:bg-steel-950/40"
       >
         <h2 id={titleId} className="text-lead font-bold text-steel-900">
           Delete {kind} {name}?

@@ -1,9 +1,16 @@
 import Link from "next/link";
 import type { ReactNode, TdHTMLAttributes, ThHTMLAttributes } from "react";
 
+// The wrapper scrolls a wide table inside itself on a narrow screen; as a named, focusable region
+// a keyboard user can reach it and scroll it with the arrow keys.
 export function Table({ caption, children }: { caption: string; children: ReactNode }) {
   return (
-    <div className="relative overflow-x-auto rounded-panel border border-steel-200 bg-white">
+    <div
+      role="region"
+      aria-label={caption}
+      tabIndex={0}
+      className="relative overflow-x-auto rounded-panel border border-steel-200 bg-white"
+    >
       <table className="min-w-full divide-y divide-steel-200 text-left text-small">
         <caption className="sr-only">{caption}</caption>
         {children}

@@ -33,11 +33,13 @@ export const siteInputSchema = z.object({
 
 export const machineInputSchema = z.object({
   name: name("machine name"),
+  // nullish: the form sends what this schema made of a blank line (null) to the server action,
+  // which parses it again with this same schema.
   line: z
     .string()
     .trim()
-    .max(120)
-    .optional()
+    .max(120, "Line: keep it under 120 characters")
+    .nullish()
     .transform((v) => v || null),
   downtimeHours: bounded("downtimeHours").default(0),
   throughputGainPct: pct().default(0),
