@@ -60,7 +60,7 @@ export function MachinesTable({
               <Link
                 href={`/sites/${siteId}?machine=${m.id}`}
                 className="text-flux-700 hover:underline"
-                aria-label={`Filter the site's axes by ${m.name}`}
+                aria-label={`Its axes here: ${m.name}`}
               >
                 Its axes here
               </Link>
