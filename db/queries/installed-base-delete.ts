@@ -12,7 +12,7 @@ import {
 } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
-import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/errors";
+import { ConflictError, NotFoundError } from "@/lib/errors";
 import { getAccountOrThrow } from "./accounts";
 import { recordAudit } from "./audit";
 import {
@@ -229,9 +229,10 @@ function isConstraintError(error: unknown) {
 export function undoDeletion(caller: SessionUser, undoId: number) {
   assertRole(caller, ...VENDOR_ROLES);
   const entry = db.select().from(deletionUndo).where(eq(deletionUndo.id, undoId)).get();
-  if (!entry) throw new NotFoundError("Nothing to undo: the deletion has expired or was undone");
-  if (entry.userId !== caller.id)
-    throw new ForbiddenError(`Only the person who deleted ${entry.label} can undo it`);
+  // An undo belongs to the person who deleted: to anyone else it does not exist, so its label
+  // (a name from an account they may not see) never reaches them.
+  if (!entry || entry.userId !== caller.id)
+    throw new NotFoundError("Nothing to undo: the deletion has expired or was undone");
   if (entry.expiresAt <= nowIso())
     throw new ConflictError(
       `Too late to undo the deletion of ${entry.label}: undo lasts ${UNDO_SECONDS} seconds`,

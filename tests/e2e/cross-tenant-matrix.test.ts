@@ -413,6 +413,77 @@ const ACTIONS: Record<string, ActionProbe> = {
     engineer: "scoped",
     reviewer: "role",
   },
+  // Deletes and undo take an id alone: no argument can be refused short of deleting, so the
+  // roles that reach every account are probed with the id that does not exist only.
+  "installed-base/delete-actions deleteSiteAction": {
+    args: (i) => [i.site],
+    engineer: "scoped",
+    reviewer: "role",
+    manager: "missingOnly",
+    admin: "missingOnly",
+  },
+  "installed-base/delete-actions deleteMachineAction": {
+    args: (i) => [i.machine],
+    engineer: "scoped",
+    reviewer: "role",
+    manager: "missingOnly",
+    admin: "missingOnly",
+  },
+  "installed-base/delete-actions deleteAxisAction": {
+    args: (i) => [i.axis],
+    engineer: "scoped",
+    reviewer: "role",
+    manager: "missingOnly",
+    admin: "missingOnly",
+  },
+  // An undo belongs to whoever deleted: anyone else's, or none, is not found.
+  "installed-base/delete-actions undoDeletionAction": {
+    args: (i) => [i.axis],
+    engineer: "scoped",
+    reviewer: "role",
+    manager: "missingOnly",
+    admin: "missingOnly",
+  },
+  "installed-base/delete-actions duplicateMachineAction": {
+    args: (i) => [i.machine, { name: "Probe machine copy" }],
+    refusedArgs: (i) => [i.machine, { name: "" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "cases/actions setCaseAxesRetrofitAction": {
+    args: (i) => [i.case, { axisIds: [i.axis], discountPct: 12 }],
+    refusedArgs: (i) => [i.case, { axisIds: [] }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "cases/actions updateCaseDetailsAction": {
+    args: (i) => [i.case, { name: "Probe case", notes: "" }],
+    refusedArgs: (i) => [i.case, { name: "" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "cases/actions duplicateCaseAction": {
+    args: (i) => [i.case, { name: "Probe case copy" }],
+    refusedArgs: (i) => [i.case, { name: "" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "invitations/actions resendInvitationAction": {
+    args: () => [{}],
+    refusedArgs: () => [{}],
+    engineer: "role",
+    reviewer: "role",
+    manager: "role",
+    admin: "form",
+  },
+  "invitations/actions revokeInvitationAction": {
+    args: () => [{}],
+    refusedArgs: () => [{}],
+    engineer: "role",
+    reviewer: "role",
+    manager: "role",
+    admin: "form",
+  },
   "admin/actions createUserAction": {
     args: () => [{}],
     refusedArgs: () => [{}],

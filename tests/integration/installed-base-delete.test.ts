@@ -202,8 +202,9 @@ describe("deleting an axis", () => {
     const done = deleteAxis(manager(), axisIds[0]);
     expect(getPendingUndo(manager(), done.undoId)?.label).toBe(done.label);
     expect(getPendingUndo(engineer(), done.undoId)).toBeNull();
+    // Someone else's undo does not exist for them: the deleted item's name is not told.
     expect(() => undoDeletion(engineer(), done.undoId)).toThrow(
-      new ForbiddenError(`Only the person who deleted ${done.label} can undo it`),
+      new NotFoundError("Nothing to undo: the deletion has expired or was undone"),
     );
     expect(listRemovedAxes(engineer(), draft.id)).toHaveLength(1);
     db.update(deletionUndo)

@@ -122,7 +122,7 @@ describe("the installed-base screens", () => {
     );
     expect(notYours).toMatchObject({
       ok: false,
-      message: `Only the person who deleted ${done.data.label} can undo it`,
+      message: "Nothing to undo: the deletion has expired or was undone",
     });
     const notice = html(RemovedAxesNotice({ user: engineer(), caseId: draft.id }));
     expect(notice).toContain("Removed from the installed base since this case was built");
