@@ -32,7 +32,7 @@ describe("value by source in the served result", () => {
         );
       }
       // The physics scenario discounted at the case's rate gives back its NPV plus the up-front cost.
-      const rate = buildCaseInput(manager(), c.id).finance.discountRatePct;
+      const rate = buildCaseInput(manager(), c.id).finance.discountRatePct ?? 0;
       const physics = result.scenarios.physics;
       const present = sourceTotals(physics, rate).reduce(
         (acc, p) => acc.plus(p.discounted),
