@@ -334,10 +334,12 @@ describe("LibreOffice Calc recalculating the workbook of every seeded demo case 
   });
 
   it.each(demo.map((c) => [c.name, c.id] as const))(
-    "%s: every defined name equals the engine's figure",
+    "%s: every defined name and the Summary's value by source equal the engine's figures",
     async (_name, id) => {
       const { result, calc } = await recalculated(buildCaseInput(manager, id));
       expectEngineFigures(calc, result);
+      // Every scenario's Summary breakdown by source, recalculated by Calc, to the cent.
+      expectSummaryBreakdown(calc, result);
     },
     180_000,
   );
