@@ -22,6 +22,7 @@ import { MethodLink } from "./method-link";
 import { MotionTable } from "./motion-table";
 import { TornadoChart } from "./tornado-chart";
 import { TorqueSpeedChart } from "./torque-speed-chart";
+import { ValueBySourceChart } from "./value-by-source-chart";
 import { ValueBySourceTable } from "./value-by-source-table";
 import { WarningsPanel } from "./warnings-panel";
 import { WindingTemperatureChart } from "./winding-temperature-chart";
@@ -106,6 +107,7 @@ export function CaseResultsView({
           <InputPending title="Torque against speed" state={inputState} onRetry={onRetry} />
         )}
         <CashFlowChart result={result} input={input} />
+        <ValueBySourceChart result={result} input={input} />
         <EnergyByMachineChart result={result} input={input} />
         <TornadoChart result={result} input={input} />
         <WindingTemperatureChart result={result} input={input} />

@@ -12,6 +12,7 @@ import {
   formatTonnes,
 } from "@/lib/results/format";
 import { scenarioHeadlines, type ScenarioHeadline } from "@/lib/results/scenarios";
+import { relianceSentence, valueReliance } from "@/lib/results/value-reliance";
 
 const BAND_TONE = { below: "caution", within: "success", above: "flux" } as const;
 
@@ -56,6 +57,8 @@ function ScenarioCard({
   const primary = h.key === "physics";
   const negative = h.npv.startsWith("-");
   const titleId = `scenario-${h.key}-title`;
+  // More than half of the value on typed figures: say so where the headline number is read.
+  const reliance = valueReliance(scenario);
   return (
     <article
       aria-labelledby={titleId}
@@ -75,6 +78,14 @@ function ScenarioCard({
       >
         {formatMoney(h.npv, currency)}
       </p>
+      {reliance?.mostlyTyped ? (
+        <p
+          role="note"
+          className="mt-2 rounded-md border border-caution-600 bg-caution-50 p-2 text-small text-steel-900"
+        >
+          <strong>Mostly typed figures.</strong> {relianceSentence(reliance)}
+        </p>
+      ) : null}
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
         <Row term={FINANCE_TERMS.upFrontCost} value={formatMoney(h.capex, currency)} />
         <Row term="Payback" value={paybackShort(scenario, horizonYears)} />

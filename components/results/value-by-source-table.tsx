@@ -4,6 +4,7 @@ import type { CaseResult } from "@/lib/engine";
 import { valueBySource } from "@/lib/results/engine-v2";
 import { formatMoney } from "@/lib/results/format";
 import { SCENARIO_LABELS } from "@/lib/glossary";
+import { relianceSentence, valueReliance } from "@/lib/results/value-reliance";
 
 /**
  * Each year's flow of the physics scenario split by where the money comes from, so that finance
@@ -14,6 +15,7 @@ export function ValueBySourceTable({ result }: { result: CaseResult }) {
   if (!table) return null;
   const years = table.flows?.years.length ?? 0;
   const money = (amount: string) => formatMoney(amount, result.currency);
+  const reliance = valueReliance(result.scenarios.physics);
   return (
     <Panel title="Value by source, year by year">
       <p className="mb-3 text-small text-steel-700">
@@ -21,6 +23,9 @@ export function ValueBySourceTable({ result }: { result: CaseResult }) {
         other sources follow inflation. Tax is what the flows owe after depreciation (a negative
         amount is a shield); sources that are zero in every year are left out.
       </p>
+      {reliance ? (
+        <p className="mb-3 text-small text-steel-900">{relianceSentence(reliance)}</p>
+      ) : null}
       <Table
         caption={`Value of the ${SCENARIO_LABELS.physics.toLowerCase()} by source and year, with the yearly cash flow they add up to`}
       >

@@ -1,5 +1,6 @@
 import type ExcelJS from "exceljs";
-import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { VALUE_SOURCES, type CaseResult, type ParsedCase } from "@/lib/engine";
+import { VALUE_SOURCE_LABELS } from "@/lib/results/engine-v2";
 import {
   BAND_POSITION_LABELS,
   FINANCE_TERMS,
@@ -13,6 +14,7 @@ import {
   paybackStatusValue,
   paybackValue,
   roiValue,
+  sourceValues,
 } from "./cash-flow-values";
 import { coolingOpenLoop } from "./cash-flow-sheet";
 import { FORMATS, currencyFormat, styleHeader, styleTitle, tariffFormat } from "./formats";
@@ -22,7 +24,11 @@ import {
   SCENARIO_TITLE,
   SHEET,
   absolute,
+  sheetRef,
   cashFlowColumn,
+  sourceRow,
+  sourceYearColumn,
+  MAX_HORIZON_YEARS,
   scenarioName,
   yearRow,
   type ScenarioKey,
@@ -202,6 +208,64 @@ export function writeSummarySheet(
   });
   sheet.getCell(bandTop + 8, 1).value =
     "Savings and payback are estimates from the stated assumptions (Assumptions sheet); read the Cautions sheet.";
+  writeValueBySource(sheet, input, result, currency, bandTop + 10);
+}
+
+/** First row of the Summary's value-by-source block (its header); the sources follow in VALUE_SOURCES order, then the total. */
+export const summarySourcesTop = (sheet: ExcelJS.Worksheet): number | null => {
+  let found: number | null = null;
+  sheet.eachRow((row, n) => {
+    if (row.getCell(1).value === SOURCES_HEADER) found = n;
+  });
+  return found;
+};
+
+const SOURCES_HEADER = "Value by source over the horizon";
+
+/**
+ * Each source added over the horizon, as live sums of the Cash flow sheet's value-by-source rows
+ * (lib/workbook/layout.ts sourceRow), and their total, which is the sum of the flows of years 1..N.
+ */
+function writeValueBySource(
+  sheet: ExcelJS.Worksheet,
+  input: ParsedCase,
+  result: CaseResult,
+  currency: string,
+  top: number,
+): void {
+  const header = sheet.getRow(top);
+  header.getCell(1).value = SOURCES_HEADER;
+  SCENARIOS.forEach((s, j) => (header.getCell(2 + j).value = SCENARIO_TITLE[s]));
+  styleHeader(header);
+  const sumOf = (values: readonly (string | number)[]) =>
+    values.reduce<number>((acc, v) => acc + Number(v), 0);
+  // Worked from the stored flows when a result predates value by source (lib/workbook/cash-flow-values.ts).
+  const values = Object.fromEntries(SCENARIOS.map((s) => [s, sourceValues(input, result, s)]));
+  VALUE_SOURCES.forEach((source, i) => {
+    const row = top + 1 + i;
+    sheet.getCell(row, 1).value = VALUE_SOURCE_LABELS[source];
+    SCENARIOS.forEach((s, j) => {
+      const r = sourceRow(s, source);
+      const cell = sheet.getCell(row, 2 + j);
+      cell.value = {
+        formula: `SUM(${sheetRef(SHEET.cashFlow)}!$${sourceYearColumn(1)}$${r}:$${sourceYearColumn(MAX_HORIZON_YEARS)}$${r})`,
+        result: sumOf(values[s][source]),
+      };
+      cell.numFmt = currency;
+    });
+  });
+  const totalRow = top + 1 + VALUE_SOURCES.length;
+  sheet.getCell(totalRow, 1).value = "Total: the flows of years 1 to the horizon";
+  SCENARIOS.forEach((s, j) => {
+    const column = sheet.getCell(totalRow, 2 + j).address.replace(/\d+$/, "");
+    const cell = sheet.getCell(totalRow, 2 + j);
+    cell.value = {
+      formula: `SUM(${column}${top + 1}:${column}${totalRow - 1})`,
+      result: sumOf(result.scenarios[s].cashFlows.slice(1)),
+    };
+    cell.numFmt = currency;
+    cell.font = { bold: true };
+  });
 }
 
 /** Where the physics lands against the band claimed in the trade (docs/model.md (Energy and cooling), inclusive ends). */

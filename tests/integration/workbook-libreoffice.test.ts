@@ -1,3 +1,4 @@
+import Decimal from "decimal.js";
 import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
 import fixtureCase from "@/tests/fixtures/engine-case.json";
@@ -14,6 +15,7 @@ import { asStoredV1Result } from "@/tests/support/stored-v1-result";
 import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
 import { PAYBACK_STATUS_LABELS } from "@/lib/glossary";
+import { summarySourcesTop } from "@/lib/workbook/summary-sheet";
 import { caller } from "../support/callers";
 import {
   cachedFormulaValues,
@@ -162,6 +164,34 @@ function expectSourcesAddUp(calc: ExcelJS.Workbook, result: CaseResult, horizon:
       expect(Math.abs(flow - Number(s.cashFlows[t])), `${key} year ${t}`).toBeLessThan(0.005);
     }
   }
+  expectSummaryBreakdown(calc, result);
+}
+
+/**
+ * The Summary's value by source over the horizon, as Calc recalculates its live sums, equals
+ * the engine's per-source sums to the cent, and its total row equals the sum of the flows.
+ */
+function expectSummaryBreakdown(calc: ExcelJS.Workbook, result: CaseResult): void {
+  const sheet = calc.getWorksheet("Summary");
+  if (!sheet) throw new Error("no Summary sheet");
+  const top = summarySourcesTop(sheet);
+  expect(top, "value-by-source block on the Summary").not.toBeNull();
+  const cents = (v: Decimal.Value) => new Decimal(v).toFixed(2);
+  (["physics", "bandLow", "bandHigh"] as const).forEach((key, j) => {
+    const s = result.scenarios[key];
+    const read = (row: number) => {
+      const cell = sheet.getCell(row, 2 + j);
+      expect(cell.type, cell.address).toBe(ExcelJS.ValueType.Formula);
+      expect(typeof cell.result, `${cell.address}: ${JSON.stringify(cell.result)}`).toBe("number");
+      return cell.result as number;
+    };
+    VALUE_SOURCES.forEach((source, i) => {
+      const engine = s.bySource[source].reduce((acc, v) => acc.plus(v), new Decimal(0));
+      expect(cents(read(top! + 1 + i)), `Summary ${key} ${source}`).toBe(cents(engine));
+    });
+    const flows = s.cashFlows.slice(1).reduce((acc, v) => acc.plus(v), new Decimal(0));
+    expect(cents(read(top! + 1 + VALUE_SOURCES.length)), `Summary ${key} total`).toBe(cents(flows));
+  });
 }
 
 /** The fixture case with inflation, tax, depreciation and event costs built up (engine v2). */
@@ -304,10 +334,12 @@ describe("LibreOffice Calc recalculating the workbook of every seeded demo case 
   });
 
   it.each(demo.map((c) => [c.name, c.id] as const))(
-    "%s: every defined name equals the engine's figure",
+    "%s: every defined name and the Summary's value by source equal the engine's figures",
     async (_name, id) => {
       const { result, calc } = await recalculated(buildCaseInput(manager, id));
       expectEngineFigures(calc, result);
+      // Every scenario's Summary breakdown by source, recalculated by Calc, to the cent.
+      expectSummaryBreakdown(calc, result);
     },
     180_000,
   );
