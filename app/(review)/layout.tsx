@@ -8,7 +8,11 @@ export default async function ReviewLayout({ children }: { children: ReactNode }
   const user = await requirePageUser("reviewer");
   const account = user.accountId ? getAccountOrThrow(user, user.accountId) : null;
   return (
-    <AppShell user={user} context={account ? `Reviewing for ${account.name}` : undefined}>
+    <AppShell
+      user={user}
+      context={account ? `Reviewing for ${account.name}` : undefined}
+      paymentsBanner={false}
+    >
       {children}
     </AppShell>
   );

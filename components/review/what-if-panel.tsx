@@ -12,16 +12,51 @@ import { formatIrr, formatMoney, formatMoneyChange, formatPayback } from "@/lib/
 import { SCENARIO_KEYS, scenarioLabel } from "@/lib/results/scenarios";
 import Decimal from "decimal.js";
 import { Term } from "@/components/ui/term";
+import { ValueBySourceTable } from "@/components/results/value-by-source-table";
+import { breakEvenLines } from "@/lib/results/engine-v2";
+
+/** Where the sandbox's value comes from and where it breaks even, for the reviewer's figures. */
+function SandboxDetail({ result, tariffPerKWh }: { result: CaseResult; tariffPerKWh: string }) {
+  const lines = breakEvenLines(result, tariffPerKWh);
+  return (
+    <div className="mt-5 grid gap-5" data-testid="what-if-detail">
+      <ValueBySourceTable result={result} />
+      {lines ? (
+        <dl aria-label="Break-even with your figures" className="divide-y divide-steel-100">
+          {lines.map((line) => (
+            <div key={line.term} className="grid gap-1 py-3 sm:grid-cols-[12rem_1fr]">
+              <dt className="font-bold text-steel-800">{line.term} with your figures</dt>
+              <dd>
+                <span className="font-bold text-steel-900">{line.value}</span>
+                <span className="mt-0.5 block text-small text-steel-700">{line.note}</span>
+              </dd>
+            </div>
+          ))}
+        </dl>
+      ) : null}
+    </div>
+  );
+}
 
 export type SandboxFinance = {
   tariffPerKWh: string;
   tariffEscalationPct: number;
   discountRatePct: number;
   horizonYears: number;
+  taxRatePct: number;
 };
 
+/** Factors on what the proposal entered on every axis and machine; 1 is the proposal's own. */
+type SandboxFactors = {
+  runningHoursFactor: string;
+  stepLossEventsFactor: string;
+  costPerEventFactor: string;
+  extraOutputFactor: string;
+};
+type SandboxKey = keyof SandboxFinance | keyof SandboxFactors;
+
 const FIELDS: {
-  key: keyof SandboxFinance;
+  key: SandboxKey;
   label: string;
   unit: (c: string) => string;
   step: string;
@@ -30,15 +65,37 @@ const FIELDS: {
   { key: "tariffEscalationPct", label: "Tariff escalation", unit: () => "% per year", step: "0.1" },
   { key: "discountRatePct", label: "Discount rate", unit: () => "% per year", step: "0.1" },
   { key: "horizonYears", label: "Horizon", unit: () => "years", step: "1" },
+  { key: "taxRatePct", label: "Tax rate", unit: () => "%", step: "1" },
+  { key: "runningHoursFactor", label: "Running hours", unit: () => "× entered", step: "0.1" },
+  {
+    key: "stepLossEventsFactor",
+    label: "Step-loss events",
+    unit: () => "× entered",
+    step: "0.1",
+  },
+  { key: "costPerEventFactor", label: "Cost per event", unit: () => "× entered", step: "0.1" },
+  { key: "extraOutputFactor", label: "Extra output", unit: () => "× entered", step: "0.1" },
 ];
 
-function toRequest(values: Record<keyof SandboxFinance, string>) {
+const FACTORS: SandboxFactors = {
+  runningHoursFactor: "1",
+  stepLossEventsFactor: "1",
+  costPerEventFactor: "1",
+  extraOutputFactor: "1",
+};
+
+function toRequest(values: Record<SandboxKey, string>) {
   const number = (v: string) => (v.trim() === "" ? undefined : Number(v));
   return {
     tariffPerKWh: values.tariffPerKWh.trim() || undefined,
     tariffEscalationPct: number(values.tariffEscalationPct),
     discountRatePct: number(values.discountRatePct),
     horizonYears: number(values.horizonYears),
+    taxRatePct: number(values.taxRatePct),
+    runningHoursFactor: number(values.runningHoursFactor),
+    stepLossEventsFactor: number(values.stepLossEventsFactor),
+    costPerEventFactor: number(values.costPerEventFactor),
+    extraOutputFactor: number(values.extraOutputFactor),
   };
 }
 
@@ -57,10 +114,15 @@ export function WhatIfPanel({
   finance: SandboxFinance;
   band: { lowPct: number; highPct: number };
 }) {
-  const initial = Object.fromEntries(FIELDS.map((f) => [f.key, String(finance[f.key])])) as Record<
-    keyof SandboxFinance,
-    string
-  >;
+  const inProposal: Record<SandboxKey, string> = {
+    ...FACTORS,
+    tariffPerKWh: finance.tariffPerKWh,
+    tariffEscalationPct: String(finance.tariffEscalationPct),
+    discountRatePct: String(finance.discountRatePct),
+    horizonYears: String(finance.horizonYears),
+    taxRatePct: String(finance.taxRatePct),
+  };
+  const initial = inProposal;
   const [values, setValues] = useState(initial);
   const whatIf = useWhatIf(proposalId);
   const error = whatIf.error instanceof WhatIfError ? whatIf.error : null;
@@ -70,8 +132,9 @@ export function WhatIfPanel({
   return (
     <Panel title="Try your own figures">
       <p className="mb-4 text-small text-steel-700">
-        Change the finance figures to your own and see the payback move. This is a sandbox: the
-        proposal itself and its workbook stay exactly as sent.
+        Change the finance figures, or scale what the proposal entered (0.5 halves the step-loss
+        events on every axis), and see the payback move. This is a sandbox: the proposal itself and
+        its workbook stay exactly as sent.
       </p>
       <form
         aria-label="What-if figures"
@@ -87,7 +150,7 @@ export function WhatIfPanel({
             key={f.key}
             id={`what-if-${f.key}`}
             label={`${f.label} [${f.unit(currency)}]`}
-            hint={`In the proposal: ${finance[f.key]}`}
+            hint={`In the proposal: ${inProposal[f.key]}`}
             error={error?.fields[f.key]}
           >
             <Input
@@ -197,6 +260,12 @@ export function WhatIfPanel({
           </p>
         ) : null}
       </div>
+      {mine ? (
+        <SandboxDetail
+          result={mine}
+          tariffPerKWh={toRequest(values).tariffPerKWh ?? finance.tariffPerKWh}
+        />
+      ) : null}
     </Panel>
   );
 }

@@ -49,10 +49,13 @@ export function AppShell({
   user,
   context,
   children,
+  paymentsBanner = true,
 }: {
   user: SessionUser;
   context?: string;
   children: ReactNode;
+  // The vendor's test-mode notice is for vendor staff; the reviewer's screens leave it out.
+  paymentsBanner?: boolean;
 }) {
   return (
     <div className="min-h-screen md:grid md:grid-cols-[15.5rem_1fr] print:block">
@@ -77,7 +80,7 @@ export function AppShell({
         <Sidebar user={user} context={context} brand={false} />
       </details>
       <div className="flex min-h-screen min-w-0 flex-col">
-        <TestModeBanner />
+        {paymentsBanner ? <TestModeBanner /> : null}
         <main id="main" className="mx-auto w-full max-w-7xl flex-1 px-4 py-6 md:px-8 md:py-8">
           {children}
         </main>

@@ -1,6 +1,6 @@
 import { useMutation } from "@tanstack/react-query";
 import type { CaseResult } from "@/lib/engine";
-import type { WhatIfInput } from "@/lib/validations/pipeline";
+import type { WhatIfInput } from "@/lib/validations/what-if";
 
 export const whatIfKeys = {
   run: (proposalId: number) => ["proposals", String(proposalId), "what-if"] as const,

@@ -3,7 +3,6 @@ import { z } from "zod";
 import { listParamsSchema } from "@/lib/lists/list-params";
 import { idSchema } from "@/lib/validations/ids";
 import { QUOTE_STAGES } from "@/lib/pipeline/stages";
-import { bounded, int, money } from "@/lib/engine/schema-fields";
 
 const stageField = z.enum(QUOTE_STAGES, {
   error: `Choose one of the stages: ${QUOTE_STAGES.join(", ")}`,
@@ -57,14 +56,8 @@ export const commentSchema = z.object({
 
 // The finance figures a reviewer may try in the sandbox, checked as the engine checks them
 // (docs/model.md): absent ones keep the proposal's own value.
-export const whatIfSchema = z
-  .object({
-    tariffPerKWh: money().optional(),
-    tariffEscalationPct: bounded("ratePct").optional(),
-    discountRatePct: bounded("discountRatePct").optional(),
-    horizonYears: int(1, 30).optional(),
-  })
-  .strict();
+// The sandbox's figures live beside their helper (lib/review/what-if.ts).
+export { whatIfSchema, type WhatIfInput } from "./what-if";
 
 const dateOnly = z
   .string()
@@ -97,7 +90,6 @@ export const pipelineFiltersSchema = z.object({
 export type SalesSettingsInput = z.infer<typeof salesSettingsSchema>;
 export type SendProposalInput = z.infer<typeof sendProposalSchema>;
 export type DecisionInput = z.infer<typeof decisionSchema>;
-export type WhatIfInput = z.infer<typeof whatIfSchema>;
 export type QuoteUpdateInput = z.infer<typeof quoteUpdateSchema>;
 export type PipelineFilters = z.infer<typeof pipelineFiltersSchema>;
 

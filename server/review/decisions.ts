@@ -8,7 +8,9 @@ import { appUrl } from "@/lib/mail/app-url";
 import { commentMail, decisionMail } from "@/lib/mail/messages";
 import { deliverMail, enqueueMail, type MailDelivery } from "@/server/mail/queue";
 import { DECIDABLE_STAGES, STAGE_LABELS, type QuoteStage } from "@/lib/pipeline/stages";
-import type { DecisionInput, WhatIfInput } from "@/lib/validations/pipeline";
+import type { DecisionInput } from "@/lib/validations/pipeline";
+import type { WhatIfInput } from "@/lib/validations/what-if";
+import { applyWhatIf } from "@/lib/review/what-if";
 import { recordAudit } from "@/db/queries/audit";
 import { proposalFacts } from "@/server/proposals/facts";
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
@@ -30,10 +32,7 @@ export function runWhatIf(
   overrides: WhatIfInput,
 ): CaseResult {
   const { input } = getProposalSnapshotOrThrow(caller, proposalId);
-  const finance = { ...input.finance };
-  for (const [key, value] of Object.entries(overrides))
-    if (value !== undefined) (finance as Record<string, unknown>)[key] = value;
-  return evaluateCase({ ...input, finance });
+  return evaluateCase(applyWhatIf(input, overrides));
 }
 
 /**

@@ -101,6 +101,20 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
     await expect.poll(() => npv.textContent(), { timeout: 15_000 }).toMatch(/€/);
     await screenshot(page, "review-portal-what-if");
 
+    // Half the step-loss events entered: the NPV and the value by source move, the proposal's
+    // own column does not.
+    const proposalNpv = await page.getByRole("cell").filter({ hasText: /€/ }).first().textContent();
+    const npvBefore = await npv.textContent();
+    const detail = page.getByTestId("what-if-detail");
+    const breakdownBefore = await detail.textContent();
+    await sandbox.getByLabel(/Step-loss events/).fill("0.5");
+    await sandbox.getByRole("button", { name: "Compute with these figures" }).click();
+    await expect.poll(() => npv.textContent(), { timeout: 15_000 }).not.toBe(npvBefore);
+    await expect.poll(() => detail.textContent(), { timeout: 15_000 }).not.toBe(breakdownBefore);
+    expect(await page.getByRole("cell").filter({ hasText: /€/ }).first().textContent()).toBe(
+      proposalNpv,
+    );
+
     // The decision.
     const decision = page.getByRole("form", { name: "Decision" });
     await decision.getByLabel(/Accept the proposal/).check();

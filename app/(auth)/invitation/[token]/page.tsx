@@ -34,6 +34,12 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
               {invitation.accountName ? ` at ${invitation.accountName}` : ""}. This link works once
               and until {invitation.expiresAt.slice(0, 10)} (UTC).
             </p>
+            <p className="mt-3 text-steel-700">
+              As the finance reviewer you can read the proposals sent to your company, download
+              their workbooks, try your own figures in a sandbox, and accept, decline or ask for
+              changes. The figures of a proposal are frozen as sent: trying other figures never
+              changes them.
+            </p>
           </div>
           <SetPasswordForm token={token} email={invitation.email} />
         </>

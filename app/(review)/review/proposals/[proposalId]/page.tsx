@@ -107,6 +107,7 @@ export default async function ReviewProposalPage({
             tariffEscalationPct: input.finance.tariffEscalationPct,
             discountRatePct: input.finance.discountRatePct,
             horizonYears: input.finance.horizonYears,
+            taxRatePct: input.finance.taxRatePct,
           }}
           band={input.band}
         />

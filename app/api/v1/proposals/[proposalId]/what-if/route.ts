@@ -3,10 +3,10 @@ import { runWhatIf } from "@/server/review/decisions";
 import { readJsonBody, withApi } from "@/server/api/handler";
 import { idFromRoute } from "@/lib/validations/ids";
 import { requireUser } from "@/server/auth";
-import { whatIfSchema } from "@/lib/validations/pipeline";
+import { whatIfSchema } from "@/lib/validations/what-if";
 
-// The CaseResult of the frozen proposal with other finance figures (tariffPerKWh,
-// tariffEscalationPct, discountRatePct, horizonYears). Nothing is stored or changed.
+// The CaseResult of the frozen proposal with the reviewer's figures: finance figures and factors
+// on every value driver (lib/validations/what-if.ts). Computed on a copy; nothing is stored.
 export const POST = withApi(
   async (request: Request, context: { params: Promise<{ proposalId: string }> }) => {
     const caller = await requireUser();
