@@ -7,6 +7,7 @@ import {
   formatIrr,
   formatKWh,
   formatMoney,
+  formatMoneyHeadline,
   formatPayback,
   formatPct,
   formatTonnes,
@@ -73,7 +74,7 @@ function ScenarioCard({
       <p
         className={`text-display font-black tabular-nums ${negative ? "text-danger-700" : "text-flux-800"}`}
       >
-        {formatMoney(h.npv, currency)}
+        {formatMoneyHeadline(h.npv, currency)}
       </p>
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
         <Row term={FINANCE_TERMS.upFrontCost} value={formatMoney(h.capex, currency)} />

@@ -34,6 +34,17 @@ export function formatMoney(amount: string, currency: string): string {
   return formatNumeric(moneyFormat(currency, false), roundMoney(amount, currency));
 }
 
+/**
+ * A headline amount to the nearest hundred ("€59,600"): a forecast's cents are noise on a card.
+ * Tables and the workbook keep full precision (formatMoney).
+ */
+export function formatMoneyHeadline(amount: string, currency: string): string {
+  const hundreds = new Money(amount).dividedBy(100).toDecimalPlaces(0, Money.ROUND_HALF_EVEN).times(100);
+  return new Intl.NumberFormat(LOCALE, { style: "currency", currency, maximumFractionDigits: 0 })
+    .format(hundreds.toNumber())
+    .replace(/^-/, "\u2212");
+}
+
 /** "€59.6K" — for chart ticks, where full cents would crowd the axis. */
 export function formatMoneyCompact(amount: string | number, currency: string): string {
   const value = typeof amount === "number" ? String(amount) : roundMoney(amount, currency);

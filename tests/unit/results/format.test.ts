@@ -5,6 +5,7 @@ import {
   formatIrr,
   formatMoney,
   formatMoneyChange,
+  formatMoneyHeadline,
   formatPayback,
   formatPct,
   moneyToChartNumber,
@@ -73,5 +74,12 @@ describe("money and figures on screen", () => {
       const asShown = typeof cell === "number" ? formatPct(cell * 100, 1) : cell;
       expect(asShown).toBe(formatIrr(scenario));
     }
+  });
+
+  it("rounds a headline amount to the nearest hundred, half-even", () => {
+    expect(formatMoneyHeadline("59555.3976", "EUR")).toBe("€59,600");
+    expect(formatMoneyHeadline("1250", "EUR")).toBe("€1,200");
+    expect(formatMoneyHeadline("1350", "EUR")).toBe("€1,400");
+    expect(formatMoneyHeadline("-4321.5", "GBP")).toBe("\u2212£4,300");
   });
 });
