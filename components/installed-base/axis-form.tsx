@@ -66,7 +66,7 @@ export function AxisForm({
     resolver: zodResolver(axisInputSchema),
     defaultValues: axis?.values ?? newAxisFormValues(machines[0]?.id, defaults),
   });
-  const { status, apply } = useActionStatus(setError);
+  const { status, apply, onInvalid } = useActionStatus(setError);
   const err = (k: keyof Values) => (errors[k] as { message?: string } | undefined)?.message;
 
   // The chosen catalogue motor, and which of the motor fields still hold its figures: those are
@@ -103,7 +103,7 @@ export function AxisForm({
   return (
     <form
       aria-label={axis ? "Edit axis" : "Add an axis"}
-      onSubmit={handleSubmit(onSubmit)}
+      onSubmit={handleSubmit(onSubmit, onInvalid)}
       noValidate
       className="space-y-5"
     >

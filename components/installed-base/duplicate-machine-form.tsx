@@ -25,7 +25,7 @@ export function DuplicateMachineForm({ machineId, name }: { machineId: number; n
     resolver: zodResolver(duplicateMachineSchema),
     defaultValues: { name: "" },
   });
-  const { status, apply } = useActionStatus(setError);
+  const { status, apply, onInvalid } = useActionStatus(setError);
 
   async function onSubmit(values: DuplicateMachineInput) {
     const result = await duplicateMachineAction(machineId, values);
@@ -39,7 +39,7 @@ export function DuplicateMachineForm({ machineId, name }: { machineId: number; n
   return (
     <form
       aria-label={`Duplicate ${name}`}
-      onSubmit={handleSubmit(onSubmit)}
+      onSubmit={handleSubmit(onSubmit, onInvalid)}
       noValidate
       className="grid gap-4 md:grid-cols-[minmax(0,20rem)_auto] md:items-end"
     >

@@ -31,7 +31,7 @@ export function MachineForm({
       ? { ...machine, line: machine.line ?? "" }
       : { name: "", line: "", downtimeHours: 0, throughputGainPct: 0, marginPerOutputHour: "0" },
   });
-  const { status, apply } = useActionStatus(setError);
+  const { status, apply, onInvalid } = useActionStatus(setError);
 
   async function onSubmit(values: MachineInput) {
     const result = machine
@@ -45,7 +45,7 @@ export function MachineForm({
   return (
     <form
       aria-label={machine ? "Edit machine" : "Add a machine"}
-      onSubmit={handleSubmit(onSubmit)}
+      onSubmit={handleSubmit(onSubmit, onInvalid)}
       noValidate
       className="grid gap-4 md:grid-cols-3"
     >

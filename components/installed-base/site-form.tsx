@@ -36,7 +36,7 @@ export function SiteForm({
       hoursPerYear: 4000,
     },
   });
-  const { status, apply } = useActionStatus(setError);
+  const { status, apply, onInvalid } = useActionStatus(setError);
 
   async function onSubmit(values: SiteInput) {
     const result = site
@@ -50,7 +50,7 @@ export function SiteForm({
   return (
     <form
       aria-label={site ? "Edit site" : "Add a site"}
-      onSubmit={handleSubmit(onSubmit)}
+      onSubmit={handleSubmit(onSubmit, onInvalid)}
       noValidate
       className="grid gap-4 md:grid-cols-3"
     >

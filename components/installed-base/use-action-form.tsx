@@ -20,7 +20,10 @@ export function useActionStatus<T extends FieldValues>(setError: UseFormSetError
     setStatus({ tone: "error", text: result.message });
     return false;
   }
-  return { status, setStatus, apply };
+  // A submit the form's own checks stop never reaches the server: clear the last "Saved" so it
+  // does not sit beside the new errors (pass as handleSubmit's second argument).
+  const onInvalid = () => setStatus(null);
+  return { status, setStatus, apply, onInvalid };
 }
 
 export function StatusLine({ status }: { status: { tone: "ok" | "error"; text: string } | null }) {

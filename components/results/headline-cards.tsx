@@ -7,6 +7,7 @@ import {
   formatIrr,
   formatKWh,
   formatMoney,
+  formatMoneyHeadline,
   formatPayback,
   formatPct,
   formatTonnes,
@@ -76,7 +77,7 @@ function ScenarioCard({
       <p
         className={`text-display font-black tabular-nums ${negative ? "text-danger-700" : "text-flux-800"}`}
       >
-        {formatMoney(h.npv, currency)}
+        {formatMoneyHeadline(h.npv, currency)}
       </p>
       {reliance?.mostlyTyped ? (
         <p

@@ -6,6 +6,7 @@ import type { UseFormRegisterReturn } from "react-hook-form";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";
 import { TORQUE_UNIT_NAMES } from "@/lib/engine/units";
+import { parseTypedNumber } from "@/lib/validations/typed-number";
 
 /**
  * The shared schemas word their messages to follow a field path ("holdingTorqueNm: must be
@@ -17,6 +18,8 @@ export function fieldMessage(message: string | undefined): string | undefined {
   if (message.startsWith("required") || message.startsWith("expected a torque"))
     return "Enter a number";
   if (message.startsWith("expected an amount")) return "Enter an amount such as 189.00";
+  if (message.endsWith("received NaN"))
+    return "Enter a number such as 0.24 (for a thousand and more, write 1234 rather than 1,234)";
   if (message.startsWith("expected a number") || message.startsWith("expected a whole number"))
     return "Enter a number";
   return message.charAt(0).toUpperCase() + message.slice(1);
@@ -24,8 +27,14 @@ export function fieldMessage(message: string | undefined): string | undefined {
 
 // A number input yields text; an empty box becomes undefined so that the schema's default (or
 // "absent" for the optional fields) applies instead of a zero nobody typed.
-export const asNumber = (v: unknown) =>
-  typeof v === "string" ? (v.trim() === "" ? undefined : Number(v)) : v;
+// A decimal comma is read as a point ("0,24"); text that is not a number, or "1,234" that could be a
+// thousand or a decimal (lib/validations/typed-number.ts), becomes NaN so the schema refuses it.
+export const asNumber = (v: unknown) => {
+  if (typeof v !== "string") return v;
+  const parsed = parseTypedNumber(v);
+  if (parsed.ok) return parsed.value;
+  return parsed.reason === "empty" ? undefined : Number.NaN;
+};
 
 const describedBy = (id: string, error?: string, hint?: string) =>
   error ? `${id}-error` : hint ? `${id}-hint` : undefined;
@@ -36,13 +45,13 @@ export function NumberField({
   hint,
   error,
   registration,
-  step = "any",
 }: {
   id: string;
   label: string;
   hint: string;
   error?: string;
   registration: UseFormRegisterReturn;
+  /** Kept for callers; a text box (so that "0,24" can be typed) has no step. */
   step?: string;
 }) {
   const message = fieldMessage(error);
@@ -50,9 +59,8 @@ export function NumberField({
     <Field id={id} label={label} hint={hint} error={message}>
       <Input
         id={id}
-        type="number"
+        type="text"
         inputMode="decimal"
-        step={step}
         invalid={!!message}
         aria-describedby={describedBy(id, message, hint)}
         {...registration}
@@ -144,9 +152,8 @@ export function TorqueField({
       <div className="flex gap-2">
         <Input
           id={id}
-          type="number"
+          type="text"
           inputMode="decimal"
-          step="any"
           invalid={!!message}
           aria-describedby={describedBy(id, message, hint)}
           className="w-full min-w-0 flex-1"

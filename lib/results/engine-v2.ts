@@ -62,7 +62,7 @@ export function paybackStatusWords(scenario: Scenario): string {
 
 /**
  * The payback as a reader wants it: when it comes, and whether that is inside the horizon.
- * "14 months, within the horizon" · "after the 5-year horizon: the last year still adds money"
+ * "1 year 2 months, within the horizon" · "after the 5-year horizon: the last year still adds money"
  * · "never: the yearly flows do not cover the outlay".
  */
 export function paybackSentence(scenario: Scenario, horizonYears: number): string {
@@ -79,7 +79,7 @@ export function paybackSentence(scenario: Scenario, horizonYears: number): strin
   return formatPayback(null, horizonYears);
 }
 
-/** The payback for a headline figure: "14 months", "after the 5-year horizon", "never". */
+/** The payback for a headline figure: "1 year 2 months", "after the 5-year horizon", "never". */
 export function paybackShort(scenario: Scenario, horizonYears: number): string {
   if (scenario.paybackYears !== null) return formatPayback(scenario.paybackYears);
   const status = (scenario as Stored<Scenario>).paybackStatus;
@@ -88,7 +88,7 @@ export function paybackShort(scenario: Scenario, horizonYears: number): string {
   return formatPayback(null, horizonYears);
 }
 
-/** A clause for a page's lead line: "paid back in 14 months as modelled". */
+/** A clause for a page's lead line: "paid back in 1 year 2 months as modelled". */
 export function paybackLead(scenario: Scenario, horizonYears: number): string {
   if (scenario.paybackYears !== null) {
     const when = formatPayback(scenario.paybackYears);

@@ -1,11 +1,13 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { VALUE_SOURCES, type ValueSource } from "@/lib/engine";
+import { IRR_HIGHEST_RATE } from "@/lib/engine/finance";
 import { FINANCE_TERMS, PAYBACK_STATUS_LABELS, SCENARIO_LABELS } from "@/lib/glossary";
 import {
   BEYOND_HORIZON,
   NOT_APPLICABLE,
   NO_BREAK_EVEN,
+  IRR_ABOVE_SEARCH,
   NO_RATE_FOUND,
   NO_SIGN_CHANGE,
   breakEvenSlopes,
@@ -280,7 +282,7 @@ function writeResults(
     put(
       results.irr,
       scenarioName("IRR", scenario),
-      `IF(AND(COUNTIF(${flows},">0")>0,COUNTIF(${flows},"<0")>0),IFERROR(IRR(${flows},${guessCell}),"${NO_RATE_FOUND}"),"${NO_SIGN_CHANGE}")`,
+      `IF(AND(COUNTIF(${flows},">0")>0,COUNTIF(${flows},"<0")>0),IFERROR(IRR(${flows},${guessCell}),IF(AND(${flow}${first}<0,NPV(${IRR_HIGHEST_RATE},${later})+${flow}${first}>0),"${IRR_ABOVE_SEARCH}","${NO_RATE_FOUND}")),"${NO_SIGN_CHANGE}")`,
       irrValue(s),
       FORMATS.ratio,
     );

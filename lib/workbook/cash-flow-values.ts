@@ -6,6 +6,11 @@ import {
   type Scenario,
   type ValueSource,
 } from "@/lib/engine";
+import {
+  IRR_ABOVE_SEARCH_WORDS,
+  IRR_NO_RATE_WORDS,
+  irrWithoutRate,
+} from "@/lib/results/format";
 import { MAX_HORIZON_YEARS, type ScenarioKey } from "./layout";
 
 /**
@@ -15,8 +20,10 @@ import { MAX_HORIZON_YEARS, type ScenarioKey } from "./layout";
  */
 
 export const BEYOND_HORIZON = "beyond the horizon";
-export const NO_SIGN_CHANGE = "no sign change";
-export const NO_RATE_FOUND = "no rate found";
+// The IRR cell's words when there is no rate: the same as the results pages (lib/results/format.ts).
+export const NO_SIGN_CHANGE = IRR_NO_RATE_WORDS;
+export const NO_RATE_FOUND = IRR_NO_RATE_WORDS;
+export const IRR_ABOVE_SEARCH = IRR_ABOVE_SEARCH_WORDS;
 export const NOT_APPLICABLE = "n/a";
 /** A break-even value the engine reports as null: NPV does not rise with it, or it is negative. */
 export const NO_BREAK_EVEN = "none";
@@ -58,8 +65,7 @@ export function yearValues(input: ParsedCase, scenario: Scenario): YearValues[] 
 
 export function irrValue(scenario: Scenario): number | string {
   if (scenario.irr !== null) return scenario.irr;
-  const flows = scenario.cashFlows.map(Number);
-  return flows.some((f) => f > 0) && flows.some((f) => f < 0) ? NO_RATE_FOUND : NO_SIGN_CHANGE;
+  return irrWithoutRate(scenario.cashFlows);
 }
 
 /** The IRR search's starting point, as the Cash flow sheet computes it (see there). */

@@ -14,6 +14,7 @@ import {
 import { asStoredV1Result } from "@/tests/support/stored-v1-result";
 import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
+import { IRR_NO_RATE_WORDS } from "@/lib/results/format";
 import { PAYBACK_STATUS_LABELS } from "@/lib/glossary";
 import { summarySourcesTop } from "@/lib/workbook/summary-sheet";
 import { caller } from "../support/callers";
@@ -110,7 +111,7 @@ function expectEngineFigures(calc: ExcelJS.Workbook, result: CaseResult): Record
   for (const [suffix, key] of SCENARIO_NAMES) {
     const s: Scenario = result.scenarios[key];
     money(`NPV_${suffix}`, s.npv);
-    close(`IRR_${suffix}`, s.irr, "no rate found");
+    close(`IRR_${suffix}`, s.irr, IRR_NO_RATE_WORDS);
     close(`Payback_${suffix}`, s.paybackYears, BEYOND_HORIZON);
     close(`DiscountedPayback_${suffix}`, s.discountedPaybackYears, BEYOND_HORIZON);
     close(`ROI_${suffix}`, s.roiPct, "n/a");

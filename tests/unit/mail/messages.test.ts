@@ -28,7 +28,7 @@ describe("Loopshift's messages", () => {
     expect(mail.text).toContain("until 8 January 2027");
     // Money as the screen shows it: rounded half-even to the cent (docs/contracts.md (Numbers and money)).
     expect(mail.text).toContain("€12,345.68");
-    expect(mail.text).toContain("18 months");
+    expect(mail.text).toContain("1 year 6 months");
   });
 
   it("escape what users typed in the HTML part, and keep it verbatim in the text part", () => {

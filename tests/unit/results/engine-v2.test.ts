@@ -86,9 +86,9 @@ describe("payback in plain words (docs/model.md (The business case) payback stat
   it("a payback inside the horizon reads as its time, within the horizon", () => {
     const s = scenario({ paybackYears: 1.25 });
     expect(paybackStatusWords(s)).toBe("within the horizon");
-    expect(paybackSentence(s, 5)).toBe("15 months, within the horizon");
-    expect(paybackShort(s, 5)).toBe("15 months");
-    expect(paybackLead(s, 5)).toBe("paid back in 15 months as modelled");
+    expect(paybackSentence(s, 5)).toBe("1 year 3 months, within the horizon");
+    expect(paybackShort(s, 5)).toBe("1 year 3 months");
+    expect(paybackLead(s, 5)).toBe("paid back in 1 year 3 months as modelled");
   });
 
   it("a case still gaining at the end of the horizon pays back after it", () => {

@@ -5,9 +5,13 @@ import {
   formatIrr,
   formatMoney,
   formatMoneyChange,
+  formatMoneyHeadline,
   formatPayback,
+  formatPct,
   moneyToChartNumber,
 } from "@/lib/results/format";
+import type { Scenario } from "@/lib/engine";
+import { irrValue } from "@/lib/workbook/cash-flow-values";
 
 describe("money and figures on screen", () => {
   it("rounds money half-even to the currency's minor unit before display (docs/contracts.md (Numbers and money))", () => {
@@ -32,10 +36,14 @@ describe("money and figures on screen", () => {
     expect(moneyToChartNumber("59555.3976979306", "EUR")).toBe(59555.4);
   });
 
-  it("reads payback in months under two years and says when it is not reached", () => {
+  it("reads payback in whole years and months and says when it is not reached", () => {
     expect(formatPayback(0.3459)).toBe("4 months");
+    expect(formatPayback(7 / 12)).toBe("7 months");
     expect(formatPayback(0)).toBe("immediate");
-    expect(formatPayback(3.26)).toBe("3.3 years");
+    expect(formatPayback(1 + 4 / 12)).toBe("1 year 4 months");
+    expect(formatPayback(2)).toBe("2 years");
+    expect(formatPayback(3.26)).toBe("3 years 3 months");
+    expect(formatPayback(1.99)).toBe("2 years");
     expect(formatPayback(null, 5)).toBe("not within 5 years");
   });
 
@@ -52,5 +60,26 @@ describe("money and figures on screen", () => {
     const never = ["-100", "-5", "-5"];
     expect(irr(never.map((f) => new Decimal(f)))).toBeNull();
     expect(formatIrr({ irr: null, cashFlows: never })).toBe("no rate of return");
+  });
+
+  it("says the same about an IRR as the workbook's cached IRR cell (lib/workbook/cash-flow-values.ts)", () => {
+    const cases = [
+      { irr: 0.1234, cashFlows: ["-100", "60", "60"] },
+      { irr: null, cashFlows: ["-100", "5000", "5000"] },
+      { irr: null, cashFlows: ["-100", "-5", "-5"] },
+      { irr: null, cashFlows: ["0", "5", "5"] },
+    ];
+    for (const scenario of cases) {
+      const cell = irrValue(scenario as unknown as Scenario);
+      const asShown = typeof cell === "number" ? formatPct(cell * 100, 1) : cell;
+      expect(asShown).toBe(formatIrr(scenario));
+    }
+  });
+
+  it("rounds a headline amount to the nearest hundred, half-even", () => {
+    expect(formatMoneyHeadline("59555.3976", "EUR")).toBe("€59,600");
+    expect(formatMoneyHeadline("1250", "EUR")).toBe("€1,200");
+    expect(formatMoneyHeadline("1350", "EUR")).toBe("€1,400");
+    expect(formatMoneyHeadline("-4321.5", "GBP")).toBe("\u2212£4,300");
   });
 });
