@@ -17,23 +17,31 @@ function parseCsv(text: string): string[][] {
   const records: string[][] = [];
   let record: string[] = [];
   let field = "";
-  let i = 0;
   let quoted = false;
-  while (i < text.length) {
+  for (let i = 0; i < text.length; i++) {
     const c = text[i];
     if (quoted) {
-      if (c === '"' && text[i + 1] === '"') (field += '"'), (i += 2);
-      else if (c === '"') (quoted = false), i++;
-      else (field += c), i++;
-    } else if (c === '"' && field === "") (quoted = true), i++;
-    else if (c === ",") record.push(field), (field = ""), i++;
-    else if (c === "\r" && text[i + 1] === "\n") {
+      if (c === '"' && text[i + 1] === '"') {
+        field += '"';
+        i++;
+      } else if (c === '"') quoted = false;
+      else field += c;
+    } else if (c === '"' && field === "") quoted = true;
+    else if (c === ",") {
+      record.push(field);
+      field = "";
+    } else if (c === "\r" && text[i + 1] === "\n") {
       record.push(field);
       records.push(record);
-      (record = []), (field = ""), (i += 2);
-    } else (field += c), i++;
+      record = [];
+      field = "";
+      i++;
+    } else field += c;
   }
-  if (field !== "" || record.length) record.push(field), records.push(record);
+  if (field !== "" || record.length) {
+    record.push(field);
+    records.push(record);
+  }
   return records;
 }
 
