@@ -286,8 +286,8 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
               {data.totals.map((t) => (
                 <tr key={t.currency} className="bg-steel-50 font-bold">
                   <Td colSpan={4}>
-                    Total of the filtered quotes ({t.count}); the weighted total counts open
-                    quotes only
+                    Total of the filtered quotes ({t.count}); the weighted total counts open quotes
+                    only
                   </Td>
                   <Td className="whitespace-nowrap text-right tabular-nums">
                     {formatMoney(t.value, t.currency)}
@@ -389,8 +389,8 @@ function WinRateCard({
       </p>
       <p className="mt-1 text-small text-steel-700">
         {rate.won} won of {rate.won + rate.lost} decided (accepted or declined) between{" "}
-        {monthLabel(period.from)} and {monthLabel(period.to)}; open quotes do not count. The
-        period is set in the filters
+        {monthLabel(period.from)} and {monthLabel(period.to)}; open quotes do not count. The period
+        is set in the filters
       </p>
     </div>
   );
