@@ -215,7 +215,14 @@ export function ImportPanel({
                   <Select
                     id={`map-${i}`}
                     value={mapping[c.header] ?? c.key ?? ""}
-                    onChange={(e) => setMapping({ ...mapping, [c.header]: e.target.value })}
+                    disabled={busy}
+                    onChange={(e) => {
+                      // Each change of the mapping checks the file again at once, so the rows
+                      // and their problems below always match the mapping shown.
+                      const next = { ...mapping, [c.header]: e.target.value };
+                      setMapping(next);
+                      void send(file, true, next);
+                    }}
                     className="py-1 text-small"
                   >
                     <option value="">Not imported</option>
@@ -228,14 +235,9 @@ export function ImportPanel({
                 </div>
               ))}
             </div>
-            <Button
-              className="mt-3"
-              variant="secondary"
-              disabled={busy}
-              onClick={() => void send(file, true)}
-            >
-              Check again with this mapping
-            </Button>
+            <p className="mt-3 text-caption text-steel-700">
+              Each change checks the file again with the new mapping.
+            </p>
           </details>
 
           {check.preview ? (
@@ -256,7 +258,13 @@ export function ImportPanel({
             <p className="text-small text-steel-700">
               {check.errors.length > 0
                 ? "Fix the marked cells in your file and choose it again: a file with any error imports nothing."
-                : "All rows are valid. The import is all-or-nothing."}
+                : `All rows are valid. The import is all-or-nothing${
+                    check.machinesToCreate.length
+                      ? ` and creates ${check.machinesToCreate.length} new ${
+                          check.machinesToCreate.length === 1 ? "machine" : "machines"
+                        } on the way`
+                      : ""
+                  }.`}
             </p>
           </div>
         </div>

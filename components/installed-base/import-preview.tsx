@@ -5,6 +5,8 @@ import { Button } from "@/components/ui/button";
 import type { ImportCellError } from "./import-types";
 
 const PAGE = 50;
+// Problems listed above the table; the rest are marked in the table itself.
+const LISTED = 200;
 
 // Every row of the file as read, faulty cells marked with their message beside the value.
 export function ImportPreview({
@@ -32,6 +34,20 @@ export function ImportPreview({
   const pages = Math.max(1, Math.ceil(shown.length / PAGE));
   const current = shown.slice(page * PAGE, page * PAGE + PAGE);
   const headerErrors = errors.filter((e) => e.row === 1);
+  const rowErrors = errors
+    .filter((e) => e.row > 1)
+    .sort((a, b) => a.row - b.row || a.column.localeCompare(b.column));
+
+  // Shows the page that holds the row, then scrolls the wide table to it after React renders.
+  function goToRow(row: number) {
+    const index = shown.findIndex((r) => r.row === row);
+    if (index >= 0) setPage(Math.floor(index / PAGE));
+    requestAnimationFrame(() => {
+      const target = document.getElementById(`import-row-${row}`);
+      target?.scrollIntoView({ block: "center" });
+      target?.focus();
+    });
+  }
 
   return (
     <div className="space-y-3">
@@ -46,6 +62,33 @@ export function ImportPreview({
             </li>
           ))}
         </ul>
+      ) : null}
+      {rowErrors.length ? (
+        <div className="rounded-md border border-danger-600 bg-danger-50 p-3 text-small text-danger-700">
+          <p className="font-bold">
+            {rowErrors.length.toLocaleString("en")} problems in{" "}
+            {faultyRows.size.toLocaleString("en")} rows, first to last:
+          </p>
+          <ul className="mt-1 max-h-48 space-y-0.5 overflow-y-auto" aria-label="Problems by row">
+            {rowErrors.slice(0, LISTED).map((e, i) => (
+              <li key={i}>
+                <button
+                  type="button"
+                  className="text-left underline hover:no-underline"
+                  onClick={() => goToRow(e.row)}
+                >
+                  Row {e.row}, {e.column}:
+                </button>{" "}
+                {e.message}
+              </li>
+            ))}
+          </ul>
+          {rowErrors.length > LISTED ? (
+            <p className="mt-1">
+              and {(rowErrors.length - LISTED).toLocaleString("en")} more, marked in the table
+            </p>
+          ) : null}
+        </div>
       ) : null}
       <div className="flex flex-wrap items-center gap-3 text-small">
         <label className="flex items-center gap-2">
@@ -93,7 +136,12 @@ export function ImportPreview({
           </thead>
           <tbody className="divide-y divide-steel-100 bg-white">
             {current.map(({ row, cells }) => (
-              <tr key={row} className={faultyRows.has(row) ? "bg-danger-50/40" : undefined}>
+              <tr
+                key={row}
+                id={`import-row-${row}`}
+                tabIndex={-1}
+                className={faultyRows.has(row) ? "bg-danger-50/40" : undefined}
+              >
                 <th scope="row" className="px-2 py-1 font-bold tabular-nums text-steel-700">
                   {row}
                 </th>

@@ -2,7 +2,7 @@ import { and, asc, count, desc, eq, like, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { accounts, cases, proposals, quotes, sites } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
-import { stageTotals, sum, winRate, type StageTotal } from "@/lib/pipeline/figures";
+import { openWeighted, stageTotals, sum, winRate, type StageTotal } from "@/lib/pipeline/figures";
 import { QUOTE_STAGES } from "@/lib/pipeline/stages";
 import { pageWindow, type ListPage } from "@/lib/lists/list-params";
 import type { PipelineFilters, PipelineListParams, PipelineSort } from "@/lib/validations/pipeline";
@@ -40,7 +40,7 @@ function filterWhere(filters: PipelineFilters): SQL | undefined {
 
 /**
  * Every quote the caller may see, filtered, with totals per stage and per close month. All sums
- * are Decimal sums of the very rows returned, per currency.
+ * are Decimal sums of the very rows returned, per currency; weighted sums cover open quotes only.
  */
 export function pipeline(caller: SessionUser, filters: PipelineFilters = {}): Pipeline {
   const probabilities = getSalesSettings().stageProbabilities;
@@ -57,7 +57,7 @@ export function pipeline(caller: SessionUser, filters: PipelineFilters = {}): Pi
         currency,
         count: inCurrency.length,
         value: sum(inCurrency.map((q) => q.value)),
-        weighted: sum(inCurrency.map((q) => q.weighted)),
+        weighted: openWeighted(inCurrency),
       };
     }),
     byMonth: currencies.flatMap((currency) =>
@@ -70,7 +70,7 @@ export function pipeline(caller: SessionUser, filters: PipelineFilters = {}): Pi
           currency,
           count: inMonth.length,
           value: sum(inMonth.map((q) => q.value)),
-          weighted: sum(inMonth.map((q) => q.weighted)),
+          weighted: openWeighted(inMonth),
         };
       }),
     ),

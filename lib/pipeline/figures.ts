@@ -1,7 +1,7 @@
 import Decimal from "decimal.js";
 import type { CaseInput, CaseResult } from "../engine";
 import { roundMoney } from "../engine/money";
-import type { QuoteStage } from "./stages";
+import { OPEN_STAGES, type QuoteStage } from "./stages";
 
 /** What a quote copies from its frozen proposal once: value, currency, payback, top discount. */
 export function quoteFigures(input: CaseInput, result: CaseResult) {
@@ -28,7 +28,8 @@ export type StageTotal = {
 
 /**
  * Sums per stage and currency of the quotes given, in Decimal: the totals are exactly the sum
- * of the rows shown (amounts in different currencies are never added together).
+ * of the rows shown (amounts in different currencies are never added together). Per stage the
+ * weighted sum is that stage's own rows; the headline weighted total uses openWeighted().
  */
 export function stageTotals(
   quotes: { stage: QuoteStage; currency: string; value: string; weighted: string }[],
@@ -47,6 +48,14 @@ export function stageTotals(
       };
     }),
   );
+}
+
+/**
+ * The weighted value of the open quotes among those given: a decided or replaced quote is no
+ * longer a chance of revenue, so it counts nothing here.
+ */
+export function openWeighted(quotes: { stage: QuoteStage; weighted: string }[]): string {
+  return sum(quotes.filter((q) => OPEN_STAGES.includes(q.stage)).map((q) => q.weighted));
 }
 
 export function sum(values: string[]): string {

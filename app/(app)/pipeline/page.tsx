@@ -35,6 +35,17 @@ const monthLabel = (month: string) =>
     timeZone: "UTC",
   });
 
+// The CSV export with the same filters as the page (its sort and page do not matter there).
+function csvHref(current: Record<string, string | undefined>) {
+  const keep = ["owner", "stage", "account", "closeMonth"];
+  const query = new URLSearchParams(
+    Object.entries(current).flatMap(([key, value]) =>
+      keep.includes(key) && value ? [[key, value]] : [],
+    ),
+  ).toString();
+  return `/api/v1/pipeline.csv${query ? `?${query}` : ""}`;
+}
+
 function monthsBefore(month: string, n: number) {
   const [y, m] = month.split("-").map(Number);
   const d = new Date(Date.UTC(y, m - 1 - n, 1));
@@ -192,7 +203,7 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                 <Card
                   label="Weighted value"
                   value={formatMoney(t.weighted, t.currency)}
-                  note="Each quote's value × the chance of its stage"
+                  note={`${open.length} open quotes only, each value × the chance of its stage`}
                   testId="weighted-total"
                 />
                 <WinRateCard rate={rate} period={period} />
@@ -274,7 +285,10 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
             <tfoot>
               {data.totals.map((t) => (
                 <tr key={t.currency} className="bg-steel-50 font-bold">
-                  <Td colSpan={4}>Total of the filtered quotes ({t.count})</Td>
+                  <Td colSpan={4}>
+                    Total of the filtered quotes ({t.count}); the weighted total counts open quotes
+                    only
+                  </Td>
                   <Td className="whitespace-nowrap text-right tabular-nums">
                     {formatMoney(t.value, t.currency)}
                   </Td>
@@ -287,6 +301,15 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
               ))}
             </tfoot>
           </Table>
+          <p className="mt-3">
+            <a
+              href={csvHref(current)}
+              className="text-flux-700 underline hover:text-flux-800"
+              download
+            >
+              Download these quotes as CSV
+            </a>
+          </p>
           <Pager
             page={quotePage.page}
             pageCount={quotePage.pageCount}
@@ -365,8 +388,9 @@ function WinRateCard({
         {rate.ratePct === null ? "—" : formatPct(rate.ratePct, 0)}
       </p>
       <p className="mt-1 text-small text-steel-700">
-        {rate.won} accepted, {rate.lost} declined, decided {monthLabel(period.from)} –{" "}
-        {monthLabel(period.to)}; the period is set in the filters
+        {rate.won} won of {rate.won + rate.lost} decided (accepted or declined) between{" "}
+        {monthLabel(period.from)} and {monthLabel(period.to)}; open quotes do not count. The period
+        is set in the filters
       </p>
     </div>
   );

@@ -1,0 +1,125 @@
+import Decimal from "decimal.js";
+import { describe, expect, it } from "vitest";
+import { pipeline, pipelineWinRate } from "@/db/queries/pipeline";
+import { ForbiddenError } from "@/lib/errors";
+import { PIPELINE_CSV_HEADER, csvField, pipelineCsv } from "@/lib/pipeline/csv";
+import { openWeighted, winRate } from "@/lib/pipeline/figures";
+import { OPEN_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
+import { caller } from "../support/callers";
+
+const manager = () => caller("manager@example.com");
+const engineer = () => caller("engineer@example.com");
+
+// A small RFC 4180 reader (https://www.rfc-editor.org/rfc/rfc4180, section 2), written from the
+// grammar rather than taken from the writer under test: fields split by commas, records by CRLF,
+// a quoted field may hold commas, CRLF and doubled quotes.
+function parseCsv(text: string): string[][] {
+  const records: string[][] = [];
+  let record: string[] = [];
+  let field = "";
+  let quoted = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i];
+    if (quoted) {
+      if (c === '"' && text[i + 1] === '"') {
+        field += '"';
+        i++;
+      } else if (c === '"') quoted = false;
+      else field += c;
+    } else if (c === '"' && field === "") quoted = true;
+    else if (c === ",") {
+      record.push(field);
+      field = "";
+    } else if (c === "\r" && text[i + 1] === "\n") {
+      record.push(field);
+      records.push(record);
+      record = [];
+      field = "";
+      i++;
+    } else field += c;
+  }
+  if (field !== "" || record.length) {
+    record.push(field);
+    records.push(record);
+  }
+  return records;
+}
+
+describe("the pipeline's figures say what they count (hand-counted fixture)", () => {
+  const fixture = [
+    { stage: "ready", weighted: "100" },
+    { stage: "sent", weighted: "400" },
+    { stage: "changes", weighted: "30" },
+    { stage: "accepted", weighted: "1000" },
+    { stage: "declined", weighted: "0" },
+    { stage: "accepted", weighted: "2000" },
+    { stage: "replaced", weighted: "0" },
+  ] as const;
+
+  it("weights open quotes only: 100 + 400 + 30, not the 3000 already won", () => {
+    expect(openWeighted([...fixture])).toBe("530");
+  });
+
+  it("counts the win rate over decided quotes only: 2 won of 3 decided", () => {
+    const decided = fixture.filter((q) => q.stage === "accepted" || q.stage === "declined");
+    const rate = winRate(decided);
+    expect([rate.won, rate.lost]).toEqual([2, 1]);
+    expect(rate.ratePct).toBeCloseTo(66.667, 2);
+  });
+
+  it("on the seeded quotes, the weighted total is the open quotes' sum and the stages add up", () => {
+    const data = pipeline(manager());
+    for (const t of data.totals) {
+      const rows = data.quotes.filter((q) => q.currency === t.currency);
+      const open = rows.filter((q) => OPEN_STAGES.includes(q.stage));
+      const add = (xs: string[]) => xs.reduce((s, x) => s.plus(x), new Decimal(0));
+      expect(new Decimal(t.weighted).eq(add(open.map((q) => q.weighted)))).toBe(true);
+      const stages = data.stages.filter((s) => s.currency === t.currency);
+      expect(new Decimal(t.value).eq(add(stages.map((s) => s.value)))).toBe(true);
+      expect(stages.reduce((n, s) => n + s.count, 0)).toBe(rows.length);
+    }
+    const rate = pipelineWinRate(manager(), { from: "2000-01", to: "2100-12" });
+    const decided = data.quotes.filter((q) => q.decidedAt !== null);
+    expect(rate.won + rate.lost).toBe(
+      decided.filter((q) => q.stage === "accepted" || q.stage === "declined").length,
+    );
+  });
+});
+
+describe("the pipeline as CSV", () => {
+  it("quotes fields as RFC 4180 asks", () => {
+    expect(csvField("plain")).toBe("plain");
+    expect(csvField('Line 2, "north"')).toBe('"Line 2, ""north"""');
+    expect(parseCsv(`a,${csvField('x,"y"\r\nz')}\r\n`)).toEqual([["a", 'x,"y"\r\nz']]);
+  });
+
+  it("parsed back, has the page's quotes and totals, for each filter and scope", () => {
+    for (const who of [manager(), engineer()]) {
+      const all = pipeline(who);
+      for (const filters of [{}, { stage: all.quotes[0]?.stage }]) {
+        const data = pipeline(who, filters);
+        const [header, ...rows] = parseCsv(pipelineCsv(data.quotes));
+        expect(header).toEqual(PIPELINE_CSV_HEADER);
+        expect(rows).toHaveLength(data.quotes.length);
+        rows.forEach((r, i) => {
+          const q = data.quotes[i];
+          expect(r[0]).toBe(q.caseName);
+          expect(r[2]).toBe(q.accountName);
+          expect(r[5]).toBe(STAGE_LABELS[q.stage]);
+          expect(r[7]).toMatch(/^-?\d+(\.\d+)?$/);
+          expect(new Decimal(r[7]).eq(q.value)).toBe(true);
+          expect(new Decimal(r[9]).eq(q.weighted)).toBe(true);
+        });
+        for (const t of data.totals) {
+          const inCurrency = rows.filter((r) => r[6] === t.currency);
+          const total = inCurrency.reduce((s, r) => s.plus(r[7]), new Decimal(0));
+          expect(total.eq(t.value)).toBe(true);
+          expect(inCurrency).toHaveLength(t.count);
+        }
+        if (who.role === "engineer")
+          expect(rows.every((r) => r[4] === data.quotes[0].ownerName)).toBe(true);
+      }
+    }
+    expect(() => pipeline(caller("reviewer@example.com"))).toThrow(ForbiddenError);
+  });
+});
