@@ -97,13 +97,13 @@ export const METHOD_SECTIONS: MethodSection[] = [
         rows: [
           ["full step, two phases on", "√2·I", "(4/π)·I ≈ 1.273·I", "2·I²·R"],
           [
-            "half step (the one-phase step governs at rest)",
+            "half step (at rest the weaker single-phase step decides)",
             "I",
             "(4/π)·sin 67.5°·I ≈ 1.176·I",
             "1.5·I²·R",
           ],
           [
-            "half step, compensated (71 % in two-phase steps)",
+            "half step, compensated (two-phase steps at 71 %)",
             "I",
             "(8/π)·sin 22.5°·I ≈ 0.975·I",
             "I²·R",
@@ -222,7 +222,7 @@ export const METHOD_SECTIONS: MethodSection[] = [
         lines: [
           "R(T) = R_{20} · (1 + α·(T − 20))",
           "A = R_{20} · (m·c_{f}·I_{move}² + h·c_{f}·I_{hold}²),   B = m·P_{fe}",
-          "T_{w} = [T_{amb} + R_{th}·(A·(1 − 20α) + B)] / (1 − R_{th}·A·α)",
+          "T_{w} = [T_{amb} + R_{th}·(B + A·(1 − 20α))] / (1 − α·A·R_{th})",
         ],
       },
       {
@@ -251,7 +251,7 @@ export const METHOD_SECTIONS: MethodSection[] = [
         kind: "eq",
         lines: [
           "P_{in} = P_{motor} / η_{drive} + P_{standby} (+ P_{encoder})",
-          "E = hours · (m·P_{in,move} + h·P_{in,hold} + (1 − m − h)·P_{in,off}) / 1000        kWh per year",
+          "E = hours · ((1 − m − h)·P_{in,off} + m·P_{in,move} + h·P_{in,hold}) / 1000        kWh per year",
           "E_{cooling} = hours · (mean drive loss) / 1000 / COP        zero without active cooling",
         ],
       },

@@ -102,10 +102,11 @@ export const CAUTIONS = {
     "Savings and payback are estimates from the stated assumptions; the workbook lists every one of them.",
 } as const;
 
+// Warnings about a hot winding, open loop first, then closed loop: each carries the burn caution.
 const HOT_CODES: ReadonlySet<WarningCode> = new Set([
   "OL_THERMAL_RUNAWAY",
-  "CL_THERMAL_RUNAWAY",
   "OL_WINDING_OVER_CLASS",
+  "CL_THERMAL_RUNAWAY",
   "CL_WINDING_OVER_CLASS",
 ]);
 

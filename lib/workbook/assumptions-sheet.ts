@@ -247,7 +247,7 @@ function entries(input: ParsedCase): Entry[] {
       value: thermal.lifeHalvingK,
       unit: "K",
       defaultValue: "10",
-      source: `${COMMON}: a rule of thumb; IEC 60216 rates each material with its own halving interval`,
+      source: `${COMMON}: a rule of thumb, as IEC 60216 gives every insulation material an interval of its own`,
       format: FORMATS.pct,
     },
   ];
@@ -373,7 +373,7 @@ function writeMachines(
       (counted?.warnings ?? []).map(machineWarningText).join(" "),
     ]);
     const r = row.number;
-    // docs/model.md (The business case): value = gain/100 · marginPerOutputHour · the largest hoursPerYear of its axes.
+    // docs/model.md (The business case): a machine earns gain/100 · marginPerOutputHour · (highest hoursPerYear among its axes).
     row.getCell(8).value = {
       formula: `F${r}/100*E${r}*G${r}`,
       result: Number(counted?.throughputPerYear ?? 0),

@@ -6,10 +6,11 @@ import { inflateRawSync } from "node:zlib";
 import ExcelJS from "exceljs";
 
 /**
- * LibreOffice Calc, headless, as the finance reviewer's spreadsheet (docs/model.md (Sources of the check values): "LibreOffice
- * Calc opening the exported workbook recalculates every formula; its values must equal the
- * engine's"). Calc keeps the values cached beside formulas in an .xlsx instead of computing them,
- * so the workbook goes to it with every cached formula value removed.
+ * LibreOffice Calc, headless, standing in for the spreadsheet a finance reviewer opens (see
+ * docs/model.md, Sources of the check values): once Calc has recomputed each formula of the
+ * exported workbook, the figures it shows have to match the engine's. Calc keeps the values
+ * cached beside formulas in an .xlsx instead of computing them, so the workbook goes to it with
+ * every cached formula value removed.
  */
 
 export const INSTALL_HINT =

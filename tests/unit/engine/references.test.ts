@@ -212,7 +212,7 @@ describe("NPV and IRR worked examples", () => {
       "3065.22267",
     );
   });
-  it("NumPy ≤ 1.17 npv docstring: NPV at 0.281 of −100, 39, 59, 55, 20 = −0.0084785916384548798", () => {
+  it("NumPy ≤ 1.17 npv docstring: rate 0.281 on −100, 39, 59, 55, 20 gives −0.0084785916384548798", () => {
     const value = npv(new Money("0.281"), flows([-100, 39, 59, 55, 20]));
     // The docstring was computed in doubles; exact decimal arithmetic agrees to 3e-14.
     expect(value.minus("-0.0084785916384548798").abs().lessThan("1e-13")).toBe(true);
