@@ -1,8 +1,7 @@
 import Link from "next/link";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
 import type { ProposalSummary } from "@/db/queries/proposal-versions";
-import { buttonClass } from "@/components/ui/button";
-import { Input, Select } from "@/components/ui/field";
+import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { Pager } from "@/components/ui/pager";
 import { SortHeader, Table, Td, Th } from "@/components/ui/table";
 import { listHref, type ListPage } from "@/lib/lists/list-params";
@@ -10,6 +9,8 @@ import { QUOTE_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import type { ProposalListParams } from "@/lib/validations/case-lists";
 import { formatMoney, formatPayback } from "@/lib/results/format";
 import { FINANCE_TERMS, SCENARIO_LABELS } from "@/lib/glossary";
+
+const QUOTE_STAGE_OPTIONS = QUOTE_STAGES.map((s) => ({ value: s, label: STAGE_LABELS[s] }));
 
 // Frozen versions, a page at a time (newest first unless sorted otherwise; filter, sort and page
 // in the URL, done in SQL by db/queries/proposal-list.ts), each with its stage with the customer
@@ -42,43 +43,29 @@ export function ProposalsList({
   };
   return (
     <div className="space-y-3">
-      <form
-        method="get"
+      <ListFilterForm
         action={path}
-        role="search"
-        aria-label="Filter proposals"
-        className="flex flex-wrap items-end gap-3"
-      >
-        <div>
-          <label htmlFor="proposals-q" className="block text-small font-bold text-steel-800">
-            Version or frozen by contains
-          </label>
-          <Input id="proposals-q" name="q" defaultValue={params.q ?? ""} className="w-56" />
-        </div>
-        <div>
-          <label htmlFor="proposals-stage" className="block text-small font-bold text-steel-800">
-            Proposal stage
-          </label>
-          <Select
-            id="proposals-stage"
-            name="stage"
-            defaultValue={params.stage ?? ""}
-            className="w-44"
-          >
-            <option value="">All stages</option>
-            {QUOTE_STAGES.map((s) => (
-              <option key={s} value={s}>
-                {STAGE_LABELS[s]}
-              </option>
-            ))}
-          </Select>
-        </div>
-        <input type="hidden" name="sort" value={params.sort} />
-        <input type="hidden" name="dir" value={params.dir} />
-        <button type="submit" className={buttonClass("secondary")}>
-          Filter proposals
-        </button>
-      </form>
+        label="Filter proposals"
+        search={{
+          id: "proposals-q",
+          label: "Version or frozen by contains",
+          value: params.q,
+          width: "w-56",
+        }}
+        selects={[
+          {
+            id: "proposals-stage",
+            name: "stage",
+            label: "Proposal stage",
+            value: params.stage,
+            anyLabel: "All stages",
+            options: QUOTE_STAGE_OPTIONS,
+            width: "w-44",
+          },
+        ]}
+        keep={{ sort: params.sort, dir: params.dir }}
+        submitLabel="Filter proposals"
+      />
       {result.total === 0 ? (
         <p className="text-small text-steel-700">
           No version matches. <Link href={path}>Show all versions</Link>.

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { buttonClass } from "@/components/ui/button";
-import { Input, Select } from "@/components/ui/field";
+import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { SortHeader, Table, Td, Th } from "@/components/ui/table";
 import type { listAxes } from "@/db/queries/axes";
 import type { AxisListParams } from "@/lib/validations/installed-base";
@@ -44,39 +44,29 @@ export function AxesTable({
 
   return (
     <div className="space-y-3">
-      <form
-        method="get"
+      <ListFilterForm
         action={`/sites/${siteId}`}
-        role="search"
-        aria-label="Filter axes"
-        className="flex flex-wrap items-end gap-3"
+        label="Filter axes"
+        search={{
+          id: "axes-q",
+          label: "Label or machine contains",
+          value: params.q,
+          width: "w-56",
+        }}
+        selects={[
+          {
+            id: "axes-machine",
+            name: "machine",
+            label: "Machine",
+            value: params.machineId ? String(params.machineId) : undefined,
+            anyLabel: "All machines",
+            options: machines.map((m) => ({ value: m.id, label: m.name })),
+            width: "w-56",
+          },
+        ]}
+        keep={{ sort: params.sort, dir: params.dir }}
+        submitLabel="Apply"
       >
-        <div>
-          <label htmlFor="axes-q" className="block text-small font-bold text-steel-800">
-            Label or machine contains
-          </label>
-          <Input id="axes-q" name="q" defaultValue={params.q ?? ""} className="w-56" />
-        </div>
-        <div>
-          <label htmlFor="axes-machine" className="block text-small font-bold text-steel-800">
-            Machine
-          </label>
-          <Select
-            id="axes-machine"
-            name="machine"
-            defaultValue={params.machineId ? String(params.machineId) : ""}
-            className="w-56"
-          >
-            <option value="">All machines</option>
-            {machines.map((m) => (
-              <option key={m.id} value={m.id}>
-                {m.name}
-              </option>
-            ))}
-          </Select>
-        </div>
-        <input type="hidden" name="sort" value={params.sort} />
-        <input type="hidden" name="dir" value={params.dir} />
         <details className="relative">
           <summary className={`${buttonClass("secondary")} cursor-pointer list-none`}>
             Columns
@@ -96,10 +86,7 @@ export function AxesTable({
             ))}
           </fieldset>
         </details>
-        <button type="submit" className={buttonClass("secondary")}>
-          Apply
-        </button>
-      </form>
+      </ListFilterForm>
 
       <Table caption="Axes of this site">
         <thead>

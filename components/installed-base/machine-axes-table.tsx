@@ -1,6 +1,5 @@
 import Link from "next/link";
-import { buttonClass } from "@/components/ui/button";
-import { Input } from "@/components/ui/field";
+import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { Pager } from "@/components/ui/pager";
 import { SortHeader, Table, Td, Th } from "@/components/ui/table";
 import type { listMachineAxes } from "@/db/queries/machine-series";
@@ -28,25 +27,18 @@ export function MachineAxesTable({
   const sortProps = { sort: params.sort, dir: params.dir, href: sortHref };
   return (
     <div className="space-y-3">
-      <form
-        method="get"
+      <ListFilterForm
         action={path}
-        role="search"
-        aria-label="Filter this machine's axes"
-        className="flex flex-wrap items-end gap-3"
-      >
-        <div>
-          <label htmlFor="machine-axes-q" className="block text-small font-bold text-steel-800">
-            Axis label contains
-          </label>
-          <Input id="machine-axes-q" name="q" defaultValue={params.q ?? ""} className="w-56" />
-        </div>
-        <input type="hidden" name="sort" value={params.sort} />
-        <input type="hidden" name="dir" value={params.dir} />
-        <button type="submit" className={buttonClass("secondary")}>
-          Filter
-        </button>
-      </form>
+        label="Filter this machine's axes"
+        search={{
+          id: "machine-axes-q",
+          label: "Axis label contains",
+          value: params.q,
+          width: "w-56",
+        }}
+        keep={{ sort: params.sort, dir: params.dir }}
+        submitLabel="Filter"
+      />
       <Table caption="Axes of this machine">
         <thead>
           <tr>

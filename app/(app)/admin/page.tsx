@@ -4,8 +4,7 @@ import { InvitationActions } from "@/components/admin/invitation-actions";
 import { UserRowActions } from "@/components/admin/user-row-actions";
 import { UserStatus } from "@/components/admin/user-status";
 import { Badge } from "@/components/ui/badge";
-import { buttonClass } from "@/components/ui/button";
-import { Input, Select } from "@/components/ui/field";
+import { ListFilterForm, pickParams } from "@/components/ui/list-filter-form";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { Pager } from "@/components/ui/pager";
 import { SortHeader, Table, Td, Th } from "@/components/ui/table";
@@ -24,13 +23,8 @@ export const metadata: Metadata = { title: "Users and audit" };
 type SearchParams = Promise<Record<string, string | string[] | undefined>>;
 
 const STATUS_LABELS = { invited: "Invited", active: "Active", inactive: "Deactivated" } as const;
-
-// Hidden inputs that carry the other list's state through a GET filter form.
-function Keep({ current, keys }: { current: Record<string, string | undefined>; keys: string[] }) {
-  return keys.map((k) =>
-    current[k] ? <input key={k} type="hidden" name={k} value={current[k]} /> : null,
-  );
-}
+const ROLE_OPTIONS = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
+const STATUS_OPTIONS = USER_STATUSES.map((s) => ({ value: s, label: STATUS_LABELS[s] }));
 
 export default async function AdminPage({ searchParams }: { searchParams: SearchParams }) {
   const admin = await requirePageUser("admin");
@@ -70,55 +64,40 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
       />
 
       <Panel title="Users">
-        <form
-          method="get"
+        {/* The audit list's state rides along, so filtering users leaves it as it was. */}
+        <ListFilterForm
           action="/admin"
-          className="mb-4 flex flex-wrap items-end gap-3"
-          role="search"
-          aria-label="Users"
-        >
-          <div>
-            <label htmlFor="user-q" className="block text-small font-bold text-steel-800">
-              Name or e-mail contains
-            </label>
-            <Input id="user-q" name="q" defaultValue={params.q ?? ""} className="w-64" />
-          </div>
-          <div>
-            <label htmlFor="user-role" className="block text-small font-bold text-steel-800">
-              Role
-            </label>
-            <Select id="user-role" name="role" defaultValue={params.role ?? ""} className="w-48">
-              <option value="">Any role</option>
-              {ROLES.map((r) => (
-                <option key={r} value={r}>
-                  {ROLE_LABELS[r]}
-                </option>
-              ))}
-            </Select>
-          </div>
-          <div>
-            <label htmlFor="user-status" className="block text-small font-bold text-steel-800">
-              Status
-            </label>
-            <Select
-              id="user-status"
-              name="status"
-              defaultValue={params.status ?? ""}
-              className="w-48"
-            >
-              <option value="">Any status</option>
-              {USER_STATUSES.map((s) => (
-                <option key={s} value={s}>
-                  {STATUS_LABELS[s]}
-                </option>
-              ))}
-            </Select>
-          </div>
-          <Keep current={current} keys={["sort", "dir", ...auditKeys]} />
-          <button type="submit" className={buttonClass("secondary")}>
-            Filter
-          </button>
-        </form>
+          label="Users"
+          className="mb-4"
+          search={{
+            id: "user-q",
+            label: "Name or e-mail contains",
+            value: params.q,
+            width: "w-64",
+          }}
+          selects={[
+            {
+              id: "user-role",
+              name: "role",
+              label: "Role",
+              value: params.role,
+              anyLabel: "Any role",
+              options: ROLE_OPTIONS,
+              width: "w-48",
+            },
+            {
+              id: "user-status",
+              name: "status",
+              label: "Status",
+              value: params.status,
+              anyLabel: "Any status",
+              options: STATUS_OPTIONS,
+              width: "w-48",
+            },
+          ]}
+          keep={pickParams(current, ["sort", "dir", ...auditKeys])}
+          submitLabel="Filter"
+        />
         <Table caption="Users">
           <thead>
             <tr>
@@ -182,29 +161,21 @@ export default async function AdminPage({ searchParams }: { searchParams: Search
       </Panel>
 
       <Panel title="Audit log">
-        <form
-          method="get"
+        {/* The users list's state, its page included, rides along the same way. */}
+        <ListFilterForm
           action="/admin"
-          className="mb-4 flex flex-wrap items-end gap-3"
-          role="search"
-          aria-label="Audit log"
-        >
-          <div>
-            <label htmlFor="audit-q" className="block text-small font-bold text-steel-800">
-              Action, who or detail contains
-            </label>
-            <Input
-              id="audit-q"
-              name={AUDIT_URL_KEYS.q}
-              defaultValue={auditParams.q ?? ""}
-              className="w-64"
-            />
-          </div>
-          <Keep current={current} keys={[...userKeys, "page", AUDIT_URL_KEYS.dir]} />
-          <button type="submit" className={buttonClass("secondary")}>
-            Filter the audit log
-          </button>
-        </form>
+          label="Audit log"
+          className="mb-4"
+          search={{
+            id: "audit-q",
+            name: AUDIT_URL_KEYS.q,
+            label: "Action, who or detail contains",
+            value: auditParams.q,
+            width: "w-64",
+          }}
+          keep={pickParams(current, [...userKeys, "page", AUDIT_URL_KEYS.dir])}
+          submitLabel="Filter the audit log"
+        />
         <Table caption="Audit log">
           <thead>
             <tr>

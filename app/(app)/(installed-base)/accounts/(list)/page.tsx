@@ -2,8 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { NewAccountForm } from "@/components/accounts/new-account-form";
 import { Badge } from "@/components/ui/badge";
-import { buttonClass } from "@/components/ui/button";
-import { Input } from "@/components/ui/field";
+import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { Pager } from "@/components/ui/pager";
 import { EmptyState, PageHeader } from "@/components/ui/panel";
 import { SortHeader, Table, Td, Th } from "@/components/ui/table";
@@ -39,19 +38,18 @@ export default async function AccountsPage({ searchParams }: { searchParams: Sea
       />
       <NewAccountForm owners={owners} />
 
-      <form
-        method="get"
+      <ListFilterForm
         action="/accounts"
-        role="search"
-        aria-label="Filter accounts"
-        className="flex flex-wrap items-end gap-3"
+        label="Filter accounts"
+        search={{
+          id: "accounts-q",
+          label: "Account or owner contains",
+          value: params.q,
+          width: "w-64",
+        }}
+        keep={{ sort: params.sort, dir: params.dir }}
+        submitLabel="Apply"
       >
-        <div>
-          <label htmlFor="accounts-q" className="block text-small font-bold text-steel-800">
-            Account or owner contains
-          </label>
-          <Input id="accounts-q" name="q" defaultValue={params.q ?? ""} className="w-64" />
-        </div>
         <label className="flex items-center gap-2 pb-2 text-small font-bold text-steel-800">
           <input
             type="checkbox"
@@ -61,12 +59,7 @@ export default async function AccountsPage({ searchParams }: { searchParams: Sea
           />
           Show archived accounts
         </label>
-        <input type="hidden" name="sort" value={params.sort} />
-        <input type="hidden" name="dir" value={params.dir} />
-        <button type="submit" className={buttonClass("secondary")}>
-          Apply
-        </button>
-      </form>
+      </ListFilterForm>
 
       {result.total === 0 ? (
         <EmptyState title={filtered ? "No accounts match" : "No accounts yet"}>

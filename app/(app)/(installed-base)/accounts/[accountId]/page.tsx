@@ -4,8 +4,7 @@ import { SharingPanel } from "@/components/accounts/sharing-panel";
 import { PendingUndo } from "@/components/installed-base/pending-undo";
 import { SiteForm } from "@/components/installed-base/site-form";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
-import { buttonClass } from "@/components/ui/button";
-import { Input } from "@/components/ui/field";
+import { ListFilterForm } from "@/components/ui/list-filter-form";
 import { Pager } from "@/components/ui/pager";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { SortHeader, Table, Td, Th } from "@/components/ui/table";
@@ -68,25 +67,19 @@ export default async function AccountPage({
         </section>
       ) : null}
       <Panel title={`Sites (${sites.total.toLocaleString("en")})`}>
-        <form
-          method="get"
+        <ListFilterForm
           action={path}
-          role="search"
-          aria-label="Filter sites"
-          className="mb-3 flex flex-wrap items-end gap-3"
-        >
-          <div>
-            <label htmlFor="sites-q" className="block text-small font-bold text-steel-800">
-              Site name contains
-            </label>
-            <Input id="sites-q" name="q" defaultValue={listParams.q ?? ""} className="w-56" />
-          </div>
-          <input type="hidden" name="sort" value={listParams.sort} />
-          <input type="hidden" name="dir" value={listParams.dir} />
-          <button type="submit" className={buttonClass("secondary")}>
-            Filter
-          </button>
-        </form>
+          label="Filter sites"
+          className="mb-3"
+          search={{
+            id: "sites-q",
+            label: "Site name contains",
+            value: listParams.q,
+            width: "w-56",
+          }}
+          keep={{ sort: listParams.sort, dir: listParams.dir }}
+          submitLabel="Filter"
+        />
         {sites.total === 0 && !listParams.q ? (
           <EmptyState title="No sites yet">Add the customer&apos;s first plant below.</EmptyState>
         ) : (
