@@ -77,7 +77,10 @@ function ScenarioCard({
       <p
         className={`text-display font-black tabular-nums ${negative ? "text-danger-700" : "text-flux-800"}`}
       >
-        {formatMoneyHeadline(h.npv, currency)}
+        {/* Rounded to the hundred for reading; the exact figure rides along for tools and tests. */}
+        <data value={h.npv} data-testid="headline-npv">
+          {formatMoneyHeadline(h.npv, currency)}
+        </data>
       </p>
       {reliance?.mostlyTyped ? (
         <p

@@ -162,6 +162,15 @@ const ROUTES: Record<string, RouteProbe> = {
     admin: 403,
     listed: (ids, body) => containsId("id", ids.proposal)(ids, body),
   },
+  // The same quotes as CSV: no ids in it, so the other tenant shows by its account's name.
+  "GET pipeline.csv": {
+    path: () => "/api/v1/pipeline.csv",
+    engineer: "lists",
+    reviewer: 403,
+    manager: 200,
+    admin: 403,
+    listed: (_ids, body) => String(body).includes(FOREIGN_ACCOUNT),
+  },
   "GET proposals/[proposalId]/comments": {
     path: (i) => `/api/v1/proposals/${i.proposal}/comments`,
     engineer: "scoped",
@@ -740,11 +749,17 @@ async function callAction(who: Caller, key: string, args: unknown[]): Promise<Ac
 
 // ---- setup ---------------------------------------------------------------------------------
 
+const FOREIGN_ACCOUNT = "Pipetteworks Lab Automation";
+/** A JSON answer parsed, any other (the CSV export) as its text. */
+const bodyOf = async (res: Response): Promise<unknown> =>
+  (res.headers.get("content-type") ?? "").includes("json") ? res.json() : res.text();
+
 const one = <T>(sql: string, ...args: unknown[]) => database.prepare(sql).get(...args) as T;
 
 beforeAll(async () => {
   const account = one<{ id: number }>(
-    "select id from accounts where name = 'Pipetteworks Lab Automation'",
+    "select id from accounts where name = ?",
+    FOREIGN_ACCOUNT,
   ).id;
   const siteRow = one<{ id: number }>(
     "select id from sites where account_id = ? order by id",
@@ -847,14 +862,14 @@ describe("an attacker signed in to another account, over HTTP", () => {
       expect(await res.json()).toEqual(await missing.json());
     } else if (expected === "lists") {
       expect(res.status).toBe(200);
-      expect(probe.listed!(foreign, await res.json()), "the other tenant's id is listed").toBe(
+      expect(probe.listed!(foreign, await bodyOf(res)), "the other tenant's id is listed").toBe(
         false,
       );
     } else {
       expect(res.status).toBe(expected);
       // The managers and administrators who may see every account get the other tenant's row.
       if (expected === 200 && probe.listed)
-        expect(probe.listed(foreign, await res.json())).toBe(true);
+        expect(probe.listed(foreign, await bodyOf(res))).toBe(true);
     }
     if (write && expected !== 200) expect(dataVersion(), "nothing was written").toBe(before);
     if (!write && expected !== 200)
