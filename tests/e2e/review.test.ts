@@ -103,6 +103,11 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
 
     // Half the step-loss events entered: the NPV and the value by source move, the proposal's
     // own column does not.
+    // The reviewer reads where the value comes from before trying figures.
+    await page.getByRole("heading", { name: "Value by source over the horizon" }).waitFor();
+    const storedBefore = await (
+      await page.request.get(`${baseUrl()}/api/v1/proposals/${proposalId}`)
+    ).text();
     const proposalNpv = await page.getByRole("cell").filter({ hasText: /€/ }).first().textContent();
     const npvBefore = await npv.textContent();
     const detail = page.getByTestId("what-if-detail");
@@ -114,6 +119,10 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
     expect(await page.getByRole("cell").filter({ hasText: /€/ }).first().textContent()).toBe(
       proposalNpv,
     );
+    // The stored proposal, as the API serves it, is byte for byte what it was.
+    expect(
+      await (await page.request.get(`${baseUrl()}/api/v1/proposals/${proposalId}`)).text(),
+    ).toBe(storedBefore);
 
     // The decision.
     const decision = page.getByRole("form", { name: "Decision" });

@@ -9,6 +9,7 @@ import { CautionsPanel } from "@/components/results/cautions-panel";
 import { EnergyByMachineChart } from "@/components/results/energy-by-machine-chart";
 import { HeadlineCards } from "@/components/results/headline-cards";
 import { MethodLink } from "@/components/results/method-link";
+import { ValueBySourceChart } from "@/components/results/value-by-source-chart";
 import { ValueBySourceTable } from "@/components/results/value-by-source-table";
 import { WarningsPanel } from "@/components/results/warnings-panel";
 import { AssumptionsList } from "@/components/review/assumptions-list";
@@ -117,6 +118,7 @@ export default async function ReviewProposalPage({
         <CashFlowChart result={result} input={input} />
         <EnergyByMachineChart result={result} input={input} />
       </div>
+      <ValueBySourceChart result={result} input={input} />
       <ValueBySourceTable result={result} />
       <MachineFiguresTable result={result} input={input} />
       <WarningsPanel result={result} input={input} />
