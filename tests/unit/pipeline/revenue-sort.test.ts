@@ -82,7 +82,11 @@ describe("sorting the pipeline's tables", () => {
   });
 
   it("puts a payback that never comes last either way, and breaks ties by id", () => {
-    const rows = [q(1, { paybackYears: null }), q(2, { paybackYears: 3 }), q(3, { paybackYears: 1 })];
+    const rows = [
+      q(1, { paybackYears: null }),
+      q(2, { paybackYears: 3 }),
+      q(3, { paybackYears: 1 }),
+    ];
     expect(sortQuotes(rows, "payback", "asc").map((r) => r.id)).toEqual([3, 2, 1]);
     expect(sortQuotes(rows, "payback", "desc").map((r) => r.id)).toEqual([2, 3, 1]);
     expect(sortQuotes([q(5, {}), q(4, {})], "owner", "asc").map((r) => r.id)).toEqual([4, 5]);
