@@ -1,4 +1,4 @@
-import { SortHeader, Table, Td, Th } from "@/components/ui/table";
+import { SortHeader, Table, Td } from "@/components/ui/table";
 import type { ValueRow } from "@/components/pipeline/pipeline-charts";
 import { FINANCE_TERMS } from "@/lib/glossary";
 import type { GroupSort } from "@/lib/pipeline/sort-quotes";

@@ -8,7 +8,7 @@ import { buttonClass } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Pager } from "@/components/ui/pager";
-import { SortHeader, Table, Td, Th } from "@/components/ui/table";
+import { SortHeader, Table, Td } from "@/components/ui/table";
 import {
   pipeline,
   pipelineFilterOptions,
