@@ -9,83 +9,17 @@ import { proposals, quotes } from "@/db/schema";
 import { PIPELINE_CSV_HEADER } from "@/lib/pipeline/csv";
 import { caller } from "../support/callers";
 import { parseCsv } from "../support/csv";
+import {
+  cents,
+  expectedOwnCosts,
+  expectedRevenue,
+  fixed,
+  ONE,
+  type FrozenInput,
+} from "../support/exact-revenue";
 import { asRequestOf } from "../support/next-request";
 
 const manager = () => caller("manager@example.com");
-
-// An exact decimal as a BigInt of millionths of a millionth (12 places), written here from plain
-// string arithmetic so that the check shares no code with the app's decimal.js sums. Every
-// figure the revenue multiplies (prices, hours, percentages) has far fewer places than that.
-const SCALE = 12;
-const ONE = 10n ** BigInt(SCALE);
-function fixed(value: string | number | undefined): bigint {
-  const text = value === undefined ? "0" : String(value);
-  expect(text, "a plain decimal").toMatch(/^-?\d+(\.\d+)?$/);
-  const negative = text.startsWith("-");
-  const [whole, frac = ""] = text.replace("-", "").split(".");
-  expect(frac.length).toBeLessThanOrEqual(SCALE);
-  const n = BigInt(whole) * ONE + BigInt(frac.padEnd(SCALE, "0"));
-  return negative ? -n : n;
-}
-const times = (a: bigint, b: bigint) => (a * b) / ONE; // exact while the places stay within 12
-/** Half-even to whole cents, as the app rounds money for display (docs/model.md). */
-function cents(n: bigint): bigint {
-  const unit = ONE / 100n;
-  const q = n / unit;
-  const r = n % unit;
-  if (r * 2n > unit || (r * 2n === unit && q % 2n === 1n)) return q + 1n;
-  return q;
-}
-
-type FrozenInput = {
-  finance: {
-    laborRatePerHour?: string;
-    downtimeCostPerHour?: string;
-    projectOneTimeCost?: string;
-  };
-  machines: { downtimeHours?: number }[];
-  axes: {
-    quantity: number;
-    retrofit: {
-      kit: { price: string | number };
-      discountPct?: number;
-      installHours?: number;
-      commissioningCost?: string;
-    };
-  }[];
-};
-
-/** What the vendor invoices, from the frozen input alone: Σ units × (kit − discount + labour + commissioning). */
-function expectedRevenue(input: FrozenInput) {
-  let kits = 0n;
-  let discounts = 0n;
-  let installation = 0n;
-  let commissioning = 0n;
-  const rate = fixed(input.finance.laborRatePerHour);
-  for (const axis of input.axes) {
-    const units = fixed(axis.quantity);
-    const list = times(units, fixed(axis.retrofit.kit.price));
-    kits += list;
-    discounts += times(list, fixed(axis.retrofit.discountPct)) / 100n;
-    installation += times(times(units, fixed(axis.retrofit.installHours)), rate);
-    commissioning += times(units, fixed(axis.retrofit.commissioningCost));
-  }
-  return {
-    kits,
-    discounts,
-    installation,
-    commissioning,
-    revenue: kits - discounts + installation + commissioning,
-  };
-}
-
-/** The customer's own costs on top: machine downtime at the downtime rate, the project's one-time cost. */
-function expectedOwnCosts(input: FrozenInput) {
-  const hours = input.machines.reduce((h, m) => h + fixed(m.downtimeHours), 0n);
-  return (
-    times(hours, fixed(input.finance.downtimeCostPerHour)) + fixed(input.finance.projectOneTimeCost)
-  );
-}
 
 const frozenInput = (id: number) =>
   db.select({ input: proposals.input }).from(proposals).where(eq(proposals.id, id)).get()!
