@@ -251,7 +251,7 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                 />
                 <WinRateCard rate={rate} period={period} />
               </div>
-              <div className="grid gap-6 xl:grid-cols-2">
+              <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-2">
                 <ValueByStageChart
                   rows={stageRows}
                   currency={t.currency}

@@ -45,7 +45,7 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
                   <strong>
                     {invitation.proposal.caseName}, version {invitation.proposal.version}
                   </strong>{" "}
-                  for {invitation.proposal.siteName}
+                  for {invitation.proposal.siteName},
                 </>
               ) : (
                 "retrofit proposals"
