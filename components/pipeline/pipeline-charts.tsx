@@ -3,7 +3,7 @@
 import { ResponsiveBar } from "@nivo/bar";
 import { ChartPanel, SwatchLegend } from "@/components/results/chart-panel";
 import { CHART_COLORS, chartTheme } from "@/components/results/chart-theme";
-import { Table, Td, Th } from "@/components/ui/table";
+import type { ReactNode } from "react";
 import { formatMoney, formatMoneyCompact, moneyToChartNumber } from "@/lib/results/format";
 import { FINANCE_TERMS } from "@/lib/glossary";
 
@@ -11,14 +11,16 @@ export type ValueRow = {
   key: string;
   label: string;
   count: number;
+  /** The customer's investment (in the table beside the chart, not drawn). */
   value: string;
+  revenue: string;
   weighted: string;
 };
 
-// The weighted value is part of the value: a lighter shade of the same blue-green (flux-300).
+// The weighted revenue is part of the revenue: a lighter shade of the same blue-green (flux-300).
 const WEIGHTED_COLOR = "#78bdb8";
-const VALUE = FINANCE_TERMS.pipelineValue;
-const WEIGHTED = "Weighted value";
+const VALUE = FINANCE_TERMS.vendorRevenue;
+const WEIGHTED = FINANCE_TERMS.weightedRevenue;
 
 function ValueBars({
   rows,
@@ -38,7 +40,7 @@ function ValueBars({
     <ResponsiveBar
       data={rows.map((r) => ({
         key: r.key,
-        [VALUE]: moneyToChartNumber(r.value, currency),
+        [VALUE]: moneyToChartNumber(r.revenue, currency),
         [WEIGHTED]: moneyToChartNumber(r.weighted, currency),
       }))}
       keys={[VALUE, WEIGHTED]}
@@ -70,7 +72,7 @@ function ValueBars({
         return (
           <div className="rounded bg-white px-2 py-1 text-small shadow-panel">
             <strong>{labelOf.get(String(indexValue))}</strong>, {id}:{" "}
-            {row ? formatMoney(id === VALUE ? row.value : row.weighted, currency) : ""}
+            {row ? formatMoney(id === VALUE ? row.revenue : row.weighted, currency) : ""}
           </div>
         );
       }}
@@ -80,95 +82,51 @@ function ValueBars({
   );
 }
 
-function ValueTable({
-  rows,
-  currency,
-  first,
-  caption,
-}: {
-  rows: ValueRow[];
-  currency: string;
-  first: string;
-  caption: string;
-}) {
-  return (
-    <Table caption={caption}>
-      <thead>
-        <tr>
-          <Th>{first}</Th>
-          <Th className="text-right">Quotes</Th>
-          <Th className="text-right">Value [{currency}]</Th>
-          <Th className="text-right">Weighted [{currency}]</Th>
-        </tr>
-      </thead>
-      <tbody className="divide-y divide-steel-100">
-        {rows.map((r) => (
-          <tr key={r.key}>
-            <Td>{r.label}</Td>
-            <Td className="text-right tabular-nums">{r.count}</Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoney(r.value, currency)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoney(r.weighted, currency)}
-            </Td>
-          </tr>
-        ))}
-      </tbody>
-    </Table>
-  );
-}
-
 const legend = (
   <SwatchLegend
     items={[
       { label: VALUE, color: CHART_COLORS.closedLoop },
-      { label: `${WEIGHTED} (value × the stage's chance)`, color: WEIGHTED_COLOR },
+      { label: `${WEIGHTED} (revenue × the stage's chance, open quotes)`, color: WEIGHTED_COLOR },
     ]}
   />
 );
 
-export function ValueByStageChart({ rows, currency }: { rows: ValueRow[]; currency: string }) {
+type ChartProps = { rows: ValueRow[]; currency: string; table: ReactNode; asTable?: boolean };
+
+export function ValueByStageChart({ rows, currency, table, asTable }: ChartProps) {
   return (
     <ChartPanel
-      title="Value by stage"
-      description={`The quotes' up-front cost in each stage, and the same weighted by the chance of closing from that stage. Amounts in ${currency}.`}
+      title="Revenue by stage"
+      description={`What the vendor would invoice for the quotes in each stage, and the same weighted by the chance of closing from that stage. Amounts in ${currency}.`}
       legend={legend}
-      table={
-        <ValueTable rows={rows} currency={currency} first="Stage" caption="Quote value by stage" />
-      }
+      table={table}
+      initialAsTable={asTable}
     >
       <ValueBars
         rows={rows}
         currency={currency}
         indexLegend="Stage"
-        ariaLabel="Quote value and weighted value by stage"
+        ariaLabel="Vendor revenue and weighted revenue by stage"
         crowded
       />
     </ChartPanel>
   );
 }
 
-export function ValueByMonthChart({ rows, currency }: { rows: ValueRow[]; currency: string }) {
+export function ValueByMonthChart({ rows, currency, table, asTable }: ChartProps) {
   return (
     <ChartPanel
-      title="Value by expected close month"
-      description={`When the quotes are expected to close, with their up-front cost and weighted value per month. Amounts in ${currency}.`}
+      title="Revenue by expected close month"
+      description={`When the quotes are expected to close, with the vendor's revenue and weighted revenue per month. Amounts in ${currency}.`}
       legend={legend}
-      table={
-        <ValueTable
-          rows={rows}
-          currency={currency}
-          first="Close month"
-          caption="Quote value by expected close month"
-        />
-      }
+      table={table}
+      initialAsTable={asTable}
     >
       <ValueBars
         rows={rows}
         currency={currency}
         indexLegend="Expected close month"
-        ariaLabel="Quote value and weighted value by expected close month"
+        ariaLabel="Vendor revenue and weighted revenue by expected close month"
         crowded={rows.length > 8}
       />
     </ChartPanel>

@@ -16,6 +16,7 @@ export function ChartPanel({
   controls,
   legend,
   table,
+  initialAsTable = false,
   children,
 }: {
   title: string;
@@ -24,10 +25,12 @@ export function ChartPanel({
   controls?: ReactNode;
   legend?: ReactNode;
   table: ReactNode;
+  /** Open on the table (a table sorted through the URL comes back as a table). */
+  initialAsTable?: boolean;
   /** The chart, or a function of the chart box's width for charts that thin their ticks. */
   children: ReactNode | ((size: { width: number }) => ReactNode);
 }) {
-  const [asTable, setAsTable] = useState(false);
+  const [asTable, setAsTable] = useState(initialAsTable);
   const descriptionId = useId();
   const box = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState(0);

@@ -40,17 +40,22 @@ export function SortHeader({
   sort,
   dir,
   href,
+  className,
 }: {
   label: string;
   column: string;
   sort: string;
   dir: "asc" | "desc";
   href: (column: string, dir: "asc" | "desc") => string;
+  className?: string;
 }) {
   const active = sort === column;
   const next = active && dir === "asc" ? "desc" : "asc";
   return (
-    <Th aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : "none"}>
+    <Th
+      aria-sort={active ? (dir === "asc" ? "ascending" : "descending") : "none"}
+      className={className}
+    >
       <Link
         href={href(column, next)}
         className="inline-flex items-center gap-1 hover:text-flux-700"

@@ -1,7 +1,7 @@
 import { createHash, randomBytes } from "node:crypto";
 import { and, desc, eq, gt, isNull, ne, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { accounts, invitations, users } from "@/db/schema";
+import { accounts, cases, invitations, proposals, sites, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, NotFoundError } from "@/lib/errors";
@@ -74,6 +74,10 @@ export type InvitationState =
       accountName: string | null;
       expiresAt: string;
       proposalId: number | null;
+      /** Who sent the invitation (a person at the vendor); null when that user is gone. */
+      senderName: string | null;
+      /** The proposal it leads to, only when it belongs to the invited reviewer's own account. */
+      proposal: { caseName: string; version: number; siteName: string } | null;
     }
   | { state: "invalid" | "used" | "replaced" | "revoked" }
   | { state: "expired"; expiredAt: string };
@@ -86,6 +90,7 @@ export function inspectInvitation(token: string, now = new Date()): InvitationSt
       email: users.email,
       name: users.name,
       active: users.active,
+      accountId: users.accountId,
       accountName: accounts.name,
     })
     .from(invitations)
@@ -116,7 +121,31 @@ export function inspectInvitation(token: string, now = new Date()): InvitationSt
     accountName: row.accountName,
     expiresAt: row.invitation.expiresAt,
     proposalId: row.invitation.proposalId,
+    senderName: senderName(row.invitation.createdById),
+    proposal: invitedProposal(row.invitation.proposalId, row.accountId),
   };
+}
+
+function senderName(userId: number | null): string | null {
+  if (userId === null) return null;
+  return (
+    db.select({ name: users.name }).from(users).where(eq(users.id, userId)).get()?.name ?? null
+  );
+}
+
+// The proposal named on the invitation page, read only through the invited reviewer's own
+// account: a proposal of any other account is never described to them, whatever the row says.
+function invitedProposal(proposalId: number | null, accountId: number | null) {
+  if (proposalId === null || accountId === null) return null;
+  return (
+    db
+      .select({ caseName: cases.name, version: proposals.version, siteName: sites.name })
+      .from(proposals)
+      .innerJoin(cases, eq(cases.id, proposals.caseId))
+      .innerJoin(sites, eq(sites.id, cases.siteId))
+      .where(and(eq(proposals.id, proposalId), eq(cases.accountId, accountId)))
+      .get() ?? null
+  );
 }
 
 export const INVITATION_MESSAGES = {

@@ -1,27 +1,40 @@
-import { and, asc, count, desc, eq, like, sql, type SQL } from "drizzle-orm";
-import { db } from "@/db";
-import { accounts, cases, proposals, quotes, sites } from "@/db/schema";
+import { and, eq, like, type SQL } from "drizzle-orm";
+import { cases, quotes } from "@/db/schema";
 import { assertRole, type SessionUser } from "@/lib/auth/session-user";
 import { openWeighted, stageTotals, sum, winRate, type StageTotal } from "@/lib/pipeline/figures";
 import { QUOTE_STAGES } from "@/lib/pipeline/stages";
-import { pageWindow, type ListPage } from "@/lib/lists/list-params";
-import type { PipelineFilters, PipelineListParams, PipelineSort } from "@/lib/validations/pipeline";
-import {
-  listVisibleQuotes,
-  proposalScope,
-  quoteOwner,
-  quoteQuery,
-  vendorView,
-  type VendorProposal,
-} from "./proposals";
+import type { ListPage } from "@/lib/lists/list-params";
+import { quotePage } from "@/lib/pipeline/sort-quotes";
+import type { PipelineFilters, PipelineListParams } from "@/lib/validations/pipeline";
+import { listVisibleQuotes, vendorViews, type VendorProposal } from "./proposals";
 import { getSalesSettings } from "./sales-settings";
 
 export type Pipeline = {
   stages: StageTotal[];
   quotes: VendorProposal[];
-  totals: { currency: string; count: number; value: string; weighted: string }[];
-  byMonth: { month: string; currency: string; count: number; value: string; weighted: string }[];
+  totals: GroupTotal[];
+  byMonth: (GroupTotal & { month: string })[];
 };
+
+// Per currency (and month): how many quotes, the customer's investment (`value`), the vendor's
+// revenue, and that revenue weighted over the open quotes only.
+type GroupTotal = {
+  currency: string;
+  count: number;
+  value: string;
+  revenue: string;
+  weighted: string;
+};
+
+function groupTotal(currency: string, rows: VendorProposal[]): GroupTotal {
+  return {
+    currency,
+    count: rows.length,
+    value: sum(rows.map((q) => q.value)),
+    revenue: sum(rows.map((q) => q.vendorRevenue)),
+    weighted: openWeighted(rows),
+  };
+}
 
 // Managers see every quote; an engineer sees the quotes they own (docs/product.md (Roles)).
 function pipelineScope(caller: SessionUser): SQL | undefined {
@@ -45,34 +58,26 @@ function filterWhere(filters: PipelineFilters): SQL | undefined {
 export function pipeline(caller: SessionUser, filters: PipelineFilters = {}): Pipeline {
   const probabilities = getSalesSettings().stageProbabilities;
   const rows = listVisibleQuotes(caller, and(pipelineScope(caller), filterWhere(filters)));
-  const list = rows.map((r) => vendorView(r, probabilities));
+  const list = vendorViews(rows, probabilities);
   const currencies = [...new Set(list.map((q) => q.currency))].sort();
   const months = [...new Set(list.map((q) => q.expectedCloseOn.slice(0, 7)))].sort();
   return {
     stages: stageTotals(list, QUOTE_STAGES),
     quotes: list,
-    totals: currencies.map((currency) => {
-      const inCurrency = list.filter((q) => q.currency === currency);
-      return {
+    totals: currencies.map((currency) =>
+      groupTotal(
         currency,
-        count: inCurrency.length,
-        value: sum(inCurrency.map((q) => q.value)),
-        weighted: openWeighted(inCurrency),
-      };
-    }),
+        list.filter((q) => q.currency === currency),
+      ),
+    ),
     byMonth: currencies.flatMap((currency) =>
-      months.map((month) => {
-        const inMonth = list.filter(
-          (q) => q.currency === currency && q.expectedCloseOn.startsWith(month),
-        );
-        return {
-          month,
+      months.map((month) => ({
+        month,
+        ...groupTotal(
           currency,
-          count: inMonth.length,
-          value: sum(inMonth.map((q) => q.value)),
-          weighted: openWeighted(inMonth),
-        };
-      }),
+          list.filter((q) => q.currency === currency && q.expectedCloseOn.startsWith(month)),
+        ),
+      })),
     ),
   };
 }
@@ -113,82 +118,21 @@ export function pipelineFilterOptions(caller: SessionUser) {
 
 export const PIPELINE_PAGE_SIZE = 25;
 
-// Each sort of the quote list as SQL. The value is stored as a decimal string, so it sorts as a
-// number; the weighted value is that number times the stage's chance as the administrator set it
-// (the rounding of the shown amount does not change the order). A payback that never comes sorts
-// after every other one.
-function sortOrder(
-  sort: PipelineSort,
-  probabilities: Record<string, number>,
-  direction: typeof asc,
-): SQL[] {
-  const stageRank = sql`case ${quotes.stage} ${sql.join(
-    QUOTE_STAGES.map((s, i) => sql`when ${s} then ${i}`),
-    sql` `,
-  )} end`;
-  const chance = sql`case ${quotes.stage} ${sql.join(
-    QUOTE_STAGES.map((s) => sql`when ${s} then ${probabilities[s]}`),
-    sql` `,
-  )} end`;
-  switch (sort) {
-    case "proposal":
-      return [direction(sql`${cases.name} collate nocase`), direction(sql`${proposals.version}`)];
-    case "account":
-      return [direction(sql`${accounts.name} collate nocase`)];
-    case "owner":
-      return [direction(sql`${quoteOwner.name} collate nocase`)];
-    case "stage":
-      return [direction(stageRank)];
-    case "value":
-      return [direction(sql`cast(${quotes.value} as real)`)];
-    case "weighted":
-      return [direction(sql`cast(${quotes.value} as real) * ${chance}`)];
-    case "close":
-      return [direction(sql`${quotes.expectedCloseOn}`)];
-    case "payback":
-      return [asc(sql`${quotes.paybackYears} is null`), direction(quotes.paybackYears)];
-    case "created":
-      return [direction(sql`${proposals.createdAt}`)];
-  }
-}
-
 /**
- * One page of the quote list, sorted in SQL, within the same scope and filters as pipeline()
- * (whose totals and charts stay over every filtered quote, not just this page).
+ * One page of the quote list, sorted on the server, within the same scope and filters as
+ * pipeline() (whose totals and charts stay over every filtered quote, not just this page). Pass
+ * the quotes pipeline() already returned to spare reading them twice.
  */
 export function pipelineQuotesPage(
   caller: SessionUser,
   filters: PipelineFilters,
   list: Partial<PipelineListParams> = {},
   pageSize = PIPELINE_PAGE_SIZE,
+  quotes: VendorProposal[] = pipeline(caller, filters).quotes,
 ): ListPage<VendorProposal> {
-  const probabilities = getSalesSettings().stageProbabilities;
-  const where = and(proposalScope(caller), pipelineScope(caller), filterWhere(filters));
-  const total = db
-    .select({ n: count() })
-    .from(proposals)
-    .innerJoin(quotes, eq(quotes.proposalId, proposals.id))
-    .innerJoin(cases, eq(cases.id, proposals.caseId))
-    .innerJoin(accounts, eq(accounts.id, cases.accountId))
-    .innerJoin(sites, eq(sites.id, cases.siteId))
-    .where(where)
-    .get()!.n;
-  const window = pageWindow(total, list.page ?? 1, pageSize);
-  const direction = list.dir === "asc" ? asc : desc;
-  const rows = quoteQuery()
-    .where(where)
-    .orderBy(
-      ...sortOrder(list.sort ?? "created", probabilities, direction),
-      direction(proposals.id),
-    )
-    .limit(window.limit)
-    .offset(window.offset)
-    .all();
-  return {
-    rows: rows.map((r) => vendorView(r, probabilities)),
-    total,
-    page: window.page,
-    pageCount: window.pageCount,
+  return quotePage(
+    quotes,
+    { sort: list.sort ?? "created", dir: list.dir ?? "desc", page: list.page ?? 1 },
     pageSize,
-  };
+  );
 }

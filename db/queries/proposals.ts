@@ -10,6 +10,8 @@ import type { QuoteStage } from "@/lib/pipeline/stages";
 import { accountScope } from "./accounts";
 import { getSalesSettings } from "./sales-settings";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
+import type { VendorRevenue } from "@/lib/pipeline/revenue";
+import { revenueByProposal } from "./vendor-revenue";
 
 // Frozen proposals with their sales side (the quote), as each role may see them: the vendor's
 // people by their account scope, a reviewer only the proposals sent to their own account. A
@@ -124,16 +126,25 @@ export function reviewerView(row: QuoteRow) {
   };
 }
 
-/** The proposal as the vendor's people read it: the quote with its weighted value. */
-export function vendorView(row: QuoteRow, probabilities: Record<QuoteStage, number>) {
+/**
+ * The proposal as the vendor's people read it: the quote with the vendor's revenue (what they
+ * invoice) beside `value`, the customer's investment, and the revenue weighted by the stage's chance.
+ */
+export function vendorView(
+  row: QuoteRow,
+  probabilities: Record<QuoteStage, number>,
+  revenue: VendorRevenue,
+) {
   const probabilityPct = probabilities[row.stage];
   return {
     ...reviewerView(row),
     caseId: row.caseId,
     siteId: row.siteId,
     ownerId: row.ownerId,
+    vendorRevenue: revenue.revenue,
+    revenueParts: revenue,
     probabilityPct,
-    weighted: weightedValue(row.value, probabilityPct, row.currency),
+    weighted: weightedValue(revenue.revenue, probabilityPct, row.currency),
     expectedCloseOn: row.expectedCloseOn,
     maxDiscountPct: row.maxDiscountPct,
     discountApprovedAt: row.discountApprovedAt,
@@ -145,16 +156,22 @@ export function vendorView(row: QuoteRow, probabilities: Record<QuoteStage, numb
 export type ReviewerProposal = ReturnType<typeof reviewerView>;
 export type VendorProposal = ReturnType<typeof vendorView>;
 
+/** The vendor's view of each row, with its revenue read from the frozen inputs in one go. */
+export function vendorViews(rows: QuoteRow[], probabilities: Record<QuoteStage, number>) {
+  const revenue = revenueByProposal(rows.map((r) => r.id));
+  return rows.map((row) => vendorView(row, probabilities, revenue.get(row.id)!));
+}
+
 /** Each visible proposal in the shape the caller's role may read. */
 export function viewFor(caller: SessionUser, row: QuoteRow): ReviewerProposal | VendorProposal {
   return caller.role === "reviewer"
     ? reviewerView(row)
-    : vendorView(row, getSalesSettings().stageProbabilities);
+    : vendorViews([row], getSalesSettings().stageProbabilities)[0];
 }
 
 export function listProposalsFor(caller: SessionUser) {
-  const probabilities = getSalesSettings().stageProbabilities;
-  return listVisibleQuotes(caller).map((row) =>
-    caller.role === "reviewer" ? reviewerView(row) : vendorView(row, probabilities),
-  );
+  const rows = listVisibleQuotes(caller);
+  return caller.role === "reviewer"
+    ? rows.map(reviewerView)
+    : vendorViews(rows, getSalesSettings().stageProbabilities);
 }

@@ -1,5 +1,6 @@
 import type { QuoteStage } from "./stages";
 import { STAGE_LABELS } from "./stages";
+import type { VendorRevenue } from "./revenue";
 
 /** One field quoted as RFC 4180 asks: in double quotes when it holds a comma, quote or line break. */
 export function csvField(value: string): string {
@@ -14,6 +15,8 @@ type CsvQuote = {
   ownerName: string;
   stage: QuoteStage;
   currency: string;
+  revenueParts: VendorRevenue;
+  vendorRevenue: string;
   value: string;
   probabilityPct: number;
   weighted: string;
@@ -30,17 +33,24 @@ export const PIPELINE_CSV_HEADER = [
   "Owner",
   "Stage",
   "Currency",
-  "Value",
+  "Kits at list price",
+  "Discounts",
+  "Installation",
+  "Commissioning",
+  "Vendor revenue",
+  "Customer investment",
   "Chance (%)",
-  "Weighted value",
+  "Weighted revenue",
   "Expected close",
   "Payback (years)",
   "Decided on",
 ];
 
 /**
- * The filtered quotes as CSV (RFC 4180: CRLF line ends, a header row). Money stays the stored
- * plain decimal string, so a spreadsheet sums exactly what the pipeline page sums.
+ * The filtered quotes as CSV (RFC 4180: CRLF line ends, a header row). Money stays the exact
+ * plain decimal string, so a spreadsheet sums exactly what the pipeline page sums. The vendor's
+ * revenue comes with its parts (kits at list price − discounts + installation + commissioning),
+ * so finance can rebuild it; the customer's investment is beside it (lib/pipeline/revenue.ts).
  */
 export function pipelineCsv(quotes: CsvQuote[]): string {
   const rows = quotes.map((q) => [
@@ -51,6 +61,11 @@ export function pipelineCsv(quotes: CsvQuote[]): string {
     q.ownerName,
     STAGE_LABELS[q.stage],
     q.currency,
+    q.revenueParts.kitsAtListPrice,
+    q.revenueParts.discounts,
+    q.revenueParts.installation,
+    q.revenueParts.commissioning,
+    q.vendorRevenue,
     q.value,
     String(q.probabilityPct),
     q.weighted,

@@ -3,7 +3,11 @@ import type { CaseInput, CaseResult } from "../engine";
 import { roundMoney } from "../engine/money";
 import { OPEN_STAGES, type QuoteStage } from "./stages";
 
-/** What a quote copies from its frozen proposal once: value, currency, payback, top discount. */
+/**
+ * What a quote copies from its frozen proposal once: value (the customer's investment, the
+ * engine's up-front cost), currency, payback, top discount. The vendor's revenue is read from the
+ * frozen input when shown (lib/pipeline/revenue.ts).
+ */
 export function quoteFigures(input: CaseInput, result: CaseResult) {
   return {
     value: result.totals.capex,
@@ -13,7 +17,7 @@ export function quoteFigures(input: CaseInput, result: CaseResult) {
   };
 }
 
-/** Value × the stage's probability, rounded half-even to the currency's minor unit. */
+/** An amount (the vendor's revenue) × the stage's probability, rounded half-even to the currency's minor unit. */
 export function weightedValue(value: string, probabilityPct: number, currency: string): string {
   return roundMoney(new Decimal(value).times(probabilityPct).dividedBy(100).toFixed(), currency);
 }
@@ -22,7 +26,10 @@ export type StageTotal = {
   stage: QuoteStage;
   currency: string;
   count: number;
+  /** The customer's investment. */
   value: string;
+  /** The vendor's revenue, which `weighted` weights. */
+  revenue: string;
   weighted: string;
 };
 
@@ -32,7 +39,13 @@ export type StageTotal = {
  * weighted sum is that stage's own rows; the headline weighted total uses openWeighted().
  */
 export function stageTotals(
-  quotes: { stage: QuoteStage; currency: string; value: string; weighted: string }[],
+  quotes: {
+    stage: QuoteStage;
+    currency: string;
+    value: string;
+    vendorRevenue: string;
+    weighted: string;
+  }[],
   stages: readonly QuoteStage[],
 ): StageTotal[] {
   const currencies = [...new Set(quotes.map((q) => q.currency))].sort();
@@ -44,6 +57,7 @@ export function stageTotals(
         currency,
         count: rows.length,
         value: sum(rows.map((r) => r.value)),
+        revenue: sum(rows.map((r) => r.vendorRevenue)),
         weighted: sum(rows.map((r) => r.weighted)),
       };
     }),

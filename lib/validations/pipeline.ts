@@ -3,6 +3,7 @@ import { z } from "zod";
 import { listParamsSchema } from "@/lib/lists/list-params";
 import { idSchema } from "@/lib/validations/ids";
 import { QUOTE_STAGES } from "@/lib/pipeline/stages";
+import { GROUP_SORTS, type QuoteSort } from "@/lib/pipeline/sort-quotes";
 
 const stageField = z.enum(QUOTE_STAGES, {
   error: `Choose one of the stages: ${QUOTE_STAGES.join(", ")}`,
@@ -93,21 +94,35 @@ export type DecisionInput = z.infer<typeof decisionSchema>;
 export type QuoteUpdateInput = z.infer<typeof quoteUpdateSchema>;
 export type PipelineFilters = z.infer<typeof pipelineFiltersSchema>;
 
-// The quote list under the pipeline's charts sorts and pages on the server (lib/lists).
+// The quote list under the pipeline's charts sorts and pages on the server (lib/lists); every
+// column sorts (lib/pipeline/sort-quotes.ts).
 export const PIPELINE_SORTS = [
   "created",
   "proposal",
   "account",
   "owner",
   "stage",
-  "value",
+  "revenue",
+  "investment",
+  "chance",
   "weighted",
   "close",
   "payback",
-] as const;
+] as const satisfies readonly QuoteSort[];
 export type PipelineSort = (typeof PIPELINE_SORTS)[number];
 export const pipelineListParamsSchema = listParamsSchema(PIPELINE_SORTS, {
   sort: "created",
   dir: "desc",
 });
 export type PipelineListParams = z.infer<typeof pipelineListParamsSchema>;
+
+// The sums by stage and by close month, each table sorted by its own URL parameters.
+const groupSort = z.enum(GROUP_SORTS).catch("label");
+const groupDir = z.enum(["asc", "desc"]).catch("asc");
+export const pipelineGroupSortSchema = z.object({
+  stageSort: groupSort,
+  stageDir: groupDir,
+  monthSort: groupSort,
+  monthDir: groupDir,
+});
+export type PipelineGroupSort = z.infer<typeof pipelineGroupSortSchema>;

@@ -164,8 +164,8 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
     await page.waitForURL("**/accounts");
     await page.getByRole("link", { name: "Pipeline" }).click();
     await page.waitForURL("**/pipeline");
-    await page.getByRole("heading", { name: "Value by stage" }).waitFor();
-    await page.getByRole("heading", { name: "Value by expected close month" }).waitFor();
+    await page.getByRole("heading", { name: "Revenue by stage" }).waitFor();
+    await page.getByRole("heading", { name: "Revenue by expected close month" }).waitFor();
     const row = page.getByTestId(`quote-${proposalId}`);
     await expect.poll(() => row.textContent()).toContain("Accepted");
     await screenshot(page, "pipeline-manager");

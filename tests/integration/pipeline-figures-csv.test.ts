@@ -6,44 +6,10 @@ import { PIPELINE_CSV_HEADER, csvField, pipelineCsv } from "@/lib/pipeline/csv";
 import { openWeighted, winRate } from "@/lib/pipeline/figures";
 import { OPEN_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import { caller } from "../support/callers";
+import { parseCsv } from "../support/csv";
 
 const manager = () => caller("manager@example.com");
 const engineer = () => caller("engineer@example.com");
-
-// A small RFC 4180 reader (https://www.rfc-editor.org/rfc/rfc4180, section 2), written from the
-// grammar rather than taken from the writer under test: fields split by commas, records by CRLF,
-// a quoted field may hold commas, CRLF and doubled quotes.
-function parseCsv(text: string): string[][] {
-  const records: string[][] = [];
-  let record: string[] = [];
-  let field = "";
-  let quoted = false;
-  for (let i = 0; i < text.length; i++) {
-    const c = text[i];
-    if (quoted) {
-      if (c === '"' && text[i + 1] === '"') {
-        field += '"';
-        i++;
-      } else if (c === '"') quoted = false;
-      else field += c;
-    } else if (c === '"' && field === "") quoted = true;
-    else if (c === ",") {
-      record.push(field);
-      field = "";
-    } else if (c === "\r" && text[i + 1] === "\n") {
-      record.push(field);
-      records.push(record);
-      record = [];
-      field = "";
-      i++;
-    } else field += c;
-  }
-  if (field !== "" || record.length) {
-    record.push(field);
-    records.push(record);
-  }
-  return records;
-}
 
 describe("the pipeline's figures say what they count (hand-counted fixture)", () => {
   const fixture = [
@@ -76,6 +42,8 @@ describe("the pipeline's figures say what they count (hand-counted fixture)", ()
       expect(new Decimal(t.weighted).eq(add(open.map((q) => q.weighted)))).toBe(true);
       const stages = data.stages.filter((s) => s.currency === t.currency);
       expect(new Decimal(t.value).eq(add(stages.map((s) => s.value)))).toBe(true);
+      expect(new Decimal(t.revenue).eq(add(stages.map((s) => s.revenue)))).toBe(true);
+      expect(new Decimal(t.revenue).eq(add(rows.map((q) => q.vendorRevenue)))).toBe(true);
       expect(stages.reduce((n, s) => n + s.count, 0)).toBe(rows.length);
     }
     const rate = pipelineWinRate(manager(), { from: "2000-01", to: "2100-12" });
@@ -106,14 +74,27 @@ describe("the pipeline as CSV", () => {
           expect(r[0]).toBe(q.caseName);
           expect(r[2]).toBe(q.accountName);
           expect(r[5]).toBe(STAGE_LABELS[q.stage]);
-          expect(r[7]).toMatch(/^-?\d+(\.\d+)?$/);
-          expect(new Decimal(r[7]).eq(q.value)).toBe(true);
-          expect(new Decimal(r[9]).eq(q.weighted)).toBe(true);
+          const col = (name: string) => r[PIPELINE_CSV_HEADER.indexOf(name)];
+          expect(col("Vendor revenue")).toMatch(/^-?\d+(\.\d+)?$/);
+          expect(new Decimal(col("Vendor revenue")).eq(q.vendorRevenue)).toBe(true);
+          expect(new Decimal(col("Customer investment")).eq(q.value)).toBe(true);
+          expect(new Decimal(col("Weighted revenue")).eq(q.weighted)).toBe(true);
+          // The parts in the file rebuild the revenue beside them.
+          expect(
+            new Decimal(col("Kits at list price"))
+              .minus(col("Discounts"))
+              .plus(col("Installation"))
+              .plus(col("Commissioning"))
+              .eq(col("Vendor revenue")),
+          ).toBe(true);
         });
+        const at = (name: string) => PIPELINE_CSV_HEADER.indexOf(name);
         for (const t of data.totals) {
-          const inCurrency = rows.filter((r) => r[6] === t.currency);
-          const total = inCurrency.reduce((s, r) => s.plus(r[7]), new Decimal(0));
-          expect(total.eq(t.value)).toBe(true);
+          const inCurrency = rows.filter((r) => r[at("Currency")] === t.currency);
+          const total = (name: string) =>
+            inCurrency.reduce((s, r) => s.plus(r[at(name)]), new Decimal(0));
+          expect(total("Customer investment").eq(t.value)).toBe(true);
+          expect(total("Vendor revenue").eq(t.revenue)).toBe(true);
           expect(inCurrency).toHaveLength(t.count);
         }
         if (who.role === "engineer")

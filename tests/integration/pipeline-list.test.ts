@@ -29,10 +29,16 @@ describe("the pipeline's quote list pages and sorts on the server", () => {
       }
   });
 
-  it("sorts by value and weighted value as amounts, and by stage in the stages' order", () => {
-    const rows = pipelineQuotesPage(manager(), {}, { sort: "value", dir: "desc" }, 1000).rows;
+  it("sorts by revenue, investment and weighted revenue as amounts, and by stage in the stages' order", () => {
+    const rows = pipelineQuotesPage(manager(), {}, { sort: "investment", dir: "desc" }, 1000).rows;
     for (let i = 1; i < rows.length; i++)
       expect(new Decimal(rows[i - 1].value).gte(rows[i].value)).toBe(true);
+    const revenue = pipelineQuotesPage(manager(), {}, { sort: "revenue", dir: "asc" }, 1000).rows;
+    for (let i = 1; i < revenue.length; i++)
+      expect(new Decimal(revenue[i - 1].vendorRevenue).lte(revenue[i].vendorRevenue)).toBe(true);
+    const chance = pipelineQuotesPage(manager(), {}, { sort: "chance", dir: "desc" }, 1000).rows;
+    for (let i = 1; i < chance.length; i++)
+      expect(chance[i - 1].probabilityPct).toBeGreaterThanOrEqual(chance[i].probabilityPct);
     const weighted = pipelineQuotesPage(manager(), {}, { sort: "weighted", dir: "asc" }, 1000).rows;
     for (let i = 1; i < weighted.length; i++)
       expect(new Decimal(weighted[i - 1].weighted).lte(weighted[i].weighted)).toBe(true);

@@ -90,8 +90,8 @@ describe("the pipeline (seeded demo quotes)", () => {
     expect(data.quotes.length).toBeGreaterThanOrEqual(5);
     expect(new Set(data.quotes.map((q) => q.stage)).size).toBeGreaterThanOrEqual(5);
     for (const q of data.quotes) {
-      // Weighted value: capex × the stage's probability, to the cent (half-even, docs/contracts.md (Numbers and money)).
-      const expected = new Decimal(q.value).times(stageProbabilities[q.stage]).div(100);
+      // Weighted revenue: the vendor's revenue × the stage's probability, to the cent (half-even, docs/contracts.md (Numbers and money)).
+      const expected = new Decimal(q.vendorRevenue).times(stageProbabilities[q.stage]).div(100);
       expect(q.weighted).toBe(roundMoney(expected.toFixed(), q.currency));
     }
     const add = (xs: string[]) => xs.reduce((s, x) => s.plus(x), new Decimal(0));

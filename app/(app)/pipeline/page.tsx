@@ -3,11 +3,12 @@ import Link from "next/link";
 import { ApproveDiscountButton } from "@/components/proposals/quote-manager-form";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
 import { ValueByMonthChart, ValueByStageChart } from "@/components/pipeline/pipeline-charts";
+import { ValueTable } from "@/components/pipeline/value-table";
 import { buttonClass } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Pager } from "@/components/ui/pager";
-import { SortHeader, Table, Td, Th } from "@/components/ui/table";
+import { SortHeader, Table, Td } from "@/components/ui/table";
 import {
   pipeline,
   pipelineFilterOptions,
@@ -21,10 +22,15 @@ import { flatParams, listHref } from "@/lib/lists/list-params";
 import { sum } from "@/lib/pipeline/figures";
 import { OPEN_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import { formatMoney, formatPayback, formatPct } from "@/lib/results/format";
-import { pipelineFiltersSchema, pipelineListParamsSchema } from "@/lib/validations/pipeline";
+import {
+  pipelineFiltersSchema,
+  pipelineGroupSortSchema,
+  pipelineListParamsSchema,
+} from "@/lib/validations/pipeline";
+import { sortGroups } from "@/lib/pipeline/sort-quotes";
 import { QuoteStageOptions } from "@/components/proposals/quote-stage-options";
 import { needsDiscountApproval } from "@/lib/pipeline/discount";
-import { FINANCE_TERMS } from "@/lib/glossary";
+import { CUSTOMER_INVESTMENT_NOTE, FINANCE_TERMS, VENDOR_REVENUE_BREAKDOWN } from "@/lib/glossary";
 
 export const metadata: Metadata = { title: "Pipeline" };
 
@@ -57,16 +63,17 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
   const current = flatParams(await searchParams);
   const filters = pipelineFiltersSchema.parse(current);
   const listParams = pipelineListParamsSchema.parse(current);
+  const groupSort = pipelineGroupSortSchema.parse(current);
   const thisMonth = new Date().toISOString().slice(0, 7);
   const period = { to: filters.to ?? thisMonth, from: filters.from ?? monthsBefore(thisMonth, 11) };
   if (period.from > period.to) [period.from, period.to] = [period.to, period.from];
 
   // The charts and totals cover every quote the filters let through; the table shows one page.
   const data = pipeline(user, filters);
-  const quotePage = pipelineQuotesPage(user, filters, listParams);
+  const quotePage = pipelineQuotesPage(user, filters, listParams, undefined, data.quotes);
   const sortHref = (column: string, dir: "asc" | "desc") =>
     listHref("/pipeline", current, { sort: column, dir });
-  const sortable = (label: string, column: string) => (
+  const sortable = (label: string, column: string, right = false) => (
     <SortHeader
       key={column}
       label={label}
@@ -74,6 +81,7 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
       sort={listParams.sort}
       dir={listParams.dir}
       href={sortHref}
+      className={right ? "text-right" : undefined}
     />
   );
   const options = pipelineFilterOptions(user);
@@ -187,6 +195,40 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
           const monthRows = data.byMonth
             .filter((m) => m.currency === t.currency && m.count > 0)
             .map((m) => ({ key: m.month, label: monthLabel(m.month), ...m }));
+          const stageTable = (
+            <ValueTable
+              rows={sortGroups(stageRows, groupSort.stageSort, groupSort.stageDir)}
+              currency={t.currency}
+              first="Stage"
+              caption="Revenue by stage"
+              sort={groupSort.stageSort}
+              dir={groupSort.stageDir}
+              href={(column, dir) =>
+                listHref("/pipeline", current, {
+                  stageSort: column,
+                  stageDir: dir,
+                  page: current.page,
+                })
+              }
+            />
+          );
+          const monthTable = (
+            <ValueTable
+              rows={sortGroups(monthRows, groupSort.monthSort, groupSort.monthDir)}
+              currency={t.currency}
+              first="Close month"
+              caption="Revenue by expected close month"
+              sort={groupSort.monthSort}
+              dir={groupSort.monthDir}
+              href={(column, dir) =>
+                listHref("/pipeline", current, {
+                  monthSort: column,
+                  monthDir: dir,
+                  page: current.page,
+                })
+              }
+            />
+          );
           return (
             <section key={t.currency} aria-label={`Totals in ${t.currency}`} className="space-y-6">
               <div className="grid gap-4 sm:grid-cols-2 xl:grid-cols-4">
@@ -196,21 +238,32 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                   note={`${open.length} still open`}
                 />
                 <Card
-                  label={FINANCE_TERMS.totalPipelineValue}
-                  value={formatMoney(t.value, t.currency)}
-                  note={`Open: ${formatMoney(sum(open.map((q) => q.value)), t.currency)}`}
+                  label={FINANCE_TERMS.vendorRevenue}
+                  value={formatMoney(t.revenue, t.currency)}
+                  note={`Open: ${formatMoney(sum(open.map((q) => q.vendorRevenue)), t.currency)}. The customers invest ${formatMoney(t.value, t.currency)} in all`}
+                  testId="revenue-total"
                 />
                 <Card
-                  label="Weighted value"
+                  label={FINANCE_TERMS.weightedRevenue}
                   value={formatMoney(t.weighted, t.currency)}
-                  note={`${open.length} open quotes only, each value × the chance of its stage`}
+                  note={`${open.length} open quotes only, each one's revenue × the chance of its stage`}
                   testId="weighted-total"
                 />
                 <WinRateCard rate={rate} period={period} />
               </div>
-              <div className="grid gap-6 xl:grid-cols-2">
-                <ValueByStageChart rows={stageRows} currency={t.currency} />
-                <ValueByMonthChart rows={monthRows} currency={t.currency} />
+              <div className="grid grid-cols-[minmax(0,1fr)] gap-6 xl:grid-cols-2">
+                <ValueByStageChart
+                  rows={stageRows}
+                  currency={t.currency}
+                  table={stageTable}
+                  asTable={Boolean(current.stageSort)}
+                />
+                <ValueByMonthChart
+                  rows={monthRows}
+                  currency={t.currency}
+                  table={monthTable}
+                  asTable={Boolean(current.monthSort)}
+                />
               </div>
             </section>
           );
@@ -248,9 +301,10 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                 {sortable("Account", "account")}
                 {sortable("Owner", "owner")}
                 {sortable("Stage", "stage")}
-                {sortable("Value", "value")}
-                <Th className="text-right">Chance</Th>
-                {sortable("Weighted", "weighted")}
+                {sortable(FINANCE_TERMS.vendorRevenue, "revenue", true)}
+                {sortable(FINANCE_TERMS.customerInvestment, "investment", true)}
+                {sortable("Chance", "chance", true)}
+                {sortable(FINANCE_TERMS.weightedRevenue, "weighted", true)}
                 {sortable("Expected close", "close")}
                 {sortable("Payback", "payback")}
               </tr>
@@ -267,6 +321,9 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                   <Td>{q.ownerName}</Td>
                   <Td>
                     <QuoteStageBadge stage={q.stage} />
+                  </Td>
+                  <Td className="whitespace-nowrap text-right tabular-nums">
+                    {formatMoney(q.vendorRevenue, q.currency)}
                   </Td>
                   <Td className="whitespace-nowrap text-right tabular-nums">
                     {formatMoney(q.value, q.currency)}
@@ -288,6 +345,9 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                   <Td colSpan={4}>
                     Total of the filtered quotes ({t.count}); the weighted total counts open quotes
                     only
+                  </Td>
+                  <Td className="whitespace-nowrap text-right tabular-nums">
+                    {formatMoney(t.revenue, t.currency)}
                   </Td>
                   <Td className="whitespace-nowrap text-right tabular-nums">
                     {formatMoney(t.value, t.currency)}
@@ -317,6 +377,32 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
             noun={["quote", "quotes"]}
             href={(page) => listHref("/pipeline", current, { page })}
           />
+          <dl
+            className="mt-4 space-y-2 text-small text-steel-800"
+            aria-label="What the amounts count"
+          >
+            <div>
+              <dt className="inline font-bold">{FINANCE_TERMS.vendorRevenue}: </dt>
+              <dd className="inline">
+                what the vendor invoices for the quote: {VENDOR_REVENUE_BREAKDOWN}. The totals and
+                the weighted revenue add this up.
+              </dd>
+            </div>
+            <div>
+              <dt className="inline font-bold">{FINANCE_TERMS.customerInvestment}: </dt>
+              <dd className="inline">
+                the up-front cost the customer&apos;s business case is built on:{" "}
+                {CUSTOMER_INVESTMENT_NOTE}.
+              </dd>
+            </div>
+            <div>
+              <dt className="inline font-bold">{FINANCE_TERMS.weightedRevenue}: </dt>
+              <dd className="inline">
+                the revenue of each open quote (ready, sent or changes asked) times the chance of
+                closing from its stage; a won, declined or replaced quote adds nothing.
+              </dd>
+            </div>
+          </dl>
           <p className="mt-3 text-caption text-steel-600">
             Chance of closing per stage as the administrator set it
             {settings.isDefault

@@ -13,9 +13,9 @@ describe("weighted pipeline figures", () => {
   it("sums per stage and currency without adding currencies together", () => {
     const totals = stageTotals(
       [
-        { stage: "sent", currency: "EUR", value: "0.1", weighted: "0.04" },
-        { stage: "sent", currency: "EUR", value: "0.2", weighted: "0.08" },
-        { stage: "sent", currency: "USD", value: "5", weighted: "2" },
+        { stage: "sent", currency: "EUR", value: "0.1", vendorRevenue: "0.1", weighted: "0.04" },
+        { stage: "sent", currency: "EUR", value: "0.25", vendorRevenue: "0.2", weighted: "0.08" },
+        { stage: "sent", currency: "USD", value: "5", vendorRevenue: "5", weighted: "2" },
       ],
       QUOTE_STAGES,
     );
@@ -25,7 +25,8 @@ describe("weighted pipeline figures", () => {
       stage: "sent",
       currency: "EUR",
       count: 2,
-      value: "0.3",
+      value: "0.35",
+      revenue: "0.3",
       weighted: "0.12",
     });
     expect(totals.filter((t) => t.currency === "USD" && t.count > 0)).toHaveLength(1);

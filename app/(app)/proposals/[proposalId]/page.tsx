@@ -23,6 +23,7 @@ import { formatMoney, formatPayback } from "@/lib/results/format";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { discountAboveThreshold, needsDiscountApproval } from "@/lib/pipeline/discount";
 import { FINANCE_TERMS } from "@/lib/glossary";
+import { vendorRevenue } from "@/lib/pipeline/revenue";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -35,7 +36,7 @@ export default async function ProposalPage({
   const id = idParam((await params).proposalId);
   const { quote: row, input: rawInput, result } = getProposalSnapshotOrThrow(user, id);
   const settings = getSalesSettings();
-  const quote = vendorView(row, settings.stageProbabilities);
+  const quote = vendorView(row, settings.stageProbabilities, vendorRevenue(rawInput));
   const input = parseCaseInput(rawInput);
   const comments = listComments(user, id);
   const blocker = sendBlocker(row, settings.discountThresholdPct);
@@ -71,11 +72,15 @@ export default async function ProposalPage({
             <Fact term="Stage" value={<QuoteStageBadge stage={quote.stage} />} />
             <Fact term="Owner" value={quote.ownerName} />
             <Fact
-              term={FINANCE_TERMS.pipelineValue}
+              term={FINANCE_TERMS.vendorRevenue}
+              value={formatMoney(quote.vendorRevenue, quote.currency)}
+            />
+            <Fact
+              term={FINANCE_TERMS.customerInvestment}
               value={formatMoney(quote.value, quote.currency)}
             />
             <Fact
-              term="Weighted value"
+              term={FINANCE_TERMS.weightedRevenue}
               value={`${formatMoney(quote.weighted, quote.currency)} (${quote.probabilityPct} % for this stage)`}
             />
             <Fact term={FINANCE_TERMS.estimatedPayback} value={formatPayback(quote.paybackYears)} />

@@ -4,6 +4,7 @@ import { SetPasswordForm } from "@/components/auth/set-password-form";
 import { Wordmark } from "@/components/shell/brand-mark";
 import { buttonClass } from "@/components/ui/button";
 import { INVITATION_MESSAGES, inspectInvitation } from "@/db/queries/invitations";
+import { vendorCompanyName } from "@/lib/vendor-name";
 
 export const metadata: Metadata = { title: "Choose your password" };
 // The state of a link changes when it is used: never serve a cached page.
@@ -17,6 +18,13 @@ const TITLES = {
   expired: "This link has expired",
 } as const;
 
+// "Dana Novak of Example Retrofits", as much of it as is known.
+function invitedBy(sender: string | null, company: string | null): string {
+  if (sender && company) return `${sender} of ${company}`;
+  if (sender) return `${sender}, of the supplier preparing your retrofit,`;
+  return company ?? "Your retrofit supplier";
+}
+
 export default async function InvitationPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const invitation = inspectInvitation(token);
@@ -27,18 +35,49 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
       </div>
       {invitation.state === "open" ? (
         <>
-          <div>
-            <h1 className="text-headline">Welcome, {invitation.name}</h1>
-            <p className="mt-1 text-steel-700">
-              Choose a password for your reviewer account
-              {invitation.accountName ? ` at ${invitation.accountName}` : ""}. This link works once
-              and until {invitation.expiresAt.slice(0, 10)} (UTC).
+          <div className="space-y-3 text-steel-800">
+            <h1 className="text-headline text-steel-900">Welcome, {invitation.name}</h1>
+            <p data-testid="invitation-from">
+              {invitedBy(invitation.senderName, vendorCompanyName())} has invited you to review{" "}
+              {invitation.proposal ? (
+                <>
+                  the retrofit proposal{" "}
+                  <strong>
+                    {invitation.proposal.caseName}, version {invitation.proposal.version}
+                  </strong>{" "}
+                  for {invitation.proposal.siteName},
+                </>
+              ) : (
+                "retrofit proposals"
+              )}
+              {invitation.accountName ? (
+                <>
+                  {" "}
+                  as the finance reviewer of <strong>{invitation.accountName}</strong>
+                </>
+              ) : null}
+              .
             </p>
-            <p className="mt-3 text-steel-700">
-              As the finance reviewer you can read the proposals sent to your company, download
-              their workbooks, try your own figures in a sandbox, and accept, decline or ask for
-              changes. The figures of a proposal are frozen as sent: trying other figures never
-              changes them.
+            <h2 className="pt-1 text-lead font-bold text-steel-900">What you can do</h2>
+            <ul className="list-disc space-y-1 pl-5">
+              <li>
+                Read the proposal exactly as it was sent: its figures are frozen, so what you read
+                is what was offered. The workbook downloads with every formula.
+              </li>
+              <li>
+                Try your own figures (tariff, running hours, step-loss events, discount rate,
+                horizon, tax) in a sandbox. Nothing you try there is saved or changes the proposal.
+              </li>
+              <li>
+                Approve it, ask for changes with a comment, or decline. The sender is told by
+                e-mail.
+              </li>
+            </ul>
+            <p>
+              You will see only the proposals sent to
+              {invitation.accountName ? ` ${invitation.accountName}` : " your company"}. First
+              choose a password for <strong>{invitation.email}</strong>: this link works once and
+              until {invitation.expiresAt.slice(0, 10)} (UTC).
             </p>
           </div>
           <SetPasswordForm token={token} email={invitation.email} />
