@@ -115,7 +115,7 @@ describe("business cases over HTTP", () => {
     const wrong = await request(engineer, `/api/v1/cases/${mine.id}/result?include=everything`);
     expect(wrong.status).toBe(422);
     expect(JSON.stringify(await wrong.json())).toContain(
-      "include: the only accepted value is input",
+      "include: the accepted values are input and value-by-machine",
     );
   });
 
