@@ -41,7 +41,7 @@ export interface MachineValueTable {
 }
 
 export const CASE_WIDE_LABEL = "Case-wide";
-export const FLEET_TOTAL_LABEL = "Total (the case)";
+export const FLEET_TOTAL_LABEL = "Case total";
 
 function rowOf(
   key: string,
