@@ -33,8 +33,11 @@ import {
   MAX_HORIZON_YEARS,
   scenarioName,
   yearRow,
+  type AxesRanges,
+  type MachineRanges,
   type ScenarioKey,
 } from "./layout";
+import { writeMachineValue } from "./summary-machines";
 import { safeText } from "./safe-text";
 import type { WorkbookMeta } from "./types";
 
@@ -60,11 +63,13 @@ export function writeSummarySheet(
   input: ParsedCase,
   result: CaseResult,
   meta: WorkbookMeta,
+  ranges: { axes: AxesRanges; machines: MachineRanges },
 ): void {
   const currency = currencyFormat(input.currency);
   sheet.getColumn(1).width = 46;
   for (const c of [2, 3, 4]) sheet.getColumn(c).width = 22;
   sheet.getColumn(5).width = 16;
+  for (const c of [6, 7, 8, 9]) sheet.getColumn(c).width = 20;
 
   const title = sheet.getCell("A1");
   title.value = safeText(meta.title);
@@ -211,6 +216,15 @@ export function writeSummarySheet(
   sheet.getCell(bandTop + 8, 1).value =
     "Savings and payback are estimates from the stated assumptions (Assumptions sheet); read the Cautions sheet.";
   writeValueBySource(sheet, input, result, currency, bandTop + 10);
+  // Below the case's value by source: the same split by machine (lib/workbook/summary-machines.ts).
+  writeMachineValue(
+    sheet,
+    input,
+    result,
+    ranges,
+    currency,
+    bandTop + 12 + VALUE_SOURCES.length + 2,
+  );
 }
 
 /** First row of the Summary's value-by-source block (its header); the sources follow in VALUE_SOURCES order, then the total. */
