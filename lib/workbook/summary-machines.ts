@@ -99,8 +99,10 @@ function writeBlock(
     cell.numFmt = currency;
     return cell;
   };
+  // By key: a fleet can have many machines, each looked up for every column.
+  const rowsByKey = new Map(table?.rows.map((x) => [x.key, x]) ?? []);
   const cached = (key: string, source: ValueSource | "all") => {
-    const found = table?.rows.find((x) => x.key === key);
+    const found = rowsByKey.get(key);
     if (!found) return undefined;
     return (source === "all" ? found.all[measure] : found.values[measure][source]).toNumber();
   };
