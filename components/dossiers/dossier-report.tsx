@@ -6,12 +6,14 @@ import {
 } from "@/components/dossiers/dossier-tables";
 import { DrawsHistogram } from "@/components/dossiers/draws-histogram";
 import { MonthlyCashChart } from "@/components/dossiers/monthly-cash-chart";
+import { ValueBySourcePanel } from "@/components/dossiers/value-by-source-panel";
 import { BreakEvenPanel } from "@/components/results/break-even-panel";
 import { CautionsPanel } from "@/components/results/cautions-panel";
 import { HeadlineCards } from "@/components/results/headline-cards";
 import { MotionTable } from "@/components/results/motion-table";
 import { TornadoChart } from "@/components/results/tornado-chart";
 import { TorqueSpeedChart } from "@/components/results/torque-speed-chart";
+import { ValueByMachineTable } from "@/components/results/value-by-machine-table";
 import { ValueBySourceTable } from "@/components/results/value-by-source-table";
 import { WarningsPanel } from "@/components/results/warnings-panel";
 import { WindingTemperatureChart } from "@/components/results/winding-temperature-chart";
@@ -22,6 +24,7 @@ import { npvHistogram } from "@/lib/results/dossier";
 /** What a dossier holds beyond the proposal, for the locked views. */
 export const DOSSIER_CONTENTS = [
   "Everything in the proposal workbook, recomputed from the frozen input",
+  "Value by source over the horizon for each scenario, plain and discounted, and by machine",
   "Cash flow month by month over the horizon",
   "Payback over tariff × running hours",
   "Sensitivity of NPV and payback at ±10, ±20 and ±30 %",
@@ -70,7 +73,9 @@ export function DossierReport({ dossier, input }: { dossier: Dossier; input: Par
         <WindingTemperatureChart result={result} input={input} />
         <CautionsPanel result={result} input={input} />
       </div>
+      <ValueBySourcePanel result={result} input={input} />
       <ValueBySourceTable result={result} />
+      <ValueByMachineTable result={result} input={input} />
       <MotionTable result={result} input={input} />
       <WarningsPanel result={result} input={input} />
       <AxisStatesPanel dossier={dossier} />

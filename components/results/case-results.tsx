@@ -23,6 +23,7 @@ import { MotionTable } from "./motion-table";
 import { TornadoChart } from "./tornado-chart";
 import { TorqueSpeedChart } from "./torque-speed-chart";
 import { ValueBySourceChart } from "./value-by-source-chart";
+import { ValueByMachineTable } from "./value-by-machine-table";
 import { ValueBySourceTable } from "./value-by-source-table";
 import { WarningsPanel } from "./warnings-panel";
 import { WindingTemperatureChart } from "./winding-temperature-chart";
@@ -115,6 +116,7 @@ export function CaseResultsView({
       </div>
 
       <ValueBySourceTable result={result} />
+      <ValueByMachineTable result={result} input={input} />
       <MotionTable result={result} input={input} />
       <WarningsPanel result={result} input={input} />
       <AxisResultsTable result={result} input={input} />

@@ -57,3 +57,10 @@ export {
 export { breakEven, resultOf, sensitivityOf } from "./evaluate";
 export { VALUE_SOURCES } from "./types";
 export { SENSITIVITY_DRIVERS } from "./sensitivity";
+export {
+  valueByMachine,
+  type MachineValue,
+  type ScenarioValueSplit,
+  type SourceYears,
+  type ValueByMachine,
+} from "./machine-value";

@@ -15,7 +15,10 @@ export interface SourceTotal {
  * parts add up to the net present value plus the up-front cost, since the engine builds each
  * year's flow as the sum of its sources (lib/engine/scenarios.ts).
  */
-export function sourceTotals(scenario: Scenario, discountRatePct: number): SourceTotal[] {
+export function sourceTotals(
+  scenario: Pick<Scenario, "bySource">,
+  discountRatePct: number,
+): SourceTotal[] {
   const growth = new Money(discountRatePct).div(100).plus(1);
   return VALUE_SOURCES.map((source) => {
     let sum: Decimal = new Money(0);

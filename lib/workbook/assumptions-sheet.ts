@@ -357,6 +357,7 @@ function writeMachines(
 
   let first = 0;
   let last = 0;
+  const rowOf = new Map<string, number>();
   for (const machine of input.machines) {
     const counted = results.get(machine.id);
     const hours = mostHours.get(machine.id) ?? 0;
@@ -384,9 +385,11 @@ function writeMachines(
     styleInput(row.getCell(5));
     if (first === 0) first = r;
     last = r;
+    rowOf.set(machine.id, r);
   }
-  if (first === 0) return { downtimeHours: null, throughput: null };
+  if (first === 0) return { downtimeHours: null, throughput: null, rowOf };
   return {
+    rowOf,
     downtimeHours: absoluteRange(SHEET.assumptions, "C", first, last),
     throughput: absoluteRange(SHEET.assumptions, "H", first, last),
   };

@@ -68,6 +68,7 @@ export function writeAxesSheet(
   const range = (key: string) =>
     absoluteRange(SHEET.axes, axisColumnLetter(key), AXES_FIRST_ROW, last);
   return {
+    machineId: range("machine"),
     capexTotal: range("capexTotal"),
     energySavedTotal: range("savedTotal"),
     coolingSavedTotal: range("coolingTotal"),

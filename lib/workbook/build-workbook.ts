@@ -92,6 +92,6 @@ export function writeProposalSheets(
   const machineRanges = writeAssumptionsSheet(workbook, assumptions, input, result);
   const axesRanges = writeAxesSheet(axes, input, result);
   writeCashFlowSheet(workbook, cashFlow, input, result, axesRanges, machineRanges);
-  writeSummarySheet(summary, input, result, meta);
+  writeSummarySheet(summary, input, result, meta, { axes: axesRanges, machines: machineRanges });
   writeCautionsSheet(cautions, input, result);
 }

@@ -202,6 +202,8 @@ export function defineName(
 
 /** What the Axes sheet reports for the formulas of the Cash flow sheet. */
 export interface AxesRanges {
+  /** The machine id of each axis, to add up a machine's axes. */
+  machineId: string;
   capexTotal: string;
   energySavedTotal: string;
   coolingSavedTotal: string;
@@ -215,4 +217,6 @@ export interface AxesRanges {
 export interface MachineRanges {
   downtimeHours: string | null;
   throughput: string | null;
+  /** Row of each machine (by id) in the Assumptions sheet's machine table. */
+  rowOf: ReadonlyMap<string, number>;
 }

@@ -15,10 +15,12 @@ import {
   paybackValue,
   roiValue,
   sourceValues,
+  yearFactors,
 } from "./cash-flow-values";
 import { coolingOpenLoop } from "./cash-flow-sheet";
 import { FORMATS, currencyFormat, styleHeader, styleTitle, tariffFormat } from "./formats";
 import {
+  CASH_FLOW,
   NAME,
   SCENARIOS,
   SCENARIO_TITLE,
@@ -31,8 +33,11 @@ import {
   MAX_HORIZON_YEARS,
   scenarioName,
   yearRow,
+  type AxesRanges,
+  type MachineRanges,
   type ScenarioKey,
 } from "./layout";
+import { writeMachineValue } from "./summary-machines";
 import { safeText } from "./safe-text";
 import type { WorkbookMeta } from "./types";
 
@@ -58,11 +63,13 @@ export function writeSummarySheet(
   input: ParsedCase,
   result: CaseResult,
   meta: WorkbookMeta,
+  ranges: { axes: AxesRanges; machines: MachineRanges },
 ): void {
   const currency = currencyFormat(input.currency);
   sheet.getColumn(1).width = 46;
   for (const c of [2, 3, 4]) sheet.getColumn(c).width = 22;
   sheet.getColumn(5).width = 16;
+  for (const c of [6, 7, 8, 9]) sheet.getColumn(c).width = 20;
 
   const title = sheet.getCell("A1");
   title.value = safeText(meta.title);
@@ -209,6 +216,15 @@ export function writeSummarySheet(
   sheet.getCell(bandTop + 8, 1).value =
     "Savings and payback are estimates from the stated assumptions (Assumptions sheet); read the Cautions sheet.";
   writeValueBySource(sheet, input, result, currency, bandTop + 10);
+  // Below the case's value by source: the same split by machine (lib/workbook/summary-machines.ts).
+  writeMachineValue(
+    sheet,
+    input,
+    result,
+    ranges,
+    currency,
+    bandTop + 12 + VALUE_SOURCES.length + 2,
+  );
 }
 
 /** First row of the Summary's value-by-source block (its header); the sources follow in VALUE_SOURCES order, then the total. */
@@ -235,8 +251,19 @@ function writeValueBySource(
 ): void {
   const header = sheet.getRow(top);
   header.getCell(1).value = SOURCES_HEADER;
-  SCENARIOS.forEach((s, j) => (header.getCell(2 + j).value = SCENARIO_TITLE[s]));
+  SCENARIOS.forEach((s, j) => {
+    header.getCell(2 + j).value = SCENARIO_TITLE[s];
+    header.getCell(DISCOUNTED_COLUMN + j).value = `${SCENARIO_TITLE[s]}, discounted`;
+  });
   styleHeader(header);
+  const cashFlowYears = (r: number) =>
+    `${sheetRef(SHEET.cashFlow)}!$${sourceYearColumn(1)}$${r}:$${sourceYearColumn(MAX_HORIZON_YEARS)}$${r}`;
+  // Each year divided by (1 + rate)^t, as the engine's NPV does (lib/engine/finance.ts): the
+  // Cash flow sheet's discount-factor row reads the case's rate (defined name DiscountRate_Pct).
+  const discountYears = cashFlowYears(CASH_FLOW.sources.discountRow);
+  const factors = yearFactors(input, Number(result.totals.capex)).discount;
+  const discountedOf = (values: readonly (string | number)[]) =>
+    values.reduce<number>((acc, v, t) => acc + Number(v) * (factors[t] ?? 0), 0);
   const sumOf = (values: readonly (string | number)[]) =>
     values.reduce<number>((acc, v) => acc + Number(v), 0);
   // Worked from the stored flows when a result predates value by source (lib/workbook/cash-flow-values.ts).
@@ -248,10 +275,16 @@ function writeValueBySource(
       const r = sourceRow(s, source);
       const cell = sheet.getCell(row, 2 + j);
       cell.value = {
-        formula: `SUM(${sheetRef(SHEET.cashFlow)}!$${sourceYearColumn(1)}$${r}:$${sourceYearColumn(MAX_HORIZON_YEARS)}$${r})`,
+        formula: `SUM(${cashFlowYears(r)})`,
         result: sumOf(values[s][source]),
       };
       cell.numFmt = currency;
+      const discounted = sheet.getCell(row, DISCOUNTED_COLUMN + j);
+      discounted.value = {
+        formula: `SUMPRODUCT(${cashFlowYears(r)},${discountYears})`,
+        result: discountedOf(values[s][source]),
+      };
+      discounted.numFmt = currency;
     });
   });
   const totalRow = top + 1 + VALUE_SOURCES.length;
@@ -265,8 +298,32 @@ function writeValueBySource(
     };
     cell.numFmt = currency;
     cell.font = { bold: true };
+    const discountedColumn = sheet
+      .getCell(totalRow, DISCOUNTED_COLUMN + j)
+      .address.replace(/\d+$/, "");
+    const discounted = sheet.getCell(totalRow, DISCOUNTED_COLUMN + j);
+    const flows = result.scenarios[s].cashFlows;
+    discounted.value = {
+      formula: `SUM(${discountedColumn}${top + 1}:${discountedColumn}${totalRow - 1})`,
+      result: discountedOf(flows.slice(1)),
+    };
+    discounted.numFmt = currency;
+    discounted.font = { bold: true };
+    // The discounted total less the up-front cost is the scenario's NPV, which finance can tie
+    // to the headline above.
+    const npv = sheet.getCell(totalRow + 1, DISCOUNTED_COLUMN + j);
+    npv.value = {
+      formula: `${discountedColumn}${totalRow}-${NAME.capex}`,
+      result: discountedOf(flows.slice(1)) + Number(flows[0]),
+    };
+    npv.numFmt = currency;
   });
+  sheet.getCell(totalRow + 1, 1).value =
+    "Discounted total less the up-front cost: the net present value";
 }
+
+/** First column of the discounted value by source (one per scenario), beside the plain sums. */
+export const DISCOUNTED_COLUMN = 2 + SCENARIOS.length;
 
 /** Where the physics lands against the band claimed in the trade (docs/model.md (Energy and cooling), inclusive ends). */
 function writeBandPosition(

@@ -5,7 +5,13 @@ import {
   getCaseOrThrow,
   type CaseRow,
 } from "@/db/queries/cases";
-import { caseInputSchema, evaluateParsedCase, type CaseInput, type CaseResult } from "@/lib/engine";
+import {
+  caseInputSchema,
+  evaluateParsedCase,
+  valueByMachine,
+  type CaseInput,
+  type CaseResult,
+} from "@/lib/engine";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { ConflictError, StoredInputError } from "@/lib/errors";
 import { storedInputMessage, storedInputProblems } from "@/lib/results/stored-input-problems";
@@ -70,4 +76,27 @@ export function caseInputAndResultJson(caller: SessionUser, caseId: number): str
   const entry = evaluateCached(getCaseOrThrow(caller, caseId));
   entry.json ??= JSON.stringify(entry.result);
   return `{"input":${JSON.stringify(entry.input)},"result":${entry.json}}`;
+}
+
+/**
+ * The result with its value by source split by machine (lib/engine/machine-value.ts), each
+ * machine named, `{"result":…,"valueByMachine":{"physics":{"machines":[…],"caseWide":…},…}}`:
+ * what a finance reviewer needs to reconcile the value machine by machine.
+ */
+export function caseResultWithValueByMachineJson(caller: SessionUser, caseId: number): string {
+  const entry = evaluateCached(getCaseOrThrow(caller, caseId));
+  entry.json ??= JSON.stringify(entry.result);
+  const input = caseInputSchema.parse(entry.input);
+  const names = new Map(input.machines.map((m) => [m.id, m.name]));
+  const split = valueByMachine(entry.result, input);
+  const named = Object.fromEntries(
+    Object.entries(split).map(([key, part]) => [
+      key,
+      {
+        machines: part.machines.map((m) => ({ ...m, name: names.get(m.machineId) ?? m.machineId })),
+        caseWide: part.caseWide,
+      },
+    ]),
+  );
+  return `{"result":${entry.json},"valueByMachine":${JSON.stringify(named)}}`;
 }

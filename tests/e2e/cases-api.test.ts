@@ -112,10 +112,37 @@ describe("business cases over HTTP", () => {
     expect(both.input).toEqual(raw.input);
     expect(caseInputSchema.parse(both.input)).toEqual(found.input);
     expect(caseResultSchema.parse(both.result)).toEqual(result);
+    // Value by source split by machine: each scenario's machines and case-wide part add up to
+    // the scenario's value by source (to the cent), machines named as in the input.
+    const split = (await (
+      await request(engineer, `/api/v1/cases/${mine.id}/result?include=value-by-machine`)
+    ).json()) as {
+      result: typeof result;
+      valueByMachine: Record<
+        string,
+        {
+          machines: { name: string; bySource: Record<string, string[]> }[];
+          caseWide: Record<string, string[]>;
+        }
+      >;
+    };
+    expect(caseResultSchema.parse(split.result)).toEqual(result);
+    for (const [key, scenario] of Object.entries(result.scenarios)) {
+      const part = split.valueByMachine[key];
+      expect(part.machines.map((m) => m.name)).toEqual(found.input.machines.map((m) => m.name));
+      for (const [source, years] of Object.entries(scenario.bySource))
+        years.forEach((year, t) => {
+          const added = part.machines.reduce(
+            (acc, m) => acc + Number(m.bySource[source][t]),
+            Number(part.caseWide[source][t]),
+          );
+          expect(Math.abs(added - Number(year)), `${key} ${source} ${t}`).toBeLessThan(0.005);
+        });
+    }
     const wrong = await request(engineer, `/api/v1/cases/${mine.id}/result?include=everything`);
     expect(wrong.status).toBe(422);
     expect(JSON.stringify(await wrong.json())).toContain(
-      "include: the only accepted value is input",
+      "include: the accepted values are input and value-by-machine",
     );
   });
 

@@ -9,6 +9,7 @@ import {
   evaluateParsedCase,
   VALUE_SOURCES,
   type CaseResult,
+  type ParsedCase,
   type Scenario,
 } from "@/lib/engine";
 import { asStoredV1Result } from "@/tests/support/stored-v1-result";
@@ -16,7 +17,15 @@ import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
 import { IRR_NO_RATE_WORDS } from "@/lib/results/format";
 import { PAYBACK_STATUS_LABELS } from "@/lib/glossary";
-import { summarySourcesTop } from "@/lib/workbook/summary-sheet";
+import { DISCOUNTED_COLUMN, summarySourcesTop } from "@/lib/workbook/summary-sheet";
+import {
+  MACHINES_DISCOUNTED_HEADER,
+  MACHINES_HEADER,
+  MACHINE_ALL_COLUMN,
+  machineSourceColumn,
+} from "@/lib/workbook/summary-machines";
+import { machineValueTable } from "@/lib/results/machine-value";
+import { sourceTotals } from "@/lib/results/source-totals";
 import { caller } from "../support/callers";
 import {
   cachedFormulaValues,
@@ -52,7 +61,7 @@ function beyondHorizonCase() {
 async function recalculated(
   raw: unknown,
   edit?: (workbook: ExcelJS.Workbook) => void,
-): Promise<{ result: CaseResult; calc: ExcelJS.Workbook }> {
+): Promise<{ result: CaseResult; calc: ExcelJS.Workbook; rate: number; input: ParsedCase }> {
   // Without LibreOffice every test fails (none is skipped), with the package to install.
   sofficeVersion();
   const input = caseInputSchema.parse(raw);
@@ -74,7 +83,7 @@ async function recalculated(
   expect(formulas).toBeGreaterThan(600);
   const calc = new ExcelJS.Workbook();
   await calc.xlsx.load(recalculateWithLibreOffice(stripped) as unknown as ArrayBuffer);
-  return { result, calc };
+  return { result, calc, rate: input.finance.discountRatePct, input };
 }
 
 const SCENARIO_NAMES: [string, keyof CaseResult["scenarios"]][] = [
@@ -133,7 +142,12 @@ const numberOrNull = (money: string | null) => (money === null ? null : Number(m
  * The value-by-source block as Calc computed it (docs/model.md (The business case)): each source of each year
  * equals the engine's to the cent, and the year's cash flow in the year table is their sum.
  */
-function expectSourcesAddUp(calc: ExcelJS.Workbook, result: CaseResult, horizon: number): void {
+function expectSourcesAddUp(
+  calc: ExcelJS.Workbook,
+  result: CaseResult,
+  horizon: number,
+  rate: number,
+): void {
   const sheet = calc.getWorksheet("Cash flow");
   if (!sheet) throw new Error("no Cash flow sheet");
   const number = (row: number, column: number) => {
@@ -165,14 +179,14 @@ function expectSourcesAddUp(calc: ExcelJS.Workbook, result: CaseResult, horizon:
       expect(Math.abs(flow - Number(s.cashFlows[t])), `${key} year ${t}`).toBeLessThan(0.005);
     }
   }
-  expectSummaryBreakdown(calc, result);
+  expectSummaryBreakdown(calc, result, rate);
 }
 
 /**
  * The Summary's value by source over the horizon, as Calc recalculates its live sums, equals
  * the engine's per-source sums to the cent, and its total row equals the sum of the flows.
  */
-function expectSummaryBreakdown(calc: ExcelJS.Workbook, result: CaseResult): void {
+function expectSummaryBreakdown(calc: ExcelJS.Workbook, result: CaseResult, rate: number): void {
   const sheet = calc.getWorksheet("Summary");
   if (!sheet) throw new Error("no Summary sheet");
   const top = summarySourcesTop(sheet);
@@ -180,8 +194,8 @@ function expectSummaryBreakdown(calc: ExcelJS.Workbook, result: CaseResult): voi
   const cents = (v: Decimal.Value) => new Decimal(v).toFixed(2);
   (["physics", "bandLow", "bandHigh"] as const).forEach((key, j) => {
     const s = result.scenarios[key];
-    const read = (row: number) => {
-      const cell = sheet.getCell(row, 2 + j);
+    const read = (row: number, column = 2 + j) => {
+      const cell = sheet.getCell(row, column);
       expect(cell.type, cell.address).toBe(ExcelJS.ValueType.Formula);
       expect(typeof cell.result, `${cell.address}: ${JSON.stringify(cell.result)}`).toBe("number");
       return cell.result as number;
@@ -192,7 +206,63 @@ function expectSummaryBreakdown(calc: ExcelJS.Workbook, result: CaseResult): voi
     });
     const flows = s.cashFlows.slice(1).reduce((acc, v) => acc.plus(v), new Decimal(0));
     expect(cents(read(top! + 1 + VALUE_SOURCES.length)), `Summary ${key} total`).toBe(cents(flows));
+    // Discounted at the case's rate: each source against the engine's figures discounted in
+    // Decimal (lib/results/source-totals.ts), and the discounted total less the up-front cost
+    // against the engine's NPV.
+    const discounted = DISCOUNTED_COLUMN + j;
+    sourceTotals(s, rate).forEach((t, i) =>
+      expect(cents(read(top! + 1 + i, discounted)), `Summary ${key} ${t.source} discounted`).toBe(
+        cents(t.discounted),
+      ),
+    );
+    expect(
+      cents(read(top! + 2 + VALUE_SOURCES.length, discounted)),
+      `Summary ${key} NPV from the discounted sources`,
+    ).toBe(cents(s.npv));
   });
+}
+
+/**
+ * The Summary's per-machine blocks (engine scenario, over the horizon then discounted), as Calc
+ * recalculates their live formulas: every machine, the case-wide row and the total, each source
+ * and all of them, equal the engine's split to the cent; the total row is the case's own figure.
+ */
+function expectMachineBlocks(calc: ExcelJS.Workbook, result: CaseResult, input: ParsedCase): void {
+  const sheet = calc.getWorksheet("Summary");
+  if (!sheet) throw new Error("no Summary sheet");
+  const table = machineValueTable(result, input, "physics");
+  const cents = (v: Decimal.Value) => new Decimal(v).toFixed(2);
+  for (const [header, measure] of [
+    [MACHINES_HEADER, "horizon"],
+    [MACHINES_DISCOUNTED_HEADER, "discounted"],
+  ] as const) {
+    let top = 0;
+    sheet.eachRow((row, n) => {
+      if (String(row.getCell(1).value).startsWith(`${header},`)) top = n;
+    });
+    expect(top, header).toBeGreaterThan(0);
+    expect(table.rows.length).toBe(input.machines.length + 2);
+    table.rows.forEach((expected, k) => {
+      const r = top + 1 + k;
+      if (expected.kind === "machine") expect(sheet.getCell(r, 1).value).toBe(expected.name);
+      const read = (column: number) => {
+        const cell = sheet.getCell(r, column);
+        expect(cell.type, cell.address).toBe(ExcelJS.ValueType.Formula);
+        expect(typeof cell.result, `${cell.address}: ${JSON.stringify(cell.result)}`).toBe(
+          "number",
+        );
+        return cell.result as number;
+      };
+      for (const source of VALUE_SOURCES)
+        expect(
+          cents(read(machineSourceColumn(source))),
+          `${expected.name} ${measure} ${source}`,
+        ).toBe(cents(expected.values[measure][source]));
+      expect(cents(read(MACHINE_ALL_COLUMN)), `${expected.name} ${measure} all`).toBe(
+        cents(expected.all[measure]),
+      );
+    });
+  }
 }
 
 /** The fixture case with inflation, tax, depreciation and event costs built up (engine v2). */
@@ -256,12 +326,13 @@ describe("LibreOffice Calc recalculating the exported workbook (docs/model.md (S
 
   it("reproduces inflation, tax, straight-line depreciation, event costs, value by source and break-even (engine v2)", async () => {
     const raw = financeV2Case();
-    const { result, calc } = await recalculated(raw);
+    const { result, calc, rate, input } = await recalculated(raw);
     expect(result.scenarios.physics.bySource.tax.some((t) => Number(t) !== 0)).toBe(true);
     expect(result.breakEven.stepLossFactor).not.toBeNull();
     expect(result.breakEven.tariffPerKWh).not.toBeNull();
     const seen = expectEngineFigures(calc, result);
-    expectSourcesAddUp(calc, result, 7);
+    expectSourcesAddUp(calc, result, 7, rate);
+    expectMachineBlocks(calc, result, input);
     // Depreciation: SLN(Capex, 0, 4) = Capex/4 (LibreOffice Calc help, SLN).
     const depreciation = definedNameValue(calc, "Depreciation_PerYear");
     expect(Math.abs((depreciation as number) - Number(result.totals.capex) / 4)).toBeLessThan(1e-9);
@@ -279,7 +350,8 @@ describe("LibreOffice Calc recalculating the exported workbook (docs/model.md (S
     Object.assign(edited.finance, { taxRatePct: 15, inflationPct: 6, depreciationYears: 2 });
     const result = evaluateCase(edited);
     expectEngineFigures(calc, result);
-    expectSourcesAddUp(calc, result, 7);
+    // The rate was not edited: the fixture's own.
+    expectSourcesAddUp(calc, result, 7, edited.finance.discountRatePct);
   }, 180_000);
 
   it("opens and recalculates the workbook of a proposal issued by engine v1 (no value by source, payback status or break-even stored)", async () => {
@@ -337,10 +409,13 @@ describe("LibreOffice Calc recalculating the workbook of every seeded demo case 
   it.each(demo.map((c) => [c.name, c.id] as const))(
     "%s: every defined name and the Summary's value by source equal the engine's figures",
     async (_name, id) => {
-      const { result, calc } = await recalculated(buildCaseInput(manager, id));
+      const { result, calc, rate, input } = await recalculated(buildCaseInput(manager, id));
       expectEngineFigures(calc, result);
-      // Every scenario's Summary breakdown by source, recalculated by Calc, to the cent.
-      expectSummaryBreakdown(calc, result);
+      // Each machine's value by source, plain and discounted, as Calc works it out from the
+      // Axes and Assumptions sheets, against the engine's split (lib/engine/machine-value.ts).
+      expectMachineBlocks(calc, result, input);
+      // Every scenario's Summary breakdown by source, plain and discounted, recalculated by Calc, to the cent.
+      expectSummaryBreakdown(calc, result, rate);
     },
     180_000,
   );

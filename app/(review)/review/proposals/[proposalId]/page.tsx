@@ -15,6 +15,7 @@ import { WarningsPanel } from "@/components/results/warnings-panel";
 import { AssumptionsList } from "@/components/review/assumptions-list";
 import { DecisionForm } from "@/components/review/decision-form";
 import { MachineFiguresTable } from "@/components/review/machine-figures-table";
+import { ValueByMachineTable } from "@/components/results/value-by-machine-table";
 import { WhatIfPanel } from "@/components/review/what-if-panel";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
@@ -121,6 +122,7 @@ export default async function ReviewProposalPage({
       <ValueBySourceChart result={result} input={input} />
       <ValueBySourceTable result={result} />
       <MachineFiguresTable result={result} input={input} />
+      <ValueByMachineTable result={result} input={input} />
       <WarningsPanel result={result} input={input} />
       <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
         {input ? <AssumptionsList input={input} /> : null}

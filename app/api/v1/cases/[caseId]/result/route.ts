@@ -3,20 +3,33 @@ import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { idFromRoute } from "@/lib/validations/ids";
 import { withApi } from "@/server/api/handler";
 import { requireRole } from "@/server/auth";
-import { caseInputAndResultJson, caseResultJson } from "@/server/cases/results";
+import {
+  caseInputAndResultJson,
+  caseResultJson,
+  caseResultWithValueByMachineJson,
+} from "@/server/cases/results";
 
 const includeParam = z
-  .enum(["input"], { error: "include: the only accepted value is input" })
+  .enum(["input", "value-by-machine"], {
+    error: "include: the accepted values are input and value-by-machine",
+  })
   .nullable();
 
 // The CaseResult of docs/model.md for the case as it stands now. With `?include=input` the body
 // is `{ input, result }`: the CaseInput the engine received beside it (the case page's one request).
+// With `?include=value-by-machine` it is `{ result, valueByMachine }`: each scenario's value by
+// source split by machine plus a case-wide part, adding up to the scenario's (docs/contracts.md).
 export const GET = withApi(
   async (request: Request, context: { params: Promise<{ caseId: string }> }) => {
     const caller = await requireRole(...VENDOR_ROLES);
     const caseId = idFromRoute((await context.params).caseId);
     const include = includeParam.parse(new URL(request.url).searchParams.get("include"));
-    const body = include ? caseInputAndResultJson(caller, caseId) : caseResultJson(caller, caseId);
+    const body =
+      include === "input"
+        ? caseInputAndResultJson(caller, caseId)
+        : include === "value-by-machine"
+          ? caseResultWithValueByMachineJson(caller, caseId)
+          : caseResultJson(caller, caseId);
     return new Response(body, {
       headers: {
         "content-type": "application/json",
