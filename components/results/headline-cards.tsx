@@ -13,12 +13,32 @@ import {
   formatTonnes,
 } from "@/lib/results/format";
 import { scenarioHeadlines, type ScenarioHeadline } from "@/lib/results/scenarios";
-import { relianceSentence, valueReliance } from "@/lib/results/value-reliance";
+import type { EvidenceIndex } from "@/lib/evidence/subjects";
+import {
+  evidencedReliance,
+  relianceSentence,
+  unevidencedSentence,
+  valueReliance,
+} from "@/lib/results/value-reliance";
+
+/** The recorded sources of a case's typed figures (db/queries/evidence.ts), where the screen has them. */
+export interface CaseEvidence {
+  caseId: number;
+  index: EvidenceIndex;
+}
 
 const BAND_TONE = { below: "caution", within: "success", above: "flux" } as const;
 
 /** The business case at a glance: each scenario's figures in one column, side by side. */
-export function HeadlineCards({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
+export function HeadlineCards({
+  result,
+  input,
+  evidence,
+}: {
+  result: CaseResult;
+  input: ParsedCase | null;
+  evidence?: CaseEvidence;
+}) {
   const headlines = scenarioHeadlines(result, input);
   const horizonYears = result.scenarios.physics.cashFlows.length - 1;
   return (
@@ -34,6 +54,9 @@ export function HeadlineCards({ result, input }: { result: CaseResult; input: Pa
             scenario={result.scenarios[h.key]}
             currency={result.currency}
             horizonYears={horizonYears}
+            result={result}
+            input={input}
+            evidence={evidence}
           />
         ))}
       </div>
@@ -49,11 +72,17 @@ function ScenarioCard({
   scenario,
   currency,
   horizonYears,
+  result,
+  input,
+  evidence,
 }: {
   headline: ScenarioHeadline;
   scenario: Scenario;
   currency: string;
   horizonYears: number;
+  result: CaseResult;
+  input: ParsedCase | null;
+  evidence?: CaseEvidence;
 }) {
   const primary = h.key === "physics";
   const negative = h.npv.startsWith("-");
@@ -79,14 +108,13 @@ function ScenarioCard({
       >
         {formatMoneyHeadline(h.npv, currency)}
       </p>
-      {reliance?.mostlyTyped ? (
-        <p
-          role="note"
-          className="mt-2 rounded-md border border-caution-600 bg-caution-50 p-2 text-small text-steel-900"
-        >
-          <strong>Mostly typed figures.</strong> {relianceSentence(reliance)}
-        </p>
-      ) : null}
+      <RelianceNote
+        scenario={scenario}
+        result={result}
+        input={input}
+        evidence={evidence}
+        fallback={reliance}
+      />
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
         <Row term={FINANCE_TERMS.upFrontCost} value={formatMoney(h.capex, currency)} />
         <Row term="Payback" value={paybackShort(scenario, horizonYears)} />
@@ -112,6 +140,52 @@ function ScenarioCard({
       </div>
     </article>
   );
+}
+
+const CAUTION_NOTE =
+  "mt-2 rounded-md border border-caution-600 bg-caution-50 p-2 text-small text-steel-900";
+
+/**
+ * Under the NPV: a warning when more than half of the value rests on typed figures with no
+ * recorded source, naming them; where the screen has no evidence to weigh (the reviewer's
+ * portal, the dossier), the plainer warning that the value is mostly typed.
+ */
+function RelianceNote({
+  scenario,
+  result,
+  input,
+  evidence,
+  fallback,
+}: {
+  scenario: Scenario;
+  result: CaseResult;
+  input: ParsedCase | null;
+  evidence?: CaseEvidence;
+  fallback: ReturnType<typeof valueReliance>;
+}) {
+  const split =
+    evidence && input
+      ? evidencedReliance(scenario, result, input, evidence.index, evidence.caseId)
+      : null;
+  if (split) {
+    if (split.mostlyUnevidenced)
+      return (
+        <p role="note" data-testid="unevidenced-warning" className={CAUTION_NOTE}>
+          <strong>Mostly typed figures without a source.</strong> {unevidencedSentence(split)}
+        </p>
+      );
+    if (!split.mostlyTyped) return null;
+    return (
+      <p role="note" className="mt-2 rounded-md bg-steel-50 p-2 text-small text-steel-900">
+        {relianceSentence(split)} {split.evidencedPct} % rests on figures whose source is recorded.
+      </p>
+    );
+  }
+  return fallback?.mostlyTyped ? (
+    <p role="note" className={CAUTION_NOTE}>
+      <strong>Mostly typed figures.</strong> {relianceSentence(fallback)}
+    </p>
+  ) : null;
 }
 
 function Row({ term, value }: { term: string; value: string }) {

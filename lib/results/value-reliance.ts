@@ -1,6 +1,13 @@
 import type Decimal from "decimal.js";
-import type { Scenario, ValueSource } from "@/lib/engine";
-import { Money } from "@/lib/engine/money";
+import type { CaseResult, ParsedCase, Scenario, ValueSource } from "@/lib/engine";
+import { eventCost } from "@/lib/engine/fleet";
+import { Money, parseMoney } from "@/lib/engine/money";
+import {
+  evidenceFieldLabel,
+  evidenceKey,
+  type EvidenceIndex,
+  type EvidenceSubject,
+} from "@/lib/evidence/subjects";
 import { VALUE_SOURCE_LABELS } from "./engine-v2";
 
 /**
@@ -68,4 +75,207 @@ export function relianceSentence(reliance: ValueReliance): string {
       ? names[0]
       : `${names.slice(0, -1).join(", ")} and ${names[names.length - 1]}`;
   return `${reliance.typedPct} % of the value over the horizon rests on figures typed for this case: ${list}.`;
+}
+
+/** One part of a typed source's yearly value and the typed figures it is the product of. */
+interface ValuePart {
+  source: ValueSource;
+  amount: Decimal;
+  /** evidenceKey of each figure, with the words naming it. */
+  figures: { key: string; words: string }[];
+}
+
+/** Whose figure it is, in words: "axis X1 on Mill 2", "machine Mill 2", "this case". */
+type Names = { axis: (id: string) => string; machine: (id: string) => string };
+
+const figure = (subject: EvidenceSubject, id: string | number, field: string, whose: string) => ({
+  key: evidenceKey(subject, id, field),
+  words: `${evidenceFieldLabel(subject, field).toLowerCase()} ${whose}`,
+});
+
+/**
+ * The yearly value of each typed source split into parts, each with the figures it rests on
+ * (docs/model.md (The business case)): a step-loss event's cost per axis — typed as one figure,
+ * or built from downtime (priced at the case's downtime cost), scrap and restart labour (at its
+ * labour rate) — times the events avoided; each machine's added output; the case's maintenance
+ * saving. A part rests on its events, avoided share and cost figures together, so it counts as
+ * evidenced only when every one of them has a source.
+ */
+function valueParts(result: CaseResult, input: ParsedCase, caseId: number | null): ValuePart[] {
+  const labor = parseMoney(input.finance.laborRatePerHour);
+  const downtime = parseMoney(input.finance.downtimeCostPerHour);
+  const machineName = new Map(input.machines.map((m) => [m.id, m.name]));
+  const axisResult = new Map(result.axes.map((a) => [a.id, a]));
+  const names: Names = {
+    axis: (id) => {
+      const axis = input.axes.find((a) => a.id === id);
+      return `on axis ${axis?.label ?? id} of ${machineName.get(axis?.machineId ?? "") ?? "its machine"}`;
+    },
+    machine: (id) => `of machine ${machineName.get(id) ?? id}`,
+  };
+  const caseFigure = (field: string) =>
+    caseId === null ? null : figure("case", caseId, field, "of this case");
+  const parts: ValuePart[] = [];
+
+  for (const axis of input.axes) {
+    const avoided = axisResult.get(axis.id)?.savings.stepLossEventsAvoided ?? 0;
+    if (avoided === 0) continue;
+    const events = new Money(axis.quantity).times(avoided);
+    const whose = names.axis(axis.id);
+    const base = [
+      figure("axis", axis.id, "stepLossEventsPerYear", whose),
+      figure("axis", axis.id, "avoidedPct", whose),
+    ];
+    const { event } = axis.reliability;
+    const costParts: { amount: Decimal; figures: ({ key: string; words: string } | null)[] }[] =
+      event === undefined
+        ? [
+            {
+              amount: eventCost(axis.reliability, labor, downtime).total,
+              figures: [figure("axis", axis.id, "costPerEvent", whose)],
+            },
+          ]
+        : [
+            {
+              amount: new Money(event.downtimeMinutes).div(60).times(downtime),
+              figures: [
+                figure("axis", axis.id, "downtimeMinutes", whose),
+                caseFigure("downtimeCostPerHour"),
+              ],
+            },
+            {
+              amount: new Money(event.scrapParts).times(parseMoney(event.scrapCostPerPart)),
+              figures: [
+                figure("axis", axis.id, "scrapParts", whose),
+                figure("axis", axis.id, "scrapCostPerPart", whose),
+              ],
+            },
+            {
+              amount: new Money(event.restartLaborHours).times(labor),
+              figures: [
+                figure("axis", axis.id, "restartLaborHours", whose),
+                caseFigure("laborRatePerHour"),
+              ],
+            },
+          ];
+    for (const part of costParts)
+      if (part.amount.greaterThan(0))
+        parts.push({
+          source: "reliability",
+          amount: events.times(part.amount),
+          figures: [...base, ...part.figures.filter((f) => f !== null)],
+        });
+  }
+
+  for (const machine of result.machines) {
+    const amount = parseMoney(machine.throughputPerYear);
+    if (!amount.greaterThan(0)) continue;
+    const whose = names.machine(machine.id);
+    parts.push({
+      source: "throughput",
+      amount,
+      figures: [
+        figure("machine", machine.id, "throughputGainPct", whose),
+        figure("machine", machine.id, "marginPerOutputHour", whose),
+      ],
+    });
+  }
+
+  const maintenance = input.axes.reduce<Decimal>(
+    (sum, a) =>
+      sum.plus(new Money(a.quantity).times(parseMoney(a.retrofit.maintenanceSavingPerYear))),
+    new Money(0),
+  );
+  if (maintenance.greaterThan(0)) {
+    const f = caseFigure("maintenanceSavingPerYear");
+    parts.push({ source: "maintenance", amount: maintenance, figures: f ? [f] : [] });
+  }
+  return parts;
+}
+
+export interface EvidencedReliance extends ValueReliance {
+  /** Share (0..100, whole percent) of the pre-tax value resting on typed figures with a recorded source. */
+  evidencedPct: number;
+  /** Share (0..100, whole percent) resting on typed figures at least one of which has no source. */
+  unevidencedPct: number;
+  /** The typed figures with no source that value rests on, in plain words, most value first. */
+  unevidencedFigures: string[];
+  /** More than half of the value rests on typed figures without a source. */
+  mostlyUnevidenced: boolean;
+}
+
+/**
+ * valueReliance with the typed value split by evidence (db/schema/evidence.ts): each typed
+ * source's value over the horizon is shared between its parts in proportion to their yearly
+ * value, and a part is evidenced when every figure it rests on has a source. A figure no
+ * screen can give a source for (a rate of a case not named) leaves its part unevidenced.
+ */
+export function evidencedReliance(
+  scenario: Scenario,
+  result: CaseResult,
+  input: ParsedCase,
+  evidence: EvidenceIndex,
+  caseId: number | null,
+): EvidencedReliance | null {
+  const base = valueReliance(scenario);
+  if (!base) return null;
+  const bySource = scenario.bySource;
+  let total: Decimal = new Money(0);
+  for (const [source, origin] of Object.entries(SOURCE_ORIGIN) as [ValueSource, unknown][]) {
+    if (origin === null) continue;
+    const amount = sumYears(bySource[source]);
+    if (amount.greaterThan(0)) total = total.plus(amount);
+  }
+  const parts = valueParts(result, input, caseId);
+  let evidenced: Decimal = new Money(0);
+  let unevidenced: Decimal = new Money(0);
+  const missing = new Map<string, Decimal>();
+  for (const source of ["reliability", "maintenance", "throughput"] as const) {
+    const amount = sumYears(bySource[source]);
+    if (!amount.greaterThan(0)) continue;
+    const own = parts.filter((p) => p.source === source);
+    const yearly = own.reduce<Decimal>((s, p) => s.plus(p.amount), new Money(0));
+    if (!yearly.greaterThan(0)) {
+      unevidenced = unevidenced.plus(amount);
+      continue;
+    }
+    for (const part of own) {
+      const share = amount.times(part.amount).div(yearly);
+      const lacking = part.figures.filter((f) => evidence[f.key] === undefined);
+      if (lacking.length === 0 && part.figures.length > 0) {
+        evidenced = evidenced.plus(share);
+        continue;
+      }
+      unevidenced = unevidenced.plus(share);
+      for (const f of lacking)
+        missing.set(f.words, (missing.get(f.words) ?? new Money(0)).plus(share));
+    }
+  }
+  const pct = (d: Decimal) => d.div(total).times(100).toDecimalPlaces(0).toNumber();
+  return {
+    ...base,
+    evidencedPct: pct(evidenced),
+    unevidencedPct: pct(unevidenced),
+    unevidencedFigures: [...missing.entries()]
+      .sort((a, b) => b[1].comparedTo(a[1]) || a[0].localeCompare(b[0]))
+      .map(([words]) => words),
+    mostlyUnevidenced: unevidenced.div(total).greaterThan(0.5),
+  };
+}
+
+const sumYears = (years: readonly string[] | undefined): Decimal =>
+  (years ?? []).reduce<Decimal>((acc, y) => acc.plus(y), new Money(0));
+
+/** The headline's warning: how much rests on figures without a source, and the first few of them. */
+export function unevidencedSentence(reliance: EvidencedReliance, shown = 4): string {
+  const figures = reliance.unevidencedFigures;
+  const named = figures.slice(0, shown);
+  const more = figures.length - named.length;
+  const list =
+    more > 0
+      ? `${named.join("; ")}; and ${more} more`
+      : named.length > 1
+        ? `${named.slice(0, -1).join("; ")} and ${named[named.length - 1]}`
+        : (named[0] ?? "");
+  return `${reliance.unevidencedPct} % of the value over the horizon rests on typed figures with no recorded source${list ? `: ${list}` : ""}. Record where each comes from (a note, a date and who gave it) before relying on this figure.`;
 }
