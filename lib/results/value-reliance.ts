@@ -113,8 +113,8 @@ function valueParts(result: CaseResult, input: ParsedCase, caseId: number | null
     },
     machine: (id) => `of machine ${machineName.get(id) ?? id}`,
   };
-  const caseFigure = (field: string) =>
-    caseId === null ? null : figure("case", caseId, field, "of this case");
+  // Without a case (a bare input), a case's figure can have no source: its key matches none.
+  const caseFigure = (field: string) => figure("case", caseId ?? "none", field, "of this case");
   const parts: ValuePart[] = [];
 
   for (const axis of input.axes) {
@@ -127,7 +127,7 @@ function valueParts(result: CaseResult, input: ParsedCase, caseId: number | null
       figure("axis", axis.id, "avoidedPct", whose),
     ];
     const { event } = axis.reliability;
-    const costParts: { amount: Decimal; figures: ({ key: string; words: string } | null)[] }[] =
+    const costParts: { amount: Decimal; figures: { key: string; words: string }[] }[] =
       event === undefined
         ? [
             {
@@ -163,7 +163,7 @@ function valueParts(result: CaseResult, input: ParsedCase, caseId: number | null
         parts.push({
           source: "reliability",
           amount: events.times(part.amount),
-          figures: [...base, ...part.figures.filter((f) => f !== null)],
+          figures: [...base, ...part.figures],
         });
   }
 
@@ -187,8 +187,11 @@ function valueParts(result: CaseResult, input: ParsedCase, caseId: number | null
     new Money(0),
   );
   if (maintenance.greaterThan(0)) {
-    const f = caseFigure("maintenanceSavingPerYear");
-    parts.push({ source: "maintenance", amount: maintenance, figures: f ? [f] : [] });
+    parts.push({
+      source: "maintenance",
+      amount: maintenance,
+      figures: [caseFigure("maintenanceSavingPerYear")],
+    });
   }
   return parts;
 }
@@ -202,13 +205,17 @@ export interface EvidencedReliance extends ValueReliance {
   unevidencedFigures: string[];
   /** More than half of the value rests on typed figures without a source. */
   mostlyUnevidenced: boolean;
+  /** The value over the horizon (plain, not discounted) on evidenced and on unevidenced typed figures. */
+  evidenced: string;
+  unevidenced: string;
 }
 
 /**
  * valueReliance with the typed value split by evidence (db/schema/evidence.ts): each typed
  * source's value over the horizon is shared between its parts in proportion to their yearly
  * value, and a part is evidenced when every figure it rests on has a source. A figure no
- * screen can give a source for (a rate of a case not named) leaves its part unevidenced.
+ * screen can give a source for (a rate of a case not named: caseId null) leaves its part
+ * unevidenced.
  */
 export function evidencedReliance(
   scenario: Scenario,
@@ -260,6 +267,8 @@ export function evidencedReliance(
       .sort((a, b) => b[1].comparedTo(a[1]) || a[0].localeCompare(b[0]))
       .map(([words]) => words),
     mostlyUnevidenced: unevidenced.div(total).greaterThan(0.5),
+    evidenced: evidenced.toFixed(),
+    unevidenced: unevidenced.toFixed(),
   };
 }
 

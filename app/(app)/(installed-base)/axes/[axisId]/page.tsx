@@ -7,6 +7,7 @@ import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getAxisOrThrow } from "@/db/queries/axes";
 import { listSubjectEvidence } from "@/db/queries/evidence";
+import { listAxisEventPricing } from "@/db/queries/axis-event-pricing";
 import { listMotors } from "@/db/queries/catalogue";
 import { axisDeletionImpact, describeImpact } from "@/db/queries/installed-base-impact";
 import { listMachines } from "@/db/queries/machines";
@@ -59,6 +60,7 @@ export default async function EditAxisPage({ params }: { params: Promise<{ axisI
           axis={{ id: axis.id, values: axisToFormValues(axis) }}
           defaults={site}
           motors={motors}
+          eventPricing={listAxisEventPricing(user, axis.id)}
         />
       </Panel>
       <Panel title="Sources of the step-loss figures">
