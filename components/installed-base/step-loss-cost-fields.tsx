@@ -14,6 +14,7 @@ import { fieldMessage } from "@/components/ui/form-fields";
 import { EVENT_FIELDS, type EventFieldKey } from "@/lib/fields";
 import { eventCostSentence, type EventPricing } from "@/lib/results/event-cost-view";
 import { AxisRegistryField } from "./axis-registry-field";
+import { EVENT_DEFAULTS } from "./axis-form-values";
 
 const EVENT_KEYS = Object.keys(EVENT_FIELDS) as EventFieldKey[];
 
@@ -108,12 +109,7 @@ function BuiltUpCost({
   event: Record<EventFieldKey, unknown> | undefined;
   pricing: EventPricing[];
 }) {
-  const parts = event ?? {
-    downtimeMinutes: 0,
-    scrapParts: 0,
-    scrapCostPerPart: "0",
-    restartLaborHours: 0,
-  };
+  const parts = event ?? EVENT_DEFAULTS;
   if (pricing.length === 0)
     return (
       <p role="status" className="rounded-md bg-flux-50 p-3 text-small text-flux-900">

@@ -1,5 +1,6 @@
 import { eventCost } from "../engine/fleet";
 import { Money, parseMoney } from "../engine/money";
+import type { ParsedAxis } from "../engine/schema";
 import { formatMoney } from "./format";
 
 /** A case's rates that price a step-loss event built up from what it causes. */
@@ -42,20 +43,16 @@ export function eventCostSentence(parts: EventParts, pricing: EventPricing): str
   if (minutes === null || scrap === null || hours === null || perPart === null) return null;
   const downtimeRate = parseMoney(pricing.downtimeCostPerHour);
   const laborRate = parseMoney(pricing.laborRatePerHour);
-  const { total } = eventCost(
-    {
-      stepLossEventsPerYear: 0,
-      avoidedPct: 0,
-      event: {
-        downtimeMinutes: minutes,
-        scrapParts: scrap,
-        scrapCostPerPart: perPart,
-        restartLaborHours: hours,
-      },
+  // eventCost reads the event alone; the axis's counts do not enter the cost of one event.
+  const reliability = {
+    event: {
+      downtimeMinutes: minutes,
+      scrapParts: scrap,
+      scrapCostPerPart: perPart,
+      restartLaborHours: hours,
     },
-    laborRate,
-    downtimeRate,
-  );
+  } as ParsedAxis["reliability"];
+  const { total } = eventCost(reliability, laborRate, downtimeRate);
   const m = (d: { toFixed(): string } | string) =>
     formatMoney(typeof d === "string" ? d : d.toFixed(), pricing.currency);
   const downtime = new Money(minutes).div(60).times(downtimeRate);

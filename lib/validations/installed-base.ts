@@ -123,8 +123,10 @@ export const axisInputSchema = axisFieldsSchema
     const costMode = costModeOf({ costMode: _mode, event });
     if (costMode === undefined) return axis;
     if (costMode === "typed") return { ...axis, event: null };
-    // As over the API: with the cost built up, costPerEvent is not a figure of the axis.
-    return { ...axis, costPerEvent: "0", event: stepLossEventSchema.parse(event ?? {}) };
+    // As over the API: with the cost built up, costPerEvent is not a figure of the axis and
+    // keeps its registry default.
+    const unused = A.costPerEvent.default;
+    return { ...axis, costPerEvent: unused, event: stepLossEventSchema.parse(event ?? {}) };
   });
 
 // The engine's own schemas for the optional objects of docs/model.md, taken from its axis schema
