@@ -17,6 +17,7 @@ import { BreakEvenPanel } from "./break-even-panel";
 import { CashFlowChart } from "./cash-flow-chart";
 import { CautionsPanel } from "./cautions-panel";
 import { EnergyByMachineChart } from "./energy-by-machine-chart";
+import { EvidenceSources } from "./evidence-sources";
 import { HeadlineCards, type CaseEvidence } from "./headline-cards";
 import { MethodLink } from "./method-link";
 import { MotionTable } from "./motion-table";
@@ -127,6 +128,14 @@ export function CaseResultsView({
       </div>
 
       <ValueBySourceTable result={result} />
+      {evidence && input ? (
+        <EvidenceSources
+          result={result}
+          input={input}
+          caseId={evidence.caseId}
+          index={evidence.index}
+        />
+      ) : null}
       <MotionTable result={result} input={input} />
       <WarningsPanel result={result} input={input} />
       <AxisResultsTable result={result} input={input} />

@@ -104,6 +104,37 @@ export function listCaseEvidence(caller: SessionUser, caseId: number): EvidenceE
     .all();
 }
 
+/**
+ * The evidence of the subjects a frozen proposal's input names (its axes and machines, by the
+ * ids it was frozen with) and of its case, as recorded now: the proposal keeps its figures, the
+ * sources beside them may have been added since.
+ */
+export function listProposalEvidence(
+  caller: SessionUser,
+  caseId: number,
+  subjects: { axisIds: number[]; machineIds: number[] },
+): EvidenceEntry[] {
+  const row = getCaseOrThrow(caller, caseId);
+  const of = (type: EvidenceSubject, ids: number[]) =>
+    ids.length === 0
+      ? undefined
+      : and(eq(valueEvidence.subjectType, type), inArray(valueEvidence.subjectId, ids));
+  return db
+    .select(entryColumns)
+    .from(valueEvidence)
+    .where(
+      and(
+        eq(valueEvidence.accountId, row.accountId),
+        or(
+          and(eq(valueEvidence.subjectType, "case"), eq(valueEvidence.subjectId, caseId)),
+          of("axis", subjects.axisIds),
+          of("machine", subjects.machineIds),
+        ),
+      ),
+    )
+    .all();
+}
+
 /** Records (or replaces) the source of one figure, with its audit line, in one transaction. */
 export function saveEvidence(caller: SessionUser, input: EvidenceInput): EvidenceEntry {
   assertRole(caller, ...VENDOR_ROLES);

@@ -168,7 +168,8 @@ function valueParts(result: CaseResult, input: ParsedCase, caseId: number | null
   }
 
   for (const machine of result.machines) {
-    const amount = parseMoney(machine.throughputPerYear);
+    // A result frozen by engine 1.0.0 may carry no added output per machine.
+    const amount = parseMoney(machine.throughputPerYear ?? "0");
     if (!amount.greaterThan(0)) continue;
     const whose = names.machine(machine.id);
     parts.push({
@@ -287,4 +288,33 @@ export function unevidencedSentence(reliance: EvidencedReliance, shown = 4): str
         ? `${named.slice(0, -1).join("; ")} and ${named[named.length - 1]}`
         : (named[0] ?? "");
   return `${reliance.unevidencedPct} % of the value over the horizon rests on typed figures with no recorded source${list ? `: ${list}` : ""}. Record where each comes from (a note, a date and who gave it) before relying on this figure.`;
+}
+
+/** One typed figure the value rests on, with the yearly value of the parts resting on it. */
+export interface TypedValueFigure {
+  key: string;
+  words: string;
+  /** Yearly value (physics scenario, before escalation) of the parts that rest on it. */
+  valuePerYear: string;
+}
+
+/**
+ * Every typed figure the case's value rests on, most value first: what the results list beside
+ * each figure's recorded source (components/results/evidence-sources.tsx).
+ */
+export function typedValueFigures(
+  result: CaseResult,
+  input: ParsedCase,
+  caseId: number | null,
+): TypedValueFigure[] {
+  const byKey = new Map<string, { words: string; value: Decimal }>();
+  for (const part of valueParts(result, input, caseId))
+    for (const f of part.figures) {
+      const seen = byKey.get(f.key);
+      if (seen) seen.value = seen.value.plus(part.amount);
+      else byKey.set(f.key, { words: f.words, value: part.amount });
+    }
+  return [...byKey.entries()]
+    .sort((a, b) => b[1].value.comparedTo(a[1].value) || a[1].words.localeCompare(b[1].words))
+    .map(([key, { words, value }]) => ({ key, words, valuePerYear: value.toFixed() }));
 }
