@@ -82,14 +82,28 @@ interface ValuePart {
   source: ValueSource;
   amount: Decimal;
   /** evidenceKey of each figure, with the words naming it. */
-  figures: { key: string; words: string }[];
+  figures: Figure[];
+}
+
+/** One typed figure of one subject: its evidence key, its words, and what it is of. */
+interface Figure {
+  key: string;
+  words: string;
+  /** "axis:stepLossEventsPerYear": figures of many subjects with one field group under it. */
+  group: string;
 }
 
 /** Whose figure it is, in words: "axis X1 on Mill 2", "machine Mill 2", "this case". */
 type Names = { axis: (id: string) => string; machine: (id: string) => string };
 
-const figure = (subject: EvidenceSubject, id: string | number, field: string, whose: string) => ({
+const figure = (
+  subject: EvidenceSubject,
+  id: string | number,
+  field: string,
+  whose: string,
+): Figure => ({
   key: evidenceKey(subject, id, field),
+  group: `${subject}:${field}`,
   words: `${evidenceFieldLabel(subject, field).toLowerCase()} ${whose}`,
 });
 
@@ -127,7 +141,7 @@ function valueParts(result: CaseResult, input: ParsedCase, caseId: number | null
       figure("axis", axis.id, "avoidedPct", whose),
     ];
     const { event } = axis.reliability;
-    const costParts: { amount: Decimal; figures: { key: string; words: string }[] }[] =
+    const costParts: { amount: Decimal; figures: Figure[] }[] =
       event === undefined
         ? [
             {
@@ -237,7 +251,7 @@ export function evidencedReliance(
   const parts = valueParts(result, input, caseId);
   let evidenced: Decimal = new Money(0);
   let unevidenced: Decimal = new Money(0);
-  const missing = new Map<string, Decimal>();
+  const missing = new Map<string, { first: Figure; subjects: Set<string>; value: Decimal }>();
   for (const source of ["reliability", "maintenance", "throughput"] as const) {
     const amount = sumYears(bySource[source]);
     if (!amount.greaterThan(0)) continue;
@@ -255,8 +269,13 @@ export function evidencedReliance(
         continue;
       }
       unevidenced = unevidenced.plus(share);
-      for (const f of lacking)
-        missing.set(f.words, (missing.get(f.words) ?? new Money(0)).plus(share));
+      for (const f of lacking) {
+        const seen = missing.get(f.group);
+        if (seen) {
+          seen.subjects.add(f.key);
+          seen.value = seen.value.plus(share);
+        } else missing.set(f.group, { first: f, subjects: new Set([f.key]), value: share });
+      }
     }
   }
   const pct = (d: Decimal) => d.div(total).times(100).toDecimalPlaces(0).toNumber();
@@ -264,13 +283,27 @@ export function evidencedReliance(
     ...base,
     evidencedPct: pct(evidenced),
     unevidencedPct: pct(unevidenced),
-    unevidencedFigures: [...missing.entries()]
-      .sort((a, b) => b[1].comparedTo(a[1]) || a[0].localeCompare(b[0]))
-      .map(([words]) => words),
+    unevidencedFigures: [...missing.values()]
+      .map((m) => ({ words: groupWords(m.first, m.subjects.size), value: m.value }))
+      .sort((a, b) => b.value.comparedTo(a.value) || a.words.localeCompare(b.words))
+      .map((m) => m.words),
     mostlyUnevidenced: unevidenced.div(total).greaterThan(0.5),
     evidenced: evidenced.toFixed(),
     unevidenced: unevidenced.toFixed(),
   };
+}
+
+const SUBJECT_PLURAL: Record<EvidenceSubject, string> = {
+  axis: "on {n} axes",
+  machine: "of {n} machines",
+  case: "of this case",
+};
+
+/** One figure in words, or the field's figures of several subjects: "margin per output hour of 14 machines". */
+function groupWords(first: Figure, count: number): string {
+  if (count === 1) return first.words;
+  const [subject, field] = first.group.split(":") as [EvidenceSubject, string];
+  return `${evidenceFieldLabel(subject, field).toLowerCase()} ${SUBJECT_PLURAL[subject].replace("{n}", String(count))}`;
 }
 
 const sumYears = (years: readonly string[] | undefined): Decimal =>

@@ -130,6 +130,23 @@ describe("evidencedReliance", () => {
     expect(r.unevidencedFigures).toContain("maintenance saving a year of this case");
   });
 
+  it("names a field's figures of several subjects once, with their count", () => {
+    const both = builtUpCase();
+    both.machines[1].throughputGainPct = 5;
+    both.machines[1].marginPerOutputHour = "20";
+    const r = evidencedReliance(
+      evaluateCase(both).scenarios.physics,
+      evaluateCase(both),
+      caseInputSchema.parse(both),
+      evidenceOf(["axis", "M1-X", "stepLossEventsPerYear"]),
+      CASE_ID,
+    )!;
+    expect(r.unevidencedFigures).toContain("margin per output hour of 2 machines");
+    // Three axes avoid events; one has its events' source, two do not.
+    expect(r.unevidencedFigures).toContain("step-loss events per year on 2 axes");
+    expect(r.unevidencedFigures).toContain("avoided step-loss events on 3 axes");
+  });
+
   it("names the first figures and counts the rest in the headline's words", () => {
     const r = evidencedReliance(physics, result, input, {}, CASE_ID)!;
     const sentence = unevidencedSentence(r, 2);
