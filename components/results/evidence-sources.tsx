@@ -1,8 +1,21 @@
+import Link from "next/link";
 import { Panel } from "@/components/ui/panel";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import type { EvidenceIndex } from "@/lib/evidence/subjects";
 import { formatMoney } from "@/lib/results/format";
 import { typedValueFigures, valueReliance } from "@/lib/results/value-reliance";
+
+/** Where a figure's source is recorded: its axis's, machine's or case's page. */
+function recordHref(key: string): string {
+  const [subject, id] = key.split(":");
+  return subject === "axis"
+    ? `/axes/${id}`
+    : subject === "machine"
+      ? `/machines/${id}`
+      : `/cases/${id}`;
+}
+
+const sentenceCase = (words: string) => words.charAt(0).toUpperCase() + words.slice(1);
 
 /** How many figures the panel lists before "and N more": a fleet has thousands of axes. */
 const SHOWN = 12;
@@ -44,7 +57,7 @@ export function EvidenceSources({
           return (
             <li key={f.key} className="py-2">
               <p className="flex flex-wrap justify-between gap-x-4">
-                <span className="font-bold text-steel-900">{f.words}</span>
+                <span className="font-bold text-steel-900">{sentenceCase(f.words)}</span>
                 <span className="tabular-nums text-steel-700">
                   {formatMoney(f.valuePerYear, result.currency)} a year
                 </span>
@@ -54,7 +67,12 @@ export function EvidenceSources({
                   Source: {entry.note} — {entry.givenBy}, {entry.givenOn}
                 </p>
               ) : (
-                <p className="text-caution-700">No source recorded.</p>
+                <p className="text-caution-700">
+                  No source recorded.{" "}
+                  <Link href={recordHref(f.key)} className="underline">
+                    Record it
+                  </Link>
+                </p>
               )}
             </li>
           );
