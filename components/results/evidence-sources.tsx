@@ -69,7 +69,11 @@ export function EvidenceSources({
               ) : (
                 <p className="text-caution-700">
                   No source recorded.{" "}
-                  <Link href={recordHref(f.key)} className="underline">
+                  <Link
+                    href={recordHref(f.key)}
+                    className="underline"
+                    aria-label={`Record the source of ${f.words}`}
+                  >
                     Record it
                   </Link>
                 </p>
