@@ -120,9 +120,11 @@ function valueParts(result: CaseResult, input: ParsedCase, caseId: number | null
   const downtime = parseMoney(input.finance.downtimeCostPerHour);
   const machineName = new Map(input.machines.map((m) => [m.id, m.name]));
   const axisResult = new Map(result.axes.map((a) => [a.id, a]));
+  // Maps, not finds: a fleet case holds up to 100,000 axes.
+  const axisById = new Map(input.axes.map((a) => [a.id, a]));
   const names: Names = {
     axis: (id) => {
-      const axis = input.axes.find((a) => a.id === id);
+      const axis = axisById.get(id);
       return `on axis ${axis?.label ?? id} of ${machineName.get(axis?.machineId ?? "") ?? "its machine"}`;
     },
     machine: (id) => `of machine ${machineName.get(id) ?? id}`,
