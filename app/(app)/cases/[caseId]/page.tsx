@@ -70,11 +70,13 @@ export default async function CasePage({
       <Panel title="Notes">
         <CaseDetails caseId={caseId} name={item.name} notes={item.notes} />
       </Panel>
-      {caseAxes.length ? <CaseResults
+      {caseAxes.length ? (
+        <CaseResults
           caseId={caseId}
           methodHref="/method"
           evidence={{ caseId, index: indexEvidence(caseEvidence) }}
-        /> : null}
+        />
+      ) : null}
       <Panel title="Axes and kits">
         <CaseAxesEditor
           caseId={caseId}
