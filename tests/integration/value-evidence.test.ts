@@ -15,7 +15,7 @@ import { listAudit } from "@/db/queries/audit";
 import { getAxisOrThrow, updateAxis } from "@/db/queries/axes";
 import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { listCaseAxes } from "@/db/queries/case-axes";
-import { listCaseEvidence, saveEvidence } from "@/db/queries/evidence";
+import { listCaseEvidence, listProposalEvidence, saveEvidence } from "@/db/queries/evidence";
 import { proposals, type Axis } from "@/db/schema";
 import { saveEvidenceAction, clearEvidenceAction } from "@/server/evidence/actions";
 import { saveAxisAction } from "@/server/installed-base/actions";
@@ -278,6 +278,19 @@ describe("the source of each typed figure", () => {
     );
     expect(audit.length).toBe(entries.length + 1);
     expect(audit[0]).toMatchObject({ actorEmail: "engineer@example.com", targetType: "axis" });
+
+    // The proposal page reads the sources of the subjects its frozen input names.
+    const frozenInput = db
+      .select()
+      .from(proposals)
+      .all()
+      .find((p) => p.caseId === target.id)!.input;
+    const ids = (list: { id: string }[]) => list.map((x) => Number(x.id));
+    const forProposal = listProposalEvidence(engineer(), target.id, {
+      axisIds: ids(frozenInput.axes),
+      machineIds: ids(frozenInput.machines),
+    });
+    expect(forProposal.length).toBe(again.length);
 
     // Another tenant reads none of it, and frozen proposals are as they were.
     expect(() => listCaseEvidence(otherEngineer(), target.id)).toThrow("No such case");
