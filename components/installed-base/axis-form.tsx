@@ -20,6 +20,8 @@ import { axisFieldsOf, AxisRegistryField } from "./axis-registry-field";
 import type { AxisFieldKey } from "@/lib/fields";
 import { newAxisFormValues } from "./axis-form-values";
 import { StatusLine, useActionStatus } from "./use-action-form";
+import { StepLossCostFields } from "./step-loss-cost-fields";
+import type { EventPricing } from "@/lib/results/event-cost-view";
 
 type Values = z.input<typeof axisInputSchema>;
 
@@ -46,6 +48,7 @@ export function AxisForm({
   axis,
   defaults,
   motors = [],
+  eventPricing = [],
 }: {
   siteId: number;
   machines: { id: number; name: string }[];
@@ -53,6 +56,8 @@ export function AxisForm({
   defaults: { hoursPerYear: number; ambientC: number };
   /** The catalogue's motors the form can fill the motor figures from. */
   motors?: Motor[];
+  /** The rates of the cases this axis is in, which price a step-loss event built up. */
+  eventPricing?: EventPricing[];
 }) {
   const router = useRouter();
   const {
@@ -164,15 +169,25 @@ export function AxisForm({
               ) : null}
             </div>
           ) : null}
-          {axisFieldsOf(group).map((key) => (
-            <AxisRegistryField
-              key={key}
-              name={key}
+          {axisFieldsOf(group)
+            .filter((key) => key !== "costPerEvent")
+            .map((key) => (
+              <AxisRegistryField
+                key={key}
+                name={key}
+                register={register}
+                errors={errors}
+                origin={origin(key)}
+              />
+            ))}
+          {group === "reliability" ? (
+            <StepLossCostFields
               register={register}
+              control={control}
               errors={errors}
-              origin={origin(key)}
+              pricing={eventPricing}
             />
-          ))}
+          ) : null}
         </Group>
       ))}
 

@@ -17,7 +17,8 @@ import { BreakEvenPanel } from "./break-even-panel";
 import { CashFlowChart } from "./cash-flow-chart";
 import { CautionsPanel } from "./cautions-panel";
 import { EnergyByMachineChart } from "./energy-by-machine-chart";
-import { HeadlineCards } from "./headline-cards";
+import { EvidenceSources } from "./evidence-sources";
+import { HeadlineCards, type CaseEvidence } from "./headline-cards";
 import { MethodLink } from "./method-link";
 import { MotionTable } from "./motion-table";
 import { TornadoChart } from "./tornado-chart";
@@ -32,7 +33,16 @@ import { WindingTemperatureChart } from "./winding-temperature-chart";
  * The live results of a case. While an edit recomputes, the last result stays on screen under
  * an "Updating…" badge, so the reader sees the numbers move instead of a blank page.
  */
-export function CaseResults({ caseId, methodHref }: { caseId: CaseId; methodHref: string }) {
+export function CaseResults({
+  caseId,
+  methodHref,
+  evidence,
+}: {
+  caseId: CaseId;
+  methodHref: string;
+  /** The sources recorded for the case's typed figures: the headline weighs them. */
+  evidence?: CaseEvidence;
+}) {
   const resultQuery = useCaseResult(caseId);
   const rawInput = resultQuery.data?.input;
   const input = useMemo(() => parseCaseInput(rawInput), [rawInput]);
@@ -49,6 +59,7 @@ export function CaseResults({ caseId, methodHref }: { caseId: CaseId; methodHref
       result={resultQuery.data.result}
       input={input}
       methodHref={methodHref}
+      evidence={evidence}
       updating={resultQuery.isFetching}
       inputState={input ? "ready" : "failed"}
       staleError={resultQuery.isError ? resultQuery.error : null}
@@ -66,11 +77,13 @@ export function CaseResultsView({
   inputState = "ready",
   staleError = null,
   onRetry,
+  evidence,
 }: {
   result: CaseResult;
   input: ParsedCase | null;
   /** The method page of the caller's shell. */
   methodHref: string;
+  evidence?: CaseEvidence;
   updating?: boolean;
   inputState?: "loading" | "ready" | "failed";
   staleError?: Error | null;
@@ -98,7 +111,7 @@ export function CaseResultsView({
         ) : null}
       </div>
 
-      <HeadlineCards result={result} input={input} />
+      <HeadlineCards result={result} input={input} evidence={evidence} />
       <BreakEvenPanel result={result} input={input} />
 
       <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
@@ -117,6 +130,14 @@ export function CaseResultsView({
 
       <ValueBySourceTable result={result} />
       <ValueByMachineTable result={result} input={input} />
+      {evidence && input ? (
+        <EvidenceSources
+          result={result}
+          input={input}
+          caseId={evidence.caseId}
+          index={evidence.index}
+        />
+      ) : null}
       <MotionTable result={result} input={input} />
       <WarningsPanel result={result} input={input} />
       <AxisResultsTable result={result} input={input} />

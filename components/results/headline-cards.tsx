@@ -13,12 +13,23 @@ import {
   formatTonnes,
 } from "@/lib/results/format";
 import { scenarioHeadlines, type ScenarioHeadline } from "@/lib/results/scenarios";
-import { relianceSentence, valueReliance } from "@/lib/results/value-reliance";
+import { valueReliance } from "@/lib/results/value-reliance";
+import { RelianceNote, type CaseEvidence } from "./reliance-note";
+
+export type { CaseEvidence };
 
 const BAND_TONE = { below: "caution", within: "success", above: "flux" } as const;
 
 /** The business case at a glance: each scenario's figures in one column, side by side. */
-export function HeadlineCards({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
+export function HeadlineCards({
+  result,
+  input,
+  evidence,
+}: {
+  result: CaseResult;
+  input: ParsedCase | null;
+  evidence?: CaseEvidence;
+}) {
   const headlines = scenarioHeadlines(result, input);
   const horizonYears = result.scenarios.physics.cashFlows.length - 1;
   return (
@@ -34,6 +45,9 @@ export function HeadlineCards({ result, input }: { result: CaseResult; input: Pa
             scenario={result.scenarios[h.key]}
             currency={result.currency}
             horizonYears={horizonYears}
+            result={result}
+            input={input}
+            evidence={evidence}
           />
         ))}
       </div>
@@ -49,11 +63,17 @@ function ScenarioCard({
   scenario,
   currency,
   horizonYears,
+  result,
+  input,
+  evidence,
 }: {
   headline: ScenarioHeadline;
   scenario: Scenario;
   currency: string;
   horizonYears: number;
+  result: CaseResult;
+  input: ParsedCase | null;
+  evidence?: CaseEvidence;
 }) {
   const primary = h.key === "physics";
   const negative = h.npv.startsWith("-");
@@ -82,14 +102,13 @@ function ScenarioCard({
           {formatMoneyHeadline(h.npv, currency)}
         </data>
       </p>
-      {reliance?.mostlyTyped ? (
-        <p
-          role="note"
-          className="mt-2 rounded-md border border-caution-600 bg-caution-50 p-2 text-small text-steel-900"
-        >
-          <strong>Mostly typed figures.</strong> {relianceSentence(reliance)}
-        </p>
-      ) : null}
+      <RelianceNote
+        scenario={scenario}
+        result={result}
+        input={input}
+        evidence={evidence}
+        fallback={reliance}
+      />
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
         <Row term={FINANCE_TERMS.upFrontCost} value={formatMoney(h.capex, currency)} />
         <Row term="Payback" value={paybackShort(scenario, horizonYears)} />

@@ -12,3 +12,4 @@ export * from "./revisions";
 export * from "./dossiers";
 export * from "./sign-in-throttle";
 export * from "./removals";
+export * from "./evidence";

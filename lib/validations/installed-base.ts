@@ -80,9 +80,54 @@ const referenceMotorField = z.preprocess(
   idSchema("Choose a motor from the catalogue, or none").nullable().optional(),
 );
 
+/**
+ * How the axis form gives the cost of one step-loss event (docs/model.md (The business case)):
+ * "typed" as one figure (costPerEvent), or "built" up from downtime, scrap and restart labour
+ * (the engine's reliability.event), priced with the case's downtime cost and labour rate.
+ */
+export const STEP_LOSS_COST_MODES = ["typed", "built"] as const;
+export type StepLossCostMode = (typeof STEP_LOSS_COST_MODES)[number];
+
+/**
+ * The way the cost is given: as chosen, or read from `event` alone — the action parses again what
+ * the form's own parse made (an event object, or null for a typed cost), which names no mode.
+ */
+function costModeOf(a: { costMode?: StepLossCostMode; event?: unknown }) {
+  if (a.costMode !== undefined) return a.costMode;
+  if (a.event === undefined) return undefined;
+  return a.event === null ? "typed" : "built";
+}
+
 export const axisInputSchema = axisFieldsSchema
-  .extend({ machineId: idSchema("Choose a machine"), referenceMotorId: referenceMotorField })
-  .superRefine(checkAxisConsistency);
+  .extend({
+    machineId: idSchema("Choose a machine"),
+    referenceMotorId: referenceMotorField,
+    // Left out (the importer, an older client), the stored event stays as it is.
+    costMode: z.enum(STEP_LOSS_COST_MODES).optional(),
+    // Checked only when the cost is built up: the boxes of the other way are not sent.
+    event: z.unknown().optional(),
+  })
+  .superRefine((a, ctx) => {
+    checkAxisConsistency(a, ctx);
+    if (costModeOf(a) !== "built") return;
+    const parsed = stepLossEventSchema.safeParse(a.event ?? {});
+    if (!parsed.success)
+      for (const issue of parsed.error.issues)
+        ctx.addIssue({
+          code: "custom",
+          path: ["event", ...issue.path.map(String)],
+          message: issue.message,
+        });
+  })
+  .transform(({ costMode: _mode, event, ...axis }) => {
+    const costMode = costModeOf({ costMode: _mode, event });
+    if (costMode === undefined) return axis;
+    if (costMode === "typed") return { ...axis, event: null };
+    // As over the API: with the cost built up, costPerEvent is not a figure of the axis and
+    // keeps its registry default.
+    const unused = A.costPerEvent.default;
+    return { ...axis, costPerEvent: unused, event: stepLossEventSchema.parse(event ?? {}) };
+  });
 
 // The engine's own schemas for the optional objects of docs/model.md, taken from its axis schema
 // (with the radius/lead and fromRpm/toRpm rules), so that the API refuses exactly what the engine

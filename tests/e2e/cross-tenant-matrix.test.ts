@@ -374,6 +374,30 @@ const ACTIONS: Record<string, ActionProbe> = {
     engineer: "scoped",
     reviewer: "role",
   },
+  // The source of a typed figure of the other tenant's axis: refused as a missing axis.
+  "evidence/actions saveEvidenceAction": {
+    args: (i) => [
+      {
+        subjectType: "axis",
+        subjectId: i.axis,
+        field: "stepLossEventsPerYear",
+        note: "Probe note",
+        givenOn: "2026-01-05",
+        givenBy: "Probe",
+      },
+    ],
+    refusedArgs: (i) => [
+      { subjectType: "axis", subjectId: i.axis, field: "stepLossEventsPerYear", note: "" },
+    ],
+    engineer: "scoped",
+    reviewer: "role",
+  },
+  "evidence/actions clearEvidenceAction": {
+    args: (i) => [{ subjectType: "machine", subjectId: i.machine, field: "throughputGainPct" }],
+    refusedArgs: (i) => [{ subjectType: "machine", subjectId: i.machine, field: "label" }],
+    engineer: "scoped",
+    reviewer: "role",
+  },
   // Creating an account names no record: a name the other tenant's account holds is refused
   // (names are unique across accounts) the same way whatever the ids, and nothing is written.
   "accounts/actions createAccountAction": {

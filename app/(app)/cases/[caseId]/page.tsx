@@ -6,18 +6,23 @@ import { CaseToolbar } from "@/components/cases/case-toolbar";
 import { ProposalsList } from "@/components/cases/proposals-list";
 import { StageBadge } from "@/components/cases/stage-badge";
 import { RemovedAxesNotice } from "@/components/cases/removed-axes-notice";
+import { EvidencePanel } from "@/components/evidence/evidence-panel";
 import { CaseResults } from "@/components/results/case-results";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { listAxisPickerOptions } from "@/db/queries/axes";
 import { listKits } from "@/db/queries/catalogue";
 import { listCaseAxesOf } from "@/db/queries/case-axes";
+import { listCaseEvidence } from "@/db/queries/evidence";
 import { listProposalsPage } from "@/db/queries/proposal-list";
 import { getSalesSettings } from "@/db/queries/sales-settings";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { requirePageUser } from "@/server/auth";
 import { idParam } from "@/lib/pages";
 import { flatParams } from "@/lib/lists/list-params";
+import { caseEvidenceFigures } from "@/lib/evidence/figures";
+import { indexEvidence } from "@/lib/evidence/subjects";
+import { Money, moneyString } from "@/lib/engine/money";
 import { proposalListParamsSchema } from "@/lib/validations/case-lists";
 import { readCase } from "./case-reads";
 
@@ -45,6 +50,12 @@ export default async function CasePage({
   const current = flatParams(await searchParams);
   const proposalParams = proposalListParamsSchema.parse(current);
   const proposals = listProposalsPage(item, proposalParams);
+  // The sources of the typed figures the value rests on: the headline weighs them.
+  const caseEvidence = listCaseEvidence(user, caseId);
+  const maintenance = caseAxes.reduce(
+    (sum, a) => sum.plus(new Money(a.maintenanceSavingPerYear).times(a.quantity)),
+    new Money(0),
+  );
 
   return (
     <div className="space-y-6">
@@ -59,7 +70,13 @@ export default async function CasePage({
       <Panel title="Notes">
         <CaseDetails caseId={caseId} name={item.name} notes={item.notes} />
       </Panel>
-      {caseAxes.length ? <CaseResults caseId={caseId} methodHref="/method" /> : null}
+      {caseAxes.length ? (
+        <CaseResults
+          caseId={caseId}
+          methodHref="/method"
+          evidence={{ caseId, index: indexEvidence(caseEvidence) }}
+        />
+      ) : null}
       <Panel title="Axes and kits">
         <CaseAxesEditor
           caseId={caseId}
@@ -78,6 +95,18 @@ export default async function CasePage({
       </Panel>
       <Panel title="Assumptions">
         <AssumptionsForm caseId={caseId} values={item.assumptions} currency={item.siteCurrency} />
+      </Panel>
+      <Panel title="Sources of the case's figures">
+        <EvidencePanel
+          subjectType="case"
+          subjectId={caseId}
+          figures={caseEvidenceFigures(
+            item.assumptions.finance,
+            moneyString(maintenance),
+            item.siteCurrency,
+          )}
+          entries={caseEvidence.filter((e) => e.subjectType === "case")}
+        />
       </Panel>
       <Panel title={`Proposals (${proposals.total})`}>
         <ProposalsList

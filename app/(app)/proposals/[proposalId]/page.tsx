@@ -10,6 +10,7 @@ import { Badge } from "@/components/ui/badge";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
+import { listProposalEvidence } from "@/db/queries/evidence";
 import { listComments } from "@/db/queries/proposal-comments";
 import { getProposalSnapshotOrThrow, vendorView } from "@/db/queries/proposals";
 import { listAccountReviewers, listOwnerOptions } from "@/db/queries/quotes";
@@ -24,6 +25,8 @@ import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { discountAboveThreshold, needsDiscountApproval } from "@/lib/pipeline/discount";
 import { FINANCE_TERMS } from "@/lib/glossary";
 import { vendorRevenue } from "@/lib/pipeline/revenue";
+import { indexEvidence } from "@/lib/evidence/subjects";
+import { parseId } from "@/lib/validations/ids";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -43,6 +46,20 @@ export default async function ProposalPage({
   const needsApproval = needsDiscountApproval(row, settings.discountThresholdPct);
   const sendable = SENDABLE_STAGES.includes(row.stage);
   const isManager = user.role === "manager";
+  // The sources recorded for the frozen figures' axes, machines and case, as they stand now.
+  const ids = (list: { id: string }[] | undefined) =>
+    (list ?? []).map((x) => parseId(x.id)).filter((id): id is number => id !== null);
+  const evidence = input
+    ? {
+        caseId: quote.caseId,
+        index: indexEvidence(
+          listProposalEvidence(user, quote.caseId, {
+            axisIds: ids(input.axes),
+            machineIds: ids(input.machines),
+          }),
+        ),
+      }
+    : undefined;
 
   return (
     <div className="space-y-6">
@@ -171,7 +188,10 @@ export default async function ProposalPage({
         <h2 id="frozen-results" className="text-title">
           Figures as frozen
         </h2>
-        <CaseResultsView result={result} input={input} methodHref="/method" />
+        <p className="text-small text-steel-700">
+          The figures are as frozen; the sources beside the typed ones are as recorded now.
+        </p>
+        <CaseResultsView result={result} input={input} methodHref="/method" evidence={evidence} />
       </section>
     </div>
   );

@@ -1,10 +1,13 @@
 import type { Metadata } from "next";
 import { AxisForm } from "@/components/installed-base/axis-form";
+import { EvidencePanel } from "@/components/evidence/evidence-panel";
 import { DeleteDialog } from "@/components/installed-base/delete-dialog";
 import { axisToFormValues } from "@/components/installed-base/axis-form-values";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getAxisOrThrow } from "@/db/queries/axes";
+import { listSubjectEvidence } from "@/db/queries/evidence";
+import { listAxisEventPricing } from "@/db/queries/axis-event-pricing";
 import { listMotors } from "@/db/queries/catalogue";
 import { axisDeletionImpact, describeImpact } from "@/db/queries/installed-base-impact";
 import { listMachines } from "@/db/queries/machines";
@@ -12,6 +15,7 @@ import { getSiteOrThrow } from "@/db/queries/sites";
 import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
+import { axisEvidenceFigures } from "@/lib/evidence/figures";
 
 export const metadata: Metadata = { title: "Edit axis" };
 
@@ -56,6 +60,15 @@ export default async function EditAxisPage({ params }: { params: Promise<{ axisI
           axis={{ id: axis.id, values: axisToFormValues(axis) }}
           defaults={site}
           motors={motors}
+          eventPricing={listAxisEventPricing(user, axis.id)}
+        />
+      </Panel>
+      <Panel title="Sources of the step-loss figures">
+        <EvidencePanel
+          subjectType="axis"
+          subjectId={axis.id}
+          figures={axisEvidenceFigures(axis, site.currency)}
+          entries={listSubjectEvidence(user, "axis", axis.id)}
         />
       </Panel>
     </div>

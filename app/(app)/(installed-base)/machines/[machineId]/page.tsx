@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { EvidencePanel } from "@/components/evidence/evidence-panel";
 import { DeleteDialog } from "@/components/installed-base/delete-dialog";
 import { DuplicateMachineForm } from "@/components/installed-base/duplicate-machine-form";
 import { MachineAxesTable } from "@/components/installed-base/machine-axes-table";
@@ -8,6 +9,7 @@ import { PendingUndo } from "@/components/installed-base/pending-undo";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
+import { listSubjectEvidence } from "@/db/queries/evidence";
 import { getPendingUndo } from "@/db/queries/installed-base-delete";
 import { describeImpact, machineDeletionImpact } from "@/db/queries/installed-base-impact";
 import { listMachineAxes } from "@/db/queries/machine-series";
@@ -15,6 +17,7 @@ import { getMachineOrThrow, listMachines } from "@/db/queries/machines";
 import { getSiteOrThrow } from "@/db/queries/sites";
 import { requirePageUser } from "@/server/auth";
 import { flatParams } from "@/lib/lists/list-params";
+import { machineEvidenceFigures } from "@/lib/evidence/figures";
 import { idParam, orNotFound, type SearchParams } from "@/lib/pages";
 import { machineAxisListSchema } from "@/lib/validations/installed-base";
 import { parseId } from "@/lib/validations/ids";
@@ -90,6 +93,14 @@ export default async function MachinePage({
           <dt className="font-bold text-steel-800">Open cases using its axes</dt>
           <dd className="tabular-nums">{impact.openCaseCount}</dd>
         </dl>
+      </Panel>
+      <Panel title="Sources of the added output">
+        <EvidencePanel
+          subjectType="machine"
+          subjectId={id}
+          figures={machineEvidenceFigures(machine, site.currency)}
+          entries={listSubjectEvidence(user, "machine", id)}
+        />
       </Panel>
       <Panel title={`Axes (${axes.total.toLocaleString("en")})`}>
         <MachineAxesTable machineId={id} result={axes} params={listParams} current={current} />
