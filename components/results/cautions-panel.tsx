@@ -10,7 +10,7 @@ const NAMED_AXES = 8;
 /** The cautions of this case, as the proposal carries them; local codes and licensed practice prevail. */
 export function CautionsPanel({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
   const names = namesById(input);
-  const cautions = caseCautions(result, names.axis);
+  const cautions = caseCautions(result, (id) => names.axisWithMachine(id));
   const machines = machineWarnings(result, input);
   return (
     <Panel title="Cautions">

@@ -76,7 +76,7 @@ export function WindingTemperatureChart({
   const rows = useMemo(() => windingTemperatures(result, input), [result, input]);
   const shown = useMemo(() => [...rows].sort(hottestFirst).slice(0, CHART_AXES), [rows]);
   const byId = useMemo(() => new Map(shown.map((r) => [r.axisId, r])), [shown]);
-  const labelOf = (id: string) => byId.get(id)?.label ?? id;
+  const labelOf = (id: string) => byId.get(id)?.name ?? "";
   const layers = useMemo(
     () => ["grid", "axes", "bars", limitLayer(byId), "markers"] as const,
     [byId],
@@ -170,7 +170,10 @@ function TemperatureTable({ rows }: { rows: WindingTemperatureRow[] }) {
       <tbody className="divide-y divide-steel-100">
         {rows.map((r) => (
           <tr key={r.axisId}>
-            <Td>{r.label}</Td>
+            <Td>
+              {r.label}
+              <span className="block text-caption text-steel-600">{r.machineName}</span>
+            </Td>
             <Td className="whitespace-nowrap text-right tabular-nums">
               {formatTempC(r.beforeC)}
               {over(r.beforeOverLimit)}

@@ -33,7 +33,10 @@ export function inWords<T extends z.ZodType>(
   schema: T,
   kind: "number" | "amount" | "as-is" = "number",
 ) {
-  return z.unknown().transform((value, ctx): z.output<T> => {
+  // A preprocess, not a transform: an object then still treats a missing key as the inner
+  // schema does (its default, or optional). The inner schema checks the value once more after
+  // it passed here, which settles on the same value (numbers and decimal text parse to themselves).
+  return z.preprocess((value, ctx) => {
     // Null and blank text are "not given", whatever the kind.
     const given =
       value === null || (typeof value === "string" && value.trim() === "") ? undefined : value;
@@ -55,5 +58,5 @@ export function inWords<T extends z.ZodType>(
         path: issue.path,
       });
     return z.NEVER;
-  });
+  }, schema);
 }
