@@ -21,7 +21,7 @@ import { readTypedDecimal } from "@/lib/validations/typed-number";
 function SandboxDetail({ result, tariffPerKWh }: { result: CaseResult; tariffPerKWh: string }) {
   const lines = breakEvenLines(result, tariffPerKWh);
   return (
-    <div className="mt-5 grid gap-5" data-testid="what-if-detail">
+    <div className="mt-5 grid grid-cols-[minmax(0,1fr)] gap-5" data-testid="what-if-detail">
       <ValueBySourceTable result={result} />
       {lines ? (
         <dl aria-label="Break-even with your figures" className="divide-y divide-steel-100">
