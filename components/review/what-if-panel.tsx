@@ -182,7 +182,9 @@ export function WhatIfPanel({
           </Button>
           <p aria-live="polite" role="status" className="text-small font-bold text-danger-700">
             {whatIf.isError
-              ? (error?.message ?? "The sandbox could not be reached. Try again.")
+              ? error && Object.keys(error.fields).length > 0
+                ? "Check the figures marked above; nothing was computed."
+                : (error?.message ?? "The sandbox could not be reached. Try again.")
               : null}
           </p>
         </div>
