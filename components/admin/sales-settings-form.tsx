@@ -44,8 +44,8 @@ export function SalesSettingsForm({ values }: { values: SalesSettingsInput }) {
       >
         <Input
           id="discountThresholdPct"
-          type="number"
-          step="0.5"
+          type="text"
+          inputMode="decimal"
           className="w-40"
           invalid={!!errors.discountThresholdPct}
           {...register("discountThresholdPct")}
@@ -69,8 +69,8 @@ export function SalesSettingsForm({ values }: { values: SalesSettingsInput }) {
             >
               <Input
                 id={`p-${stage}`}
-                type="number"
-                step="1"
+                type="text"
+                inputMode="decimal"
                 invalid={!!errors.stageProbabilities?.[stage]}
                 {...register(`stageProbabilities.${stage}`)}
               />

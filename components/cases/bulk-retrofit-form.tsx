@@ -7,13 +7,13 @@ import { Input, Select } from "@/components/ui/field";
 import { StatusLine } from "@/components/installed-base/use-action-form";
 import { RETROFIT_LABELS } from "@/lib/validations/case";
 import { DiscountRule } from "./discount-rule";
+import { parseTypedNumber } from "@/lib/validations/typed-number";
 
 type Kit = { id: number; code: string; name: string; price: string; currency: string };
 
-// A number field left blank stays blank (unchanged); anything typed goes as a number, or as the
-// text itself when it is not one, so that the server's message names the field.
-const asNumber = (text: string) =>
-  text.trim() === "" ? "" : Number.isNaN(Number(text)) ? text : Number(text);
+// A number field left blank stays blank (unchanged); anything typed goes as typed: the server
+// reads "2,5" as 2.5 and names the field when it refuses (lib/validations/in-words.ts).
+const asTyped = (text: string) => text.trim();
 
 /**
  * Sets kit, discount, install hours and/or commissioning cost on every selected axis in one step;
@@ -41,7 +41,8 @@ export function BulkRetrofitForm({
   const [status, setStatus] = useState<{ tone: "ok" | "error"; text: string } | null>(null);
   const [pending, start] = useTransition();
   const count = selected.length;
-  const discountAbove = discount.trim() !== "" && Number(discount) > thresholdPct;
+  const typedDiscount = parseTypedNumber(discount);
+  const discountAbove = typedDiscount.ok && typedDiscount.value > thresholdPct;
 
   function apply(e: React.FormEvent) {
     e.preventDefault();
@@ -49,12 +50,12 @@ export function BulkRetrofitForm({
       const result = await setCaseAxesRetrofitAction(caseId, {
         axisIds: selected,
         kitId: kitId === "" ? "" : Number(kitId),
-        discountPct: asNumber(discount),
-        installHours: asNumber(hours),
+        discountPct: asTyped(discount),
+        installHours: asTyped(hours),
         commissioningCost: commissioning.trim(),
       });
       if (!result.ok) {
-        setStatus({ tone: "error", text: result.message });
+        setStatus({ tone: "error", text: Object.values(result.fieldErrors)[0] ?? result.message });
         return;
       }
       setKitId("");
@@ -104,10 +105,7 @@ export function BulkRetrofitForm({
           </label>
           <Input
             id="bulk-discount"
-            type="number"
-            step="any"
-            min={0}
-            max={100}
+            type="text"
             inputMode="decimal"
             value={discount}
             onChange={(e) => setDiscount(e.target.value)}
@@ -128,9 +126,7 @@ export function BulkRetrofitForm({
           </label>
           <Input
             id="bulk-hours"
-            type="number"
-            step="any"
-            min={0}
+            type="text"
             inputMode="decimal"
             value={hours}
             onChange={(e) => setHours(e.target.value)}

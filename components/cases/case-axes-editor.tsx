@@ -1,5 +1,6 @@
 "use client";
 
+import { parseTypedNumber } from "@/lib/validations/typed-number";
 import { useMemo, useState, useTransition } from "react";
 import { setAxisRetrofitAction, setCaseAxesAction } from "@/server/cases/actions";
 import { Button } from "@/components/ui/button";
@@ -111,18 +112,23 @@ export function CaseAxesEditor({
     };
     start(async () => {
       const result = await setAxisRetrofitAction(caseId, axis.axisId, terms);
-      setMessage(result.ok ? `Saved ${axis.label} (${axis.machineName}).` : result.message);
+      setMessage(
+        result.ok
+          ? `Saved ${axis.label} (${axis.machineName}).`
+          : `${axis.label} (${axis.machineName}): ${Object.values(result.fieldErrors)[0] ?? result.message}`,
+      );
       if (result.ok) {
         refresh();
       }
     });
   }
 
-  // A number typed into a row: blank or unchanged saves nothing; text that is not a number goes
-  // as it is, so that the server's message names the field.
+  // A number typed into a row: blank or unchanged saves nothing; anything else goes as typed, and
+  // the server reads "2,5" as 2.5 or names the field in its refusal (lib/validations/in-words.ts).
   function numberChange(axis: CaseAxis, key: "discountPct" | "installHours", text: string) {
-    if (text.trim() === "" || Number(text) === axis[key]) return;
-    saveRow(axis, { [key]: Number.isNaN(Number(text)) ? text : Number(text) } as Partial<Terms>);
+    const read = parseTypedNumber(text);
+    if (text.trim() === "" || (read.ok && read.value === axis[key])) return;
+    saveRow(axis, { [key]: text.trim() } as unknown as Partial<Terms>);
   }
 
   const name = (a: CaseAxis) => `${a.label} of ${a.machineName}`;
@@ -216,10 +222,8 @@ export function CaseAxesEditor({
                       // Remounted when the stored value moves (a bulk step), to show it.
                       key={a.discountPct}
                       id={`discount-${a.axisId}`}
-                      type="number"
-                      step="any"
-                      min={0}
-                      max={100}
+                      type="text"
+                      inputMode="decimal"
                       defaultValue={a.discountPct}
                       aria-describedby="discount-rule"
                       className="w-20 py-1 text-small"
@@ -239,9 +243,8 @@ export function CaseAxesEditor({
                   <Input
                     key={a.installHours}
                     id={`hours-${a.axisId}`}
-                    type="number"
-                    step="any"
-                    min={0}
+                    type="text"
+                    inputMode="decimal"
                     defaultValue={a.installHours}
                     className="w-24 py-1 text-small"
                     onBlur={(e) => numberChange(a, "installHours", e.target.value)}

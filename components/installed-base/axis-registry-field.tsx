@@ -3,6 +3,7 @@
 import type { FieldErrors, FieldValues, Path, UseFormRegister } from "react-hook-form";
 import { Field, Input, Select } from "@/components/ui/field";
 import { NumberField, TorqueField } from "@/components/ui/number-field";
+import { fieldMessage } from "@/components/ui/form-fields";
 import {
   AXIS_FIELDS,
   type AxisFieldGroup,
@@ -59,7 +60,7 @@ export function AxisRegistryField<T extends FieldValues>({
     );
   if (spec.kind === "text" || spec.kind === "money")
     return (
-      <Field id={id} label={spec.label} hint={spec.help} error={error}>
+      <Field id={id} label={spec.label} hint={spec.help} error={fieldMessage(error)}>
         <Input
           id={id}
           inputMode={spec.kind === "money" ? "decimal" : "text"}

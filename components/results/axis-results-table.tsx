@@ -67,7 +67,7 @@ function AxisResultRow({ row, showHolding }: { row: AxisRow; showHolding: boolea
       <Td className="min-w-44 align-top">
         <span className="font-bold">{row.label}</span>
         <span className="block text-caption text-steel-600">
-          {row.machineName} · {row.axisId}
+          {row.machineName}
           {row.quantity > 1 ? ` · ${row.quantity} units` : ""}
         </span>
         {row.warnings.length > 0 ? (

@@ -1,6 +1,6 @@
 import { Panel } from "@/components/ui/panel";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
-import { machineWarnings } from "@/lib/results/axis-rows";
+import { warningGroups } from "@/lib/results/axis-rows";
 import { namesById } from "@/lib/results/case-view";
 import { caseCautions } from "@/lib/results/warnings";
 
@@ -10,8 +10,9 @@ const NAMED_AXES = 8;
 /** The cautions of this case, as the proposal carries them; local codes and licensed practice prevail. */
 export function CautionsPanel({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
   const names = namesById(input);
-  const cautions = caseCautions(result, names.axis);
-  const machines = machineWarnings(result, input);
+  const cautions = caseCautions(result, (id) => names.axisWithMachine(id));
+  // A machine warning shared by several machines is one line naming them all, not one each.
+  const machines = warningGroups(result, input).filter((g) => g.scope === "machine");
   return (
     <Panel title="Cautions">
       <ul className="space-y-3">
@@ -35,17 +36,16 @@ export function CautionsPanel({ result, input }: { result: CaseResult; input: Pa
             </li>
           );
         })}
-        {machines.flatMap((m) =>
-          m.warnings.map((w) => (
-            <li
-              key={`${m.machineId}-${w.code}`}
-              className="rounded-md border-l-4 border-steel-400 bg-steel-50 py-1 pl-3"
-            >
-              <p className="font-bold text-steel-900">{m.name}</p>
-              <p className="text-small text-steel-900">{w.sentence}</p>
-            </li>
-          )),
-        )}
+        {machines.map((g) => (
+          <li key={g.code} className="rounded-md border-l-4 border-steel-400 bg-steel-50 py-1 pl-3">
+            <p className="font-bold text-steel-900">{g.title}</p>
+            <p className="text-small text-steel-900">{g.sentence}</p>
+            <p className="mt-1 text-small text-steel-800">
+              Concerns: {g.concerns.slice(0, NAMED_AXES).join(", ")}
+              {g.concerns.length > NAMED_AXES ? ` and ${g.concerns.length - NAMED_AXES} more` : ""}.
+            </p>
+          </li>
+        ))}
       </ul>
     </Panel>
   );

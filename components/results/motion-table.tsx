@@ -39,7 +39,7 @@ export function MotionTable({ result, input }: { result: CaseResult; input: Pars
         <tbody className="divide-y divide-steel-100">
           {rows.map((row) => (
             <tr key={row.axisId}>
-              <Td className="min-w-32 font-bold">{names.axis(row.axisId)}</Td>
+              <Td className="min-w-32 font-bold">{names.axisWithMachine(row.axisId)}</Td>
               <Td className="text-right tabular-nums">{formatNumber(row.speedRpm, 0)}</Td>
               <Td className="text-right tabular-nums">{formatNumber(row.loadTorqueNm, 3)}</Td>
               <Td className="text-right tabular-nums">{formatNumber(row.peakTorqueNm, 3)}</Td>

@@ -1,5 +1,6 @@
 "use client";
 
+import { namesById } from "@/lib/results/case-view";
 import { ResponsiveLine, type LineCustomSvgLayerProps } from "@nivo/line";
 import { useId, useMemo, useState } from "react";
 import { Field, Select } from "@/components/ui/field";
@@ -80,6 +81,7 @@ export function TorqueSpeedChart({ result, input }: { result: CaseResult; input:
     picked !== null && input.axes.some((a) => a.id === picked) ? picked : (input.axes[0]?.id ?? "");
   const axis = input.axes.find((a) => a.id === axisId);
   const axisResult = result.axes.find((a) => a.id === axisId);
+  const names = useMemo(() => namesById(input), [input]);
   const view = useMemo(
     () =>
       axis
@@ -115,7 +117,7 @@ export function TorqueSpeedChart({ result, input }: { result: CaseResult; input:
             <Select id={selectId} value={axisId} onChange={(e) => setPicked(e.target.value)}>
               {input.axes.map((a) => (
                 <option key={a.id} value={a.id}>
-                  {a.label} ({a.id})
+                  {names.axisWithMachine(a.id, a.machineId)}
                 </option>
               ))}
             </Select>
@@ -181,7 +183,7 @@ export function TorqueSpeedChart({ result, input }: { result: CaseResult; input:
             </div>
           )}
           role="img"
-          ariaLabel={`Torque against speed of axis ${axis.label}`}
+          ariaLabel={`Torque against speed of axis ${names.axisWithMachine(axis.id, axis.machineId)}`}
         />
       )}
     </ChartPanel>

@@ -76,7 +76,7 @@ export function WindingTemperatureChart({
   const rows = useMemo(() => windingTemperatures(result, input), [result, input]);
   const shown = useMemo(() => [...rows].sort(hottestFirst).slice(0, CHART_AXES), [rows]);
   const byId = useMemo(() => new Map(shown.map((r) => [r.axisId, r])), [shown]);
-  const labelOf = (id: string) => byId.get(id)?.label ?? id;
+  const labelOf = (id: string) => byId.get(id)?.name ?? "";
   const layers = useMemo(
     () => ["grid", "axes", "bars", limitLayer(byId), "markers"] as const,
     [byId],
@@ -91,12 +91,19 @@ export function WindingTemperatureChart({
     ]),
     40,
   );
-  const crowded = shown.length > 6;
+  // Ticks name the axis with its machine ("Backing rewind (Labeler 02)"), about 6 px a character
+  // at the tick's size. Slanted when they would not fit side by side on a phone's width, with
+  // margins that grow with the longest name so that every tick stays whole.
+  const longest = Math.max(0, ...shown.map((r) => r.name.length)) * 6;
+  const crowded = shown.length > 6 || shown.length * longest > 300;
+  const slant = Math.PI / 4;
+  const bottom = crowded ? Math.ceil(24 + longest * Math.sin(slant)) : 56;
+  const left = crowded ? Math.max(64, Math.ceil(longest * Math.cos(slant)) - 12) : 64;
   return (
     <ChartPanel
       title="Winding temperature before and after"
       description={`Steady winding temperature over the duty mix, estimated from datasheet values, not measured; the dashed line on each bar is the limit of that motor's insulation class (IEC 60085).${rows.length > CHART_AXES ? ` The chart shows the ${CHART_AXES} hottest of ${rows.length} axes; the table lists all.` : ""}`}
-      height={crowded ? 380 : 320}
+      height={crowded ? 260 + bottom : 320}
       legend={
         <div className="flex flex-wrap gap-x-5 gap-y-1">
           <SwatchLegend
@@ -120,7 +127,7 @@ export function WindingTemperatureChart({
         layers={layers}
         theme={chartTheme}
         colors={[CHART_COLORS.openLoop, CHART_COLORS.closedLoop]}
-        margin={{ top: 16, right: 16, bottom: crowded ? 110 : 56, left: 64 }}
+        margin={{ top: 16, right: 16, bottom, left }}
         padding={0.3}
         innerPadding={2}
         valueScale={{ type: "linear", min: 0, max: Math.ceil((top * 1.08) / 10) * 10 }}
@@ -128,9 +135,9 @@ export function WindingTemperatureChart({
         animate={false}
         axisBottom={{
           legend: "Axis",
-          legendOffset: crowded ? 96 : 42,
+          legendOffset: bottom - 12,
           legendPosition: "middle",
-          tickRotation: crowded ? -35 : 0,
+          tickRotation: crowded ? -45 : 0,
           format: (id) => labelOf(String(id)),
         }}
         axisLeft={{
@@ -170,7 +177,10 @@ function TemperatureTable({ rows }: { rows: WindingTemperatureRow[] }) {
       <tbody className="divide-y divide-steel-100">
         {rows.map((r) => (
           <tr key={r.axisId}>
-            <Td>{r.label}</Td>
+            <Td>
+              {r.label}
+              <span className="block text-caption text-steel-600">{r.machineName}</span>
+            </Td>
             <Td className="whitespace-nowrap text-right tabular-nums">
               {formatTempC(r.beforeC)}
               {over(r.beforeOverLimit)}

@@ -14,12 +14,14 @@ import Decimal from "decimal.js";
 import { Term } from "@/components/ui/term";
 import { ValueBySourceTable } from "@/components/results/value-by-source-table";
 import { breakEvenLines } from "@/lib/results/engine-v2";
+import type { WhatIfRequest } from "@/lib/validations/what-if";
+import { readTypedDecimal } from "@/lib/validations/typed-number";
 
 /** Where the sandbox's value comes from and where it breaks even, for the reviewer's figures. */
 function SandboxDetail({ result, tariffPerKWh }: { result: CaseResult; tariffPerKWh: string }) {
   const lines = breakEvenLines(result, tariffPerKWh);
   return (
-    <div className="mt-5 grid gap-5" data-testid="what-if-detail">
+    <div className="mt-5 grid grid-cols-[minmax(0,1fr)] gap-5" data-testid="what-if-detail">
       <ValueBySourceTable result={result} />
       {lines ? (
         <dl aria-label="Break-even with your figures" className="divide-y divide-steel-100">
@@ -84,19 +86,19 @@ const FACTORS: SandboxFactors = {
   extraOutputFactor: "1",
 };
 
-function toRequest(values: Record<SandboxKey, string>) {
-  const number = (v: string) => (v.trim() === "" ? undefined : Number(v));
-  return {
-    tariffPerKWh: values.tariffPerKWh.trim() || undefined,
-    tariffEscalationPct: number(values.tariffEscalationPct),
-    discountRatePct: number(values.discountRatePct),
-    horizonYears: number(values.horizonYears),
-    taxRatePct: number(values.taxRatePct),
-    runningHoursFactor: number(values.runningHoursFactor),
-    stepLossEventsFactor: number(values.stepLossEventsFactor),
-    costPerEventFactor: number(values.costPerEventFactor),
-    extraOutputFactor: number(values.extraOutputFactor),
-  };
+// Sent as typed: the route reads "0,24" as 0.24 and words a refusal with the field's name
+// (lib/validations/in-words.ts); a blank box is the proposal's own figure.
+function toRequest(values: Record<SandboxKey, string>): WhatIfRequest {
+  const typed = (v: string) => (v.trim() === "" ? undefined : v.trim());
+  return Object.fromEntries(
+    (Object.keys(values) as SandboxKey[]).map((key) => [key, typed(values[key])]),
+  ) as WhatIfRequest;
+}
+
+/** The tariff the reviewer computed with, as decimal text, for the break-even lines. */
+function sentTariff(text: string, proposal: string): string {
+  const read = readTypedDecimal(text);
+  return read.ok ? read.text : proposal;
 }
 
 /**
@@ -124,6 +126,7 @@ export function WhatIfPanel({
   };
   const initial = inProposal;
   const [values, setValues] = useState(initial);
+  const [computedTariff, setComputedTariff] = useState(finance.tariffPerKWh);
   const whatIf = useWhatIf(proposalId);
   const error = whatIf.error instanceof WhatIfError ? whatIf.error : null;
   const currency = proposal.currency;
@@ -140,6 +143,7 @@ export function WhatIfPanel({
         aria-label="What-if figures"
         onSubmit={(e) => {
           e.preventDefault();
+          setComputedTariff(sentTariff(values.tariffPerKWh, finance.tariffPerKWh));
           whatIf.mutate(toRequest(values));
         }}
         className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4"
@@ -155,9 +159,8 @@ export function WhatIfPanel({
           >
             <Input
               id={`what-if-${f.key}`}
-              type="number"
+              type="text"
               inputMode="decimal"
-              step={f.step}
               value={values[f.key]}
               invalid={!!error?.fields[f.key]}
               onChange={(e) => setValues((v) => ({ ...v, [f.key]: e.target.value }))}
@@ -179,7 +182,9 @@ export function WhatIfPanel({
           </Button>
           <p aria-live="polite" role="status" className="text-small font-bold text-danger-700">
             {whatIf.isError
-              ? (error?.message ?? "The sandbox could not be reached. Try again.")
+              ? error && Object.keys(error.fields).length > 0
+                ? "Check the figures marked above; nothing was computed."
+                : (error?.message ?? "The sandbox could not be reached. Try again.")
               : null}
           </p>
         </div>
@@ -260,12 +265,7 @@ export function WhatIfPanel({
           </p>
         ) : null}
       </div>
-      {mine ? (
-        <SandboxDetail
-          result={mine}
-          tariffPerKWh={toRequest(values).tariffPerKWh ?? finance.tariffPerKWh}
-        />
-      ) : null}
+      {mine ? <SandboxDetail result={mine} tariffPerKWh={computedTariff} /> : null}
     </Panel>
   );
 }

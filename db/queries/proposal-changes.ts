@@ -81,7 +81,8 @@ function namesOf(items: string[]): string {
 }
 
 function axisName(axis: AxisInput, machines: Map<string, string>) {
-  return `${axis.label} (${machines.get(axis.machineId) ?? `machine ${axis.machineId}`})`;
+  // A machine the version does not name is described, never shown by its record id.
+  return `${axis.label} (${machines.get(axis.machineId) ?? "a machine no longer in the case"})`;
 }
 
 // Everything of an axis but its retrofit: what the installed base says about it. (A key set to

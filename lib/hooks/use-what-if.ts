@@ -1,6 +1,6 @@
 import { useMutation } from "@tanstack/react-query";
 import type { CaseResult } from "@/lib/engine";
-import type { WhatIfInput } from "@/lib/validations/what-if";
+import type { WhatIfRequest } from "@/lib/validations/what-if";
 
 export const whatIfKeys = {
   run: (proposalId: number) => ["proposals", String(proposalId), "what-if"] as const,
@@ -21,7 +21,7 @@ export class WhatIfError extends Error {
 export function useWhatIf(proposalId: number) {
   return useMutation({
     mutationKey: whatIfKeys.run(proposalId),
-    mutationFn: async (values: WhatIfInput): Promise<CaseResult> => {
+    mutationFn: async (values: WhatIfRequest): Promise<CaseResult> => {
       const response = await fetch(`/api/v1/proposals/${proposalId}/what-if`, {
         method: "POST",
         headers: { "content-type": "application/json", accept: "application/json" },

@@ -1,6 +1,7 @@
 import type { ImportField } from "./fields";
 import { boundMessages } from "@/lib/engine/schema-fields";
 import { toSi } from "./units";
+import { readTypedDecimal } from "@/lib/validations/typed-number";
 
 /** A cell's value in the field's SI unit, or what is wrong with it and how to fix it. */
 export type CellResult =
@@ -10,51 +11,43 @@ const YES = new Set(["yes", "y", "true", "1", "x"]);
 const NO = new Set(["no", "n", "false", "0"]);
 
 const PLAIN_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
-const DECIMAL_COMMA = /^([+-]?)(\d+),(\d+)$/;
 const GROUPED = /^[+-]?\d{1,3}(?:[,.'\u00a0\u202f ]\d{3})+(?:[.,]\d+)?$/;
 const NUMBER_THEN_TEXT = /^[+-]?(?:\d+[.,]?\d*|[.,]\d+)\s*[^\d\s.,]\S*$/;
 const FORMULA_START = /^[=+\-@]/;
-const MONEY = /^\+?(\d+)(?:[.,](\d*))?$|^\+?[.,](\d+)$/;
-const NEGATIVE_MONEY = /^-(?:\d+(?:[.,]\d*)?|[.,]\d+)$/;
+const NEGATIVE = /^[-\u2212]/;
 
 /** Longest name a machine or an axis label may have, as in the forms (lib/validations). */
 export const MAX_NAME_LENGTH = 120;
 
 /**
- * "1,5" is read as 1.5 when the comma cannot be a thousands separator: one comma, digits on
- * both sides, and not the shape 1–3 digits (no leading zero) + 3 digits — "1,500" could be either
- * 1.5 or 1500 and is refused with a message, while "0,450", "1,5" and "12,75" are decimals.
+ * "1,500" could be 1.5 or 1500 (lib/validations/typed-number.ts reads numbers for the forms, the
+ * server's schemas and these cells alike), while "0,450", "1,5" and "12,75" are decimals.
  */
 export function isAmbiguousDecimalComma(text: string): boolean {
-  const match = DECIMAL_COMMA.exec(text.trim());
-  return match !== null && match[3].length === 3 && /^[1-9]\d{0,2}$/.test(match[2]);
+  const read = readTypedDecimal(text);
+  return !read.ok && read.reason === "ambiguous";
 }
 
 type NumberText =
-  { ok: true; value: number } | { ok: false; reason: "blank" | "not-a-number"; message?: string };
+  | { ok: true; value: number }
+  | { ok: false; reason: "blank" | "not-a-number" | "ambiguous"; message?: string };
 
-/** A number as typed, before units and bounds; the reason says how to explain a refusal. */
+/**
+ * A number as typed, before units and bounds; the reason says how to explain a refusal. A
+ * decimal comma and grouped thousands are read as the forms read them ("1.234,5" is 1234.5).
+ */
 export function parseNumberText(raw: string): NumberText {
   const text = raw.trim();
   if (text === "") return { ok: false, reason: "blank" };
-  if (PLAIN_NUMBER.test(text)) {
-    const value = Number(text);
+  // Most cells are plain numbers: settled without the general reader.
+  const read = PLAIN_NUMBER.test(text) ? { ok: true as const, text } : readTypedDecimal(text);
+  if (read.ok) {
+    const value = Number(read.text);
     return Number.isFinite(value)
       ? { ok: true, value }
       : { ok: false, reason: "not-a-number", message: `"${text}" is too large` };
   }
-  const comma = DECIMAL_COMMA.exec(text);
-  if (comma !== null) {
-    if (isAmbiguousDecimalComma(text)) {
-      return {
-        ok: false,
-        reason: "not-a-number",
-        message: `"${text}" could be ${Number(`${comma[1]}${comma[2]}.${comma[3]}`)} or ${comma[1]}${comma[2]}${comma[3]}; write it with a decimal point and no thousands separator`,
-      };
-    }
-    return { ok: true, value: Number(`${comma[1]}${comma[2]}.${comma[3]}`) };
-  }
-  return { ok: false, reason: "not-a-number" };
+  return { ok: false, reason: read.reason === "ambiguous" ? "ambiguous" : "not-a-number" };
 }
 
 const lower = (field: ImportField) => field.label.charAt(0).toLowerCase() + field.label.slice(1);
@@ -63,6 +56,12 @@ const lower = (field: ImportField) => field.label.charAt(0).toLowerCase() + fiel
 function entering(field: ImportField, unit: string): string {
   const what = field.key === "machine" ? "machine name" : lower(field);
   return unit === "" ? `the ${what}` : `the ${what} in ${unit}`;
+}
+
+/** "1,500": both readings, and the field to write it for (lib/validations/typed-number.ts). */
+function ambiguousMessage(field: ImportField, text: string, unit: string): string {
+  const [whole, fraction] = text.replace(/^\+/, "").split(",");
+  return `"${text}" could be ${Number(`${whole}.${fraction}`)} or ${whole}${fraction}; write ${entering(field, unit)} with a decimal point and no thousands separator`;
 }
 
 function notANumberMessage(field: ImportField, text: string, unit: string, header: string): string {
@@ -150,7 +149,11 @@ export function parseCell(
       if (!parsed.ok)
         return {
           ok: false,
-          message: parsed.message ?? notANumberMessage(field, text, unit, header),
+          message:
+            parsed.message ??
+            (parsed.reason === "ambiguous"
+              ? ambiguousMessage(field, text, unit)
+              : notANumberMessage(field, text, unit, header)),
         };
       if (field.type === "int" && !Number.isInteger(parsed.value)) {
         return {
@@ -167,22 +170,28 @@ export function parseCell(
 
 /**
  * Money as a decimal string, by pattern only (docs/model.md: money never passes through a JS
- * number). Normalised to digits and one decimal point: "+012,50" → "12.50", "7." → "7".
+ * number), read as the forms read it (lib/validations/typed-number.ts). Normalised to digits and
+ * one decimal point: "+012,50" → "12.50", "7." → "7", "1.234,50" → "1234.50".
  */
 function parseMoney(field: ImportField, text: string): CellResult {
-  if (NEGATIVE_MONEY.test(text))
+  const read = /e/i.test(text) ? null : readTypedDecimal(text);
+  if (read?.ok && NEGATIVE.test(read.text)) {
+    // "-0" and "-0.00" are nothing, not a refund.
+    if (!/[1-9]/.test(read.text)) return { ok: true, value: "0" };
     return { ok: false, message: `must be at least 0 (received ${text})` };
-  const match = MONEY.exec(text);
-  if (match === null || (text.includes(",") && isAmbiguousDecimalComma(text.replace(/^\+/, "")))) {
+  }
+  if (read === null || !read.ok) {
+    if (read?.reason === "ambiguous")
+      return { ok: false, message: ambiguousMessage(field, text, "") };
     const why = FORMULA_START.test(text)
       ? "looks like a formula, and formulas are not evaluated"
       : "is not an amount";
     return {
       ok: false,
-      message: `"${text}" ${why}; enter ${entering(field, "")} as a number such as 12.50, in the site's currency, without a currency sign or thousands separator`,
+      message: `"${text}" ${why}; enter ${entering(field, "")} as a number such as 12.50, in the site's currency, without a currency sign`,
     };
   }
-  const whole = (match[1] ?? "0").replace(/^0+(?=\d)/, "");
-  const fraction = match[2] ?? match[3] ?? "";
-  return { ok: true, value: fraction === "" ? whole : `${whole}.${fraction}` };
+  const [whole, fraction = ""] = read.text.split(".");
+  const digits = whole.replace(/^0+(?=\d)/, "") || "0";
+  return { ok: true, value: fraction === "" ? digits : `${digits}.${fraction}` };
 }

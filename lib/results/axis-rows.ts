@@ -69,7 +69,7 @@ export function warningGroups(result: CaseResult, input: ParsedCase | null): War
   };
   for (const axis of result.axes) {
     // Axis labels repeat from machine to machine ("Backing rewind"); the machine tells them apart.
-    const name = `${names.axis(axis.id)} (${names.machine(axis.machineId)})`;
+    const name = names.axisWithMachine(axis.id, axis.machineId);
     for (const w of axis.warnings) add(w, name, "axis");
   }
   for (const machine of result.machines)

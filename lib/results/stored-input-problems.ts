@@ -3,6 +3,8 @@ import { caseInputSchema, formatPath, type CaseInput, type ParsedCase } from "@/
 import { StoredInputError } from "@/lib/errors";
 import { FIELD_BOUNDS, type FieldBound } from "@/lib/engine/schema-fields";
 import { importField } from "@/lib/import/fields";
+import { KIT_FIELDS } from "@/lib/fields";
+import { RETROFIT_LABELS } from "@/lib/validations/case";
 
 /**
  * A stored value of a case that the engine's bounds refuse: typically one saved before the
@@ -25,7 +27,7 @@ export interface StoredInputProblem {
   allowed: string | null;
   /** The engine's own message, e.g. "must be at least -40 °C". */
   message: string;
-  /** The page where the value is corrected, and what to do there. */
+  /** The page where the value is corrected (a link beside the text, never in it), and what to do there. */
   fixAt: { href: string; what: string };
   /** One sentence with all of the above. */
   text: string;
@@ -79,6 +81,35 @@ function valueAt(input: unknown, path: readonly PropertyKey[]): unknown {
 
 const quoted = (name: string) => `"${name}"`;
 
+// The names the forms give the fields that are not import columns (components/cases/assumptions-form.tsx,
+// components/installed-base/machine-form.tsx): a message names a field as the page that corrects it does.
+const MACHINE_FIELD_LABELS: Record<string, string> = {
+  downtimeHours: "Downtime for the retrofit",
+  throughputGainPct: "Throughput gain the customer will use",
+  marginPerOutputHour: "Margin per output hour",
+};
+const CASE_FIELD_LABELS: Record<string, string> = {
+  "finance.tariffPerKWh": "Electricity tariff",
+  "finance.tariffEscalationPct": "Tariff escalation",
+  "finance.discountRatePct": "Discount rate",
+  "finance.horizonYears": "Horizon",
+  "finance.inflationPct": "Inflation",
+  "finance.taxRatePct": "Tax rate",
+  "finance.coolingCop": "Cabinet cooler COP",
+  "finance.gridKgCo2PerKWh": "Grid CO₂ factor",
+  "thermal.lifeHalvingK": "Insulation life halves every",
+  "band.lowPct": "Energy-gain band, low",
+  "band.highPct": "Energy-gain band, high",
+};
+
+/** A field's name in words when no label is known: "installHours" reads "install hours". */
+const words = (key: string) =>
+  key
+    .split(".")
+    .pop()!
+    .replace(/([a-z])([A-Z])/g, "$1 $2")
+    .toLowerCase();
+
 /** One problem per issue of the engine's schema on a case built from stored rows. */
 export function storedInputProblems(
   caseId: number,
@@ -107,14 +138,16 @@ export function storedInputProblems(
       const rest = path.slice(2);
       if (rest[0] === "retrofit" && rest[1] === "kit") {
         const kit = row?.retrofit.kit;
-        field = `kit ${kit ? `${kit.id} ` : ""}${rest.slice(2).map(String).join(".")}`;
+        const kitKey = String(rest[2] ?? "");
+        const kitLabel = (KIT_FIELDS as Record<string, { label: string }>)[kitKey]?.label;
+        field = `${kitLabel ?? words(kitKey)} of kit ${kit ? quoted(kit.id) : ""}`.trim();
         fixAt = {
           href: "/catalogue",
           what: `correct the kit ${kit?.id ?? ""} in the catalogue, or pick another kit for this axis on the case's page`,
         };
       } else if (rest[0] === "retrofit") {
         const name = String(rest[1]);
-        field = `retrofit ${name}`;
+        field = (RETROFIT_LABELS as Record<string, string>)[name] ?? `retrofit ${words(name)}`;
         const bound = CASE_FIELD_BOUNDS[name];
         allowed = bound ? allowedRange(bound) : null;
         fixAt = { href: casePage, what: "correct the axis's retrofit terms on the case's page" };
@@ -145,7 +178,7 @@ export function storedInputProblems(
       const row = input.machines[path[1]];
       machine = row?.name ?? null;
       const name = String(path[2]);
-      field = `machine ${name}`;
+      field = MACHINE_FIELD_LABELS[name] ?? words(name);
       const bound = CASE_FIELD_BOUNDS[name];
       allowed = bound ? allowedRange(bound) : null;
       fixAt = {
@@ -154,7 +187,7 @@ export function storedInputProblems(
       };
     } else {
       const name = path.map(String).join(".");
-      field = `assumption ${name}`;
+      field = CASE_FIELD_LABELS[name] ?? `assumption ${words(name)}`;
       const bound = CASE_FIELD_BOUNDS[name];
       allowed = bound ? allowedRange(bound) : null;
       fixAt = { href: casePage, what: "correct the case's assumptions on the case's page" };
@@ -168,7 +201,7 @@ export function storedInputProblems(
       .join(", ");
     const text =
       `${where ? `${where}: ` : ""}${field} is ${shown}; it ${issue.message}` +
-      `${allowed ? ` (allowed: ${allowed})` : ""}; ${fixAt.what} (${fixAt.href}).`;
+      `${allowed ? ` (allowed: ${allowed})` : ""}; ${fixAt.what}.`;
     return {
       machine,
       axis,

@@ -8,6 +8,9 @@ type InsulationClass = keyof typeof INSULATION_CLASS_LIMIT_C;
 export interface WindingTemperatureRow {
   axisId: string;
   label: string;
+  machineName: string;
+  /** "Z lift (Press 2)": how charts name the axis among those of other machines. */
+  name: string;
   /** Open loop today; null under thermal runaway (no steady state). */
   beforeC: number | null;
   afterC: number | null;
@@ -36,6 +39,8 @@ export function windingTemperatures(
     return {
       axisId: axis.id,
       label: names.axis(axis.id),
+      machineName: names.machine(axis.machineId),
+      name: names.axisWithMachine(axis.id, axis.machineId),
       beforeC: axis.openLoop.windingTempC,
       afterC: axis.closedLoop.windingTempC,
       dropK: axis.savings.tempDropK,

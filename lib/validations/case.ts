@@ -2,6 +2,7 @@ import { z } from "zod";
 import { idSchema } from "@/lib/validations/ids";
 import { caseInputSchema } from "../engine/schema";
 import { bounded, money, pct } from "../engine/schema-fields";
+import { inWords } from "./in-words";
 
 // The engine's own sub-schemas, taken from its CaseInput schema so that a case's stored
 // assumptions are validated — and defaulted — exactly as the engine will validate them.
@@ -39,14 +40,6 @@ export const caseAxesSchema = z.object({
     .transform((ids) => [...new Set(ids)]),
 });
 
-export const axisRetrofitSchema = z.object({
-  kitId: recordId,
-  discountPct: pct().default(0),
-  installHours: bounded("installHours").default(0),
-  commissioningCost: money().default("0"),
-  maintenanceSavingPerYear: money().default("0"),
-});
-
 // The retrofit terms by name, for messages and the table's labels.
 export const RETROFIT_LABELS = {
   kitId: "Kit",
@@ -56,22 +49,40 @@ export const RETROFIT_LABELS = {
   maintenanceSavingPerYear: "Maintenance saving a year",
 } as const;
 
+// Each term as the case's axis table takes it: typed text is read as a person writes it ("0,5"),
+// and messages name the term (lib/validations/in-words.ts).
+export const axisRetrofitSchema = z.object({
+  kitId: recordId,
+  discountPct: inWords(RETROFIT_LABELS.discountPct, "5", pct().default(0)),
+  installHours: inWords(RETROFIT_LABELS.installHours, "2.5", bounded("installHours").default(0)),
+  commissioningCost: inWords(
+    RETROFIT_LABELS.commissioningCost,
+    "120.00",
+    money().default("0"),
+    "amount",
+  ),
+  maintenanceSavingPerYear: inWords(
+    RETROFIT_LABELS.maintenanceSavingPerYear,
+    "40.00",
+    money().default("0"),
+    "amount",
+  ),
+});
+
 /**
  * A field a bulk step may leave blank (unchanged): blank is undefined; any other value must pass
  * the field's own schema, and each of its messages starts with the field's name, so "must be at
  * most 100" reads "Discount % must be at most 100" wherever it is shown.
  */
-function blankOr<T extends z.ZodType>(label: string, schema: T) {
-  // optional(): a missing key skips the transform (zod asks for the key otherwise).
-  const field = z.unknown().transform((value, ctx): z.output<T> | undefined => {
-    if (value === undefined || value === null || value === "") return undefined;
-    const parsed = schema.safeParse(value);
-    if (parsed.success) return parsed.data;
-    for (const issue of parsed.error.issues)
-      ctx.addIssue({ code: "custom", message: `${label} ${issue.message}`, path: issue.path });
-    return z.NEVER;
-  });
-  return field.optional();
+function blankOr<T extends z.ZodType>(
+  label: string,
+  example: string,
+  schema: T,
+  kind: "number" | "amount" | "id" = "number",
+) {
+  // An id is never typed with a comma; the others are read as a person writes them. Null and
+  // blank text are "not given"; optional(): a missing key stays missing.
+  return inWords(label, example, schema.optional(), kind === "id" ? "as-is" : kind).optional();
 }
 
 // One step over many axes of a case: the fields given are set on every selected axis, the
@@ -83,10 +94,15 @@ export const bulkRetrofitSchema = z
       .min(1, "Select at least one axis")
       .max(100000, "A case holds at most 100000 axes")
       .transform((ids) => [...new Set(ids)]),
-    kitId: blankOr(RETROFIT_LABELS.kitId, idSchema("must be a kit of the catalogue")),
-    discountPct: blankOr(RETROFIT_LABELS.discountPct, pct()),
-    installHours: blankOr(RETROFIT_LABELS.installHours, bounded("installHours")),
-    commissioningCost: blankOr(RETROFIT_LABELS.commissioningCost, money()),
+    kitId: blankOr(
+      RETROFIT_LABELS.kitId,
+      "a kit",
+      idSchema("must be a kit of the catalogue"),
+      "id",
+    ),
+    discountPct: blankOr(RETROFIT_LABELS.discountPct, "5", pct()),
+    installHours: blankOr(RETROFIT_LABELS.installHours, "2.5", bounded("installHours")),
+    commissioningCost: blankOr(RETROFIT_LABELS.commissioningCost, "120.00", money(), "amount"),
   })
   .refine(
     (v) =>

@@ -10,6 +10,7 @@ import {
   ranged,
 } from "@/lib/engine/schema-fields";
 import { AXIS_FIELDS as A, KIT_FIELDS as K } from "@/lib/fields";
+import { typedAmount } from "./typed-number";
 
 const optional = <T extends z.ZodType>(schema: T) =>
   z.preprocess((v) => (v === "" || v === undefined ? null : v), schema.nullable());
@@ -45,7 +46,8 @@ export const motorInputSchema = z.object({
 export const kitInputSchema = z.object({
   code,
   name,
-  price: money(),
+  // "189,00" is read as 189.00, as a person types it (lib/validations/typed-number.ts).
+  price: typedAmount("Price per axis", money()),
   currency: z
     .string()
     .trim()

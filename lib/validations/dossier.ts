@@ -1,24 +1,35 @@
 import { z } from "zod";
 import { idSchema } from "@/lib/validations/ids";
 import { currencyMinorUnits } from "../engine/money";
+import { inWords } from "./in-words";
+import { typedAmount } from "./typed-number";
 
 /**
  * The uncertainty analysis of a dossier: a range for each driver, in % of the case's own value,
  * and the seed that makes the 1,000 draws repeatable. The default ranges are estimates, not
  * published figures: the engineer replaces them with what they know of the customer's site.
  */
-const pctBound = z.coerce
-  .number({ error: "Enter a number" })
-  .refine(Number.isFinite, "Enter a number")
-  .min(-90, "must be at least −90 % (a factor below 0.1 is no longer an estimate)")
-  .max(300, "must be at most +300 %");
+const pctBound = (label: string, example: string) =>
+  inWords(
+    label,
+    example,
+    z
+      .number()
+      .min(-90, "must be at least −90 % (a factor below 0.1 is no longer an estimate)")
+      .max(300, "must be at most +300 %"),
+  );
 
-const range = z
-  .object({ lowPct: pctBound, highPct: pctBound })
-  .refine((r) => r.lowPct <= r.highPct, {
-    message: "The low end must not be above the high end",
-    path: ["highPct"],
-  });
+// Each end is named with its driver, as the form's fieldsets say it; "0,5" is read as 0.5.
+const range = (driver: string) =>
+  z
+    .object({
+      lowPct: pctBound(`${driver}, low end`, "-20"),
+      highPct: pctBound(`${driver}, high end`, "30"),
+    })
+    .refine((r) => r.lowPct <= r.highPct, {
+      message: "The low end must not be above the high end",
+      path: ["highPct"],
+    });
 
 export const UNCERTAINTY_DRIVERS = [
   "tariff",
@@ -31,15 +42,19 @@ export type UncertaintyDriver = (typeof UNCERTAINTY_DRIVERS)[number];
 export const MAX_SEED = 2 ** 31 - 1;
 
 export const uncertaintySettingsSchema = z.object({
-  seed: z.coerce
-    .number({ error: "Enter a whole number" })
-    .int("The seed is a whole number")
-    .min(0, "The seed is at least 0")
-    .max(MAX_SEED, `The seed is at most ${MAX_SEED}`),
-  tariff: range,
-  hoursPerYear: range,
-  loadTorque: range,
-  stepLossEvents: range,
+  seed: inWords(
+    "Seed",
+    "12345",
+    z
+      .number()
+      .int("The seed is a whole number")
+      .min(0, "The seed is at least 0")
+      .max(MAX_SEED, `The seed is at most ${MAX_SEED}`),
+  ),
+  tariff: range("Electricity tariff"),
+  hoursPerYear: range("Running hours per year"),
+  loadTorque: range("Load torque"),
+  stepLossEvents: range("Step-loss events"),
 });
 
 export type UncertaintySettings = z.output<typeof uncertaintySettingsSchema>;
@@ -56,14 +71,18 @@ export const DEFAULT_RANGES: Omit<UncertaintySettings, "seed"> = {
 /** The dossier's price as the administrator sets it: a decimal amount and an ISO 4217 code. */
 export const dossierPriceSchema = z
   .object({
-    amount: z
-      .string({ error: "Enter the price" })
-      .trim()
-      .regex(
-        /^\d{1,7}(\.\d{1,2})?$/,
-        "Enter an amount such as 490 or 490.00 (at most two decimals)",
-      )
-      .refine((v) => Number(v) > 0, "The price must be above 0"),
+    // "490,00" is read as 490.00 (lib/validations/typed-number.ts); the text stays a decimal.
+    amount: typedAmount(
+      "Price",
+      z
+        .string({ error: "Enter the price" })
+        .trim()
+        .regex(
+          /^\d{1,7}(\.\d{1,2})?$/,
+          "Enter an amount such as 490 or 490.00 (at most two decimals)",
+        )
+        .refine((v) => Number(v) > 0, "The price must be above 0"),
+    ),
     currency: z
       .string({ error: "Enter a currency" })
       .trim()

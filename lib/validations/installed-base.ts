@@ -10,6 +10,7 @@ import {
 } from "@/lib/engine/schema-fields";
 import { AXIS_FIELDS } from "@/lib/fields";
 import { listParamsSchema } from "@/lib/lists/list-params";
+import { typedAmount } from "./typed-number";
 import { axisInputSchema as engineAxisSchema, stepLossEventSchema } from "@/lib/engine/schema";
 
 // Shared by the forms, the server actions, the API and the importer. Values are stored in SI
@@ -24,7 +25,7 @@ export const siteInputSchema = z.object({
     .trim()
     .toUpperCase()
     .regex(/^[A-Z]{3}$/, "Use a three-letter ISO 4217 code such as EUR"),
-  tariffPerKWh: money(),
+  tariffPerKWh: typedAmount("Electricity tariff", money()),
   gridKgCo2PerKWh: bounded("gridKgCo2PerKWh").default(0),
   // The site's ambient and hours are the defaults of its axes' fields of the same name.
   ambientC: numberField(AXIS_FIELDS.ambientC),
@@ -43,14 +44,20 @@ export const machineInputSchema = z.object({
     .transform((v) => v || null),
   downtimeHours: bounded("downtimeHours").default(0),
   throughputGainPct: pct().default(0),
-  marginPerOutputHour: money().default("0"),
+  marginPerOutputHour: typedAmount("Margin per output hour", money().default("0")),
 });
 
 const A = AXIS_FIELDS;
 
 // Built from the registry (lib/fields/axis.ts): every axis field with its range, choices and
 // default, so that a field added there is on the form and the API with no edit here.
-export const axisFieldsSchema = z.object(formShape(A));
+// Amounts are typed as text, so "250,00" is read here as the number fields are read on the form
+// (lib/validations/typed-number.ts); the engine's JSON contract keeps its decimal point.
+const axisShape = formShape(A);
+export const axisFieldsSchema = z.object({
+  ...axisShape,
+  costPerEvent: typedAmount(A.costPerEvent.label, axisShape.costPerEvent),
+});
 
 export function checkAxisConsistency(
   a: { movePct: number; holdPct: number; loadTorqueNm: number; peakTorqueNm: number },

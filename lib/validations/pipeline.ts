@@ -2,27 +2,34 @@ import { displayName } from "./display-name";
 import { z } from "zod";
 import { listParamsSchema } from "@/lib/lists/list-params";
 import { idSchema } from "@/lib/validations/ids";
-import { QUOTE_STAGES } from "@/lib/pipeline/stages";
+import { QUOTE_STAGES, STAGE_LABELS } from "@/lib/pipeline/stages";
 import { GROUP_SORTS, type QuoteSort } from "@/lib/pipeline/sort-quotes";
+import { inWords } from "./in-words";
 
 const stageField = z.enum(QUOTE_STAGES, {
   error: `Choose one of the stages: ${QUOTE_STAGES.join(", ")}`,
 });
-const probability = z.coerce
-  .number({ error: "Enter a percentage" })
-  .min(0, "Use 0 to 100 %")
-  .max(100, "Use 0 to 100 %");
+// A percentage as the administrator types it ("12,5" is 12.5: lib/validations/in-words.ts).
+const percentage = (label: string, example: string) =>
+  inWords(
+    label,
+    example,
+    z
+      .number({ error: `Enter the ${label.toLowerCase()} as a percentage such as ${example}` })
+      .min(0, `${label}: use 0 to 100 %`)
+      .max(100, `${label}: use 0 to 100 %`),
+  );
+type Percentage = ReturnType<typeof percentage>;
 
 export const salesSettingsSchema = z.object({
-  discountThresholdPct: z.coerce
-    .number({ error: "Enter a percentage" })
-    .min(0, "Use 0 to 100 %")
-    .max(100, "Use 0 to 100 %"),
+  discountThresholdPct: percentage("Largest discount without approval", "10"),
   stageProbabilities: z.object(
-    Object.fromEntries(QUOTE_STAGES.map((s) => [s, probability])) as Record<
-      (typeof QUOTE_STAGES)[number],
-      typeof probability
-    >,
+    Object.fromEntries(
+      QUOTE_STAGES.map((s) => [
+        s,
+        percentage(`Chance of closing at ${STAGE_LABELS[s].toLowerCase()}`, "40"),
+      ]),
+    ) as Record<(typeof QUOTE_STAGES)[number], Percentage>,
   ),
 });
 

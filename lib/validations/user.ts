@@ -9,7 +9,11 @@ const roleField = z.enum(ROLES, { error: "Choose one of: engineer, manager, revi
 // A reviewer belongs to exactly one customer account; vendor staff belong to none.
 const accountField = z.preprocess(
   (v) => (v === "" || v == null ? null : Number(v)),
-  z.number({ error: "Choose an account" }).int().positive().nullable(),
+  z
+    .number({ error: "Choose an account" })
+    .int("Choose an account")
+    .positive("Choose an account")
+    .nullable(),
 );
 
 function requireAccountForReviewer(

@@ -114,12 +114,36 @@ describe("bulk edit of a case's axes", () => {
     expect(messagesOf({ axisIds, installHours: 20_000 })[0]).toMatch(
       /^Install hours must be at most/,
     );
-    expect(messagesOf({ axisIds, commissioningCost: "lots" })[0]).toMatch(/^Commissioning cost /);
+    expect(messagesOf({ axisIds, commissioningCost: "lots" })).toEqual([
+      "Enter the commissioning cost as a number such as 120.00",
+    ]);
     expect(messagesOf({ axisIds, kitId: "K-1" })).toEqual(["Kit must be a kit of the catalogue"]);
     expect(messagesOf({ axisIds })).toEqual([
       "Fill in at least one of kit, discount %, install hours or commissioning cost to set",
     ]);
     expect(messagesOf({ axisIds: [], discountPct: 5 })).toEqual(["Select at least one axis"]);
+  });
+
+  it("reads numbers as a person types them, with a decimal comma, and refuses '1,234' by name", () => {
+    const axisIds = [1, 2];
+    expect(
+      parse({ axisIds, discountPct: "2,5", installHours: "0,75", commissioningCost: "12,50" }),
+    ).toMatchObject({
+      discountPct: 2.5,
+      installHours: 0.75,
+      commissioningCost: "12.50",
+    });
+    // "1,234" is a thousand in one country and a little over one in another: asked, not guessed.
+    expect(messagesOf({ axisIds, installHours: "1,234" })).toEqual([
+      "Install hours: write 1234 or 1.234 — '1,234' could mean either",
+    ]);
+    expect(messagesOf({ axisIds, commissioningCost: "1,250" })).toEqual([
+      "Commissioning cost: write 1250 or 1.250 — '1,250' could mean either",
+    ]);
+    // Blank text leaves the term as it is on each axis.
+    expect(parse({ axisIds, discountPct: "", installHours: " 3 " })).toMatchObject({
+      installHours: 3,
+    });
   });
 
   it("refuses the whole step for a kit not in the catalogue or retired, and writes nothing", () => {

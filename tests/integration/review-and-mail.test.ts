@@ -353,7 +353,7 @@ describe("the reviewer's sandbox", () => {
     const paths = bad.error!.issues.map((i) => i.path.join(".") || i.message);
     expect(paths).toEqual(expect.arrayContaining(["horizonYears", "tariffPerKWh"]));
     expect(bad.error!.issues.find((i) => i.path[0] === "horizonYears")!.message).toBe(
-      "must be at most 30",
+      "Horizon must be at most 30",
     );
   });
 });

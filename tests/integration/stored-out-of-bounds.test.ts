@@ -52,7 +52,10 @@ function expectNamesTheProblem(text: string) {
   expect(text).toContain("Ambient temperature is -1000 °C");
   expect(text).toContain("must be at least -40 °C");
   expect(text).toContain("allowed: -40 to 80 °C");
-  expect(text).toContain(`/axes/${axis.axisId}`);
+  expect(text).toContain("correct the value on the axis's edit page");
+  // The page is a link beside the words (fixAt.href); no database id is shown as text.
+  expect(text).not.toContain(`/axes/${axis.axisId}`);
+  expect(text).not.toMatch(/\(\/\w+\/\d+\)/);
 }
 
 async function expectConflict(res: Response) {

@@ -27,7 +27,8 @@ export function writeAxisSheet(sheet: ExcelJS.Worksheet, axis: AxisDetail) {
     { width: 16 },
     { width: 16 },
   ];
-  styleTitle(sheet.addRow([`${safeText(axis.label)} (${safeText(axis.id)})`]).getCell(1));
+  // Named as the app names it, with its machine; the record id stays in the index's own column.
+  styleTitle(sheet.addRow([`${safeText(axis.label)} (${safeText(axis.machineName)})`]).getCell(1));
   sheet.addRow(["Machine", safeText(axis.machineName)]);
   sheet.addRow(["Quantity", axis.quantity]);
   sheet.addRow(["Speed while moving (rpm)", axis.speedRpm]);

@@ -99,7 +99,7 @@ describe("faults.csv: faults in several rows and columns, each at its spreadshee
         row: 7,
         column: "Cost per step-loss event",
         message:
-          '"€12" is not an amount; enter the cost per step-loss event as a number such as 12.50, in the site\'s currency, without a currency sign or thousands separator',
+          '"€12" is not an amount; enter the cost per step-loss event as a number such as 12.50, in the site\'s currency, without a currency sign',
       },
       { row: 8, column: "Rated current [A]", message: "must be at least 0.01 A (received -5)" },
       {
@@ -112,7 +112,7 @@ describe("faults.csv: faults in several rows and columns, each at its spreadshee
         row: 9,
         column: "Bus voltage [V]",
         message:
-          '"1,500" could be 1.5 or 1500; write it with a decimal point and no thousands separator',
+          '"1,500" could be 1.5 or 1500; write the bus voltage in V with a decimal point and no thousands separator',
       },
     ]);
   });
@@ -221,12 +221,19 @@ describe("per-cell rules", () => {
     expect(rows.map((r) => r.holdingTorqueNm)).toEqual([1.5, 0.45, 12.75, 1.2, 2]);
   });
 
-  it("numbers: thousands separators and ambiguous commas are refused with what to write", () => {
-    expect(messageFor({ "Bus voltage [V]": "1.234,5" })).toEqual([
-      '"1.234,5" has a thousands separator; enter the bus voltage in V without one, with a decimal point',
-    ]);
+  it("numbers: grouped thousands read as the forms read them; an ambiguous comma is refused by name", () => {
+    // The same reader as the forms and the server's schemas (lib/validations/typed-number.ts).
+    const rows = check(
+      { "Speed [rpm]": "1.234,5" },
+      { "Speed [rpm]": "1,234.5" },
+      { "Speed [rpm]": "1 234,5" },
+    ).rows;
+    expect(rows.map((r) => r.speedRpm)).toEqual([1234.5, 1234.5, 1234.5]);
     expect(messageFor({ "Speed [rpm]": "1,200" })).toEqual([
-      '"1,200" could be 1.2 or 1200; write it with a decimal point and no thousands separator',
+      '"1,200" could be 1.2 or 1200; write the speed in rpm with a decimal point and no thousands separator',
+    ]);
+    expect(messageFor({ "Bus voltage [V]": "1'234" })).toEqual([
+      '"1\'234" has a thousands separator; enter the bus voltage in V without one, with a decimal point',
     ]);
   });
 
@@ -288,8 +295,12 @@ describe("per-cell rules", () => {
     expect(messageFor({ "Cost per step-loss event": "-3" })).toEqual([
       "must be at least 0 (received -3)",
     ]);
-    expect(messageFor({ "Cost per step-loss event": "1,234.50" })[0]).toMatch(
-      /^"1,234\.50" is not an amount; enter/,
+    expect(check({ "Cost per step-loss event": "1.234,50" }).rows[0].costPerEvent).toBe("1234.50");
+    expect(messageFor({ "Cost per step-loss event": "1,250" })).toEqual([
+      '"1,250" could be 1.25 or 1250; write the cost per step-loss event with a decimal point and no thousands separator',
+    ]);
+    expect(messageFor({ "Cost per step-loss event": "12 €" })[0]).toMatch(
+      /^"12 €" is not an amount; enter/,
     );
     expect(messageFor({ "Cost per step-loss event": "=B2" })[0]).toMatch(
       /^"=B2" looks like a formula/,

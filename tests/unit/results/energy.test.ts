@@ -27,7 +27,9 @@ describe("energy before and after by machine", () => {
     expect(m2.beforeKWhPerYear).toBeCloseTo(3 * feed.openLoop.energyKWhPerYear, 9);
   });
 
-  it("falls back to machine ids when the input is not at hand", () => {
-    expect(energyByMachine(result, null).map((r) => r.name)).toEqual(["M1", "M2"]);
+  it("shows no record ids for names when the input is not at hand", () => {
+    const names = energyByMachine(result, null).map((r) => r.name);
+    expect(names).toEqual(["Unnamed machine", "Unnamed machine"]);
+    for (const machine of result.machines) expect(names).not.toContain(machine.id);
   });
 });

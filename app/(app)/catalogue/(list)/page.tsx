@@ -187,7 +187,7 @@ export default async function CataloguePage({ searchParams }: { searchParams: Se
                     {k.motorId == null ? (
                       <Fallback>keeps the axis motor</Fallback>
                     ) : (
-                      (motorNames.get(k.motorId) ?? `motor ${k.motorId}`)
+                      (motorNames.get(k.motorId) ?? "a motor no longer listed")
                     )}
                   </Td>
                   <Td className="min-w-[7.5rem] text-right tabular-nums">
