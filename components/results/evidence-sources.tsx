@@ -30,11 +30,14 @@ export function EvidenceSources({
   input,
   caseId,
   index,
+  readOnly = false,
 }: {
   result: CaseResult;
   input: ParsedCase;
   caseId: number;
   index: EvidenceIndex;
+  /** The customer's reviewer reads the sources; only the vendor's people record them. */
+  readOnly?: boolean;
 }) {
   // A result without value by source (frozen by engine 1.0.0) has nothing to weigh.
   if (!valueReliance(result.scenarios.physics)) return null;
@@ -69,13 +72,15 @@ export function EvidenceSources({
               ) : (
                 <p className="text-caution-700">
                   No source recorded.{" "}
-                  <Link
-                    href={recordHref(f.key)}
-                    className="underline"
-                    aria-label={`Record the source of ${f.words}`}
-                  >
-                    Record it
-                  </Link>
+                  {readOnly ? null : (
+                    <Link
+                      href={recordHref(f.key)}
+                      className="underline"
+                      aria-label={`Record the source of ${f.words}`}
+                    >
+                      Record it
+                    </Link>
+                  )}
                 </p>
               )}
             </li>

@@ -13,6 +13,7 @@ import { getAxisOrThrow } from "./axes";
 import { recordAudit } from "./audit";
 import { getCaseOrThrow } from "./cases";
 import { getMachineOrThrow } from "./machines";
+import { getVisibleQuoteOrThrow } from "./proposals";
 import { getSiteOrThrow } from "./sites";
 
 // The sources of typed value figures (db/schema/evidence.ts). Every read and write finds the
@@ -115,6 +116,27 @@ export function listProposalEvidence(
   subjects: { axisIds: number[]; machineIds: number[] },
 ): EvidenceEntry[] {
   const row = getCaseOrThrow(caller, caseId);
+  return evidenceOf(row.accountId, caseId, subjects);
+}
+
+/**
+ * The same for the customer's reviewer, who reaches the proposal but not the case: the scope is
+ * the proposal's (another account's proposal is not found), the sources read only.
+ */
+export function listReviewedProposalEvidence(
+  caller: SessionUser,
+  proposalId: number,
+  subjects: { axisIds: number[]; machineIds: number[] },
+): EvidenceEntry[] {
+  const quote = getVisibleQuoteOrThrow(caller, proposalId);
+  return evidenceOf(quote.accountId, quote.caseId, subjects);
+}
+
+function evidenceOf(
+  accountId: number,
+  caseId: number,
+  subjects: { axisIds: number[]; machineIds: number[] },
+): EvidenceEntry[] {
   const of = (type: EvidenceSubject, ids: number[]) =>
     ids.length === 0
       ? undefined
@@ -124,7 +146,7 @@ export function listProposalEvidence(
     .from(valueEvidence)
     .where(
       and(
-        eq(valueEvidence.accountId, row.accountId),
+        eq(valueEvidence.accountId, accountId),
         or(
           and(eq(valueEvidence.subjectType, "case"), eq(valueEvidence.subjectId, caseId)),
           of("axis", subjects.axisIds),

@@ -1,4 +1,5 @@
 import { AXIS_FIELDS, EVENT_FIELDS } from "../fields";
+import { parseId } from "../validations/ids";
 
 /**
  * What a typed value figure belongs to: an axis (its step-loss events and their cost), a machine
@@ -68,4 +69,14 @@ export function indexEvidence(entries: readonly EvidenceEntry[]): EvidenceIndex 
   const index: EvidenceIndex = {};
   for (const e of entries) index[evidenceKey(e.subjectType, e.subjectId, e.field)] = e;
   return index;
+}
+
+/** The axes and machines a frozen input names, as the record ids their sources are kept under. */
+export function frozenSubjects(input: {
+  axes?: readonly { id: string }[];
+  machines?: readonly { id: string }[];
+}): { axisIds: number[]; machineIds: number[] } {
+  const ids = (list: readonly { id: string }[] | undefined) =>
+    (list ?? []).map((x) => parseId(x.id)).filter((id): id is number => id !== null);
+  return { axisIds: ids(input.axes), machineIds: ids(input.machines) };
 }

@@ -15,7 +15,14 @@ import { listAudit } from "@/db/queries/audit";
 import { getAxisOrThrow, updateAxis } from "@/db/queries/axes";
 import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { listCaseAxes } from "@/db/queries/case-axes";
-import { listCaseEvidence, listProposalEvidence, saveEvidence } from "@/db/queries/evidence";
+import {
+  listCaseEvidence,
+  listProposalEvidence,
+  listReviewedProposalEvidence,
+  saveEvidence,
+} from "@/db/queries/evidence";
+import { getVisibleQuoteOrThrow } from "@/db/queries/proposals";
+import { frozenSubjects } from "@/lib/evidence/subjects";
 import { proposals, type Axis } from "@/db/schema";
 import { saveEvidenceAction, clearEvidenceAction } from "@/server/evidence/actions";
 import { saveAxisAction } from "@/server/installed-base/actions";
@@ -295,5 +302,35 @@ describe("the source of each typed figure", () => {
     // Another tenant reads none of it, and frozen proposals are as they were.
     expect(() => listCaseEvidence(otherEngineer(), target.id)).toThrow("No such case");
     expect(frozenRows()).toEqual(before);
+  });
+
+  it("the customer's reviewer reads the sources of a proposal sent to them, and of no other", () => {
+    const all = db.select().from(proposals).all();
+    const visible = (id: number) => {
+      try {
+        getVisibleQuoteOrThrow(reviewer(), id);
+        return true;
+      } catch {
+        return false;
+      }
+    };
+    const theirs = all.find((p) => visible(p.id))!;
+    const notTheirs = all.find((p) => !visible(p.id))!;
+    expect(theirs, "the demo reviewer has a proposal").toBeDefined();
+    const subjects = frozenSubjects(theirs.input);
+    saveEvidence(engineer(), {
+      subjectType: "axis",
+      subjectId: subjects.axisIds[0]!,
+      field: "stepLossEventsPerYear",
+      note: "Maintenance log, last twelve months",
+      givenOn: "2026-11-20",
+      givenBy: "Line supervisor",
+    });
+    const read = listReviewedProposalEvidence(reviewer(), theirs.id, subjects);
+    expect(read).toEqual(listProposalEvidence(engineer(), theirs.caseId, subjects));
+    expect(read.map((e) => e.note)).toContain("Maintenance log, last twelve months");
+    expect(() =>
+      listReviewedProposalEvidence(reviewer(), notTheirs.id, frozenSubjects(notTheirs.input)),
+    ).toThrow();
   });
 });

@@ -25,8 +25,7 @@ import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { discountAboveThreshold, needsDiscountApproval } from "@/lib/pipeline/discount";
 import { FINANCE_TERMS } from "@/lib/glossary";
 import { vendorRevenue } from "@/lib/pipeline/revenue";
-import { indexEvidence } from "@/lib/evidence/subjects";
-import { parseId } from "@/lib/validations/ids";
+import { frozenSubjects, indexEvidence } from "@/lib/evidence/subjects";
 
 export const metadata: Metadata = { title: "Proposal" };
 
@@ -47,17 +46,10 @@ export default async function ProposalPage({
   const sendable = SENDABLE_STAGES.includes(row.stage);
   const isManager = user.role === "manager";
   // The sources recorded for the frozen figures' axes, machines and case, as they stand now.
-  const ids = (list: { id: string }[] | undefined) =>
-    (list ?? []).map((x) => parseId(x.id)).filter((id): id is number => id !== null);
   const evidence = input
     ? {
         caseId: quote.caseId,
-        index: indexEvidence(
-          listProposalEvidence(user, quote.caseId, {
-            axisIds: ids(input.axes),
-            machineIds: ids(input.machines),
-          }),
-        ),
+        index: indexEvidence(listProposalEvidence(user, quote.caseId, frozenSubjects(input))),
       }
     : undefined;
 

@@ -9,6 +9,9 @@ import { CautionsPanel } from "@/components/results/cautions-panel";
 import { EnergyByMachineChart } from "@/components/results/energy-by-machine-chart";
 import { HeadlineCards } from "@/components/results/headline-cards";
 import { MethodLink } from "@/components/results/method-link";
+import { EvidenceSources } from "@/components/results/evidence-sources";
+import { listReviewedProposalEvidence } from "@/db/queries/evidence";
+import { frozenSubjects, indexEvidence } from "@/lib/evidence/subjects";
 import { ValueBySourceChart } from "@/components/results/value-by-source-chart";
 import { ValueBySourceTable } from "@/components/results/value-by-source-table";
 import { WarningsPanel } from "@/components/results/warnings-panel";
@@ -59,6 +62,10 @@ export default async function ReviewProposalPage({
   const decidable = DECIDABLE_STAGES.includes(quote.stage);
   // The supplier's paid dossier; the link shows only once it is paid for (reviewers never buy).
   const dossierPaid = isDossierPaid(user, id);
+  // The supplier's recorded sources of the typed figures the value rests on, as they stand now.
+  const evidence = input
+    ? indexEvidence(listReviewedProposalEvidence(user, id, frozenSubjects(input)))
+    : null;
 
   return (
     <div className="space-y-6">
@@ -121,6 +128,15 @@ export default async function ReviewProposalPage({
       </div>
       <ValueBySourceChart result={result} input={input} />
       <ValueBySourceTable result={result} />
+      {input && evidence ? (
+        <EvidenceSources
+          result={result}
+          input={input}
+          caseId={quote.caseId}
+          index={evidence}
+          readOnly
+        />
+      ) : null}
       <MachineFiguresTable result={result} input={input} />
       <ValueByMachineTable result={result} input={input} />
       <WarningsPanel result={result} input={input} />
