@@ -4,6 +4,7 @@ import { ResponsiveBar, type BarCustomLayerProps, type BarDatum } from "@nivo/ba
 import { useMemo } from "react";
 import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { useNarrowScreen } from "@/lib/hooks/use-narrow-screen";
 import { formatNumber, formatTempC } from "@/lib/results/format";
 import { windingTemperatures, type WindingTemperatureRow } from "@/lib/results/thermal";
 import { ChartPanel, LineLegend, SwatchLegend } from "./chart-panel";
@@ -91,7 +92,8 @@ export function WindingTemperatureChart({
     ]),
     40,
   );
-  const crowded = shown.length > 6;
+  const narrow = useNarrowScreen();
+  const crowded = shown.length > (narrow ? 3 : 6);
   return (
     <ChartPanel
       title="Winding temperature before and after"
