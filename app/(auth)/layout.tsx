@@ -4,7 +4,11 @@ import { Wordmark } from "@/components/shell/brand-mark";
 export default function AuthLayout({ children }: { children: ReactNode }) {
   return (
     <div className="grid min-h-screen lg:grid-cols-[1fr_1.1fr]">
-      <section className="hidden flex-col justify-between bg-flux-900 p-10 text-flux-50 lg:flex">
+      {/* An aside, so this panel sits in a landmark beside <main> (axe-core's "region" rule). */}
+      <aside
+        aria-label="About Loopshift"
+        className="hidden flex-col justify-between bg-flux-900 p-10 text-flux-50 lg:flex"
+      >
         <Wordmark />
         <div className="max-w-md space-y-4">
           <p className="text-display font-black text-white">
@@ -18,7 +22,7 @@ export default function AuthLayout({ children }: { children: ReactNode }) {
         <p className="text-small text-flux-200">
           Retrofit work is electrical work on machinery: qualified persons only, under local codes.
         </p>
-      </section>
+      </aside>
       <main className="flex items-center justify-center px-4 py-10">{children}</main>
     </div>
   );

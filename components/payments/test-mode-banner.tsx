@@ -4,8 +4,10 @@ import { paymentsTestMode } from "@/server/payments/config";
 export function TestModeBanner() {
   if (!paymentsTestMode()) return null;
   return (
+    // A named region rather than a note: axe-core's "region" rule wants all content in landmarks.
     <div
-      role="note"
+      role="region"
+      aria-label="Payments in test mode"
       className="border-b-2 border-caution-600 bg-caution-50 px-4 py-2 text-small text-caution-700 md:px-8 print:hidden"
     >
       <strong className="tracking-wide">TEST MODE</strong> — payments go to the local test payment

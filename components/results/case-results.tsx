@@ -230,7 +230,7 @@ function StoredValuesError({ problems }: { problems: readonly StoredProblemView[
 /** Grey stand-ins in the shape of the results, while the first result loads. */
 export function CaseResultsSkeleton() {
   return (
-    <div aria-busy="true" aria-label="Loading results" className="space-y-6">
+    <div role="status" aria-busy="true" aria-label="Loading results" className="space-y-6">
       <div className="grid gap-4 md:grid-cols-3">
         {[0, 1, 2].map((i) => (
           <div key={i} className="space-y-3 rounded-panel border border-steel-200 bg-white p-5">

@@ -2,6 +2,7 @@
 
 import { ResponsiveBar } from "@nivo/bar";
 import { useMemo } from "react";
+import { useNarrowScreen } from "@/lib/hooks/use-narrow-screen";
 import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { energyByMachine, type MachineEnergyRow } from "@/lib/results/energy";
@@ -28,7 +29,8 @@ export function EnergyByMachineChart({
     [AFTER]: r.afterKWhPerYear,
   }));
   const nameOf = new Map(rows.map((r) => [r.machineId, r.name]));
-  const crowded = rows.length > 6;
+  const narrow = useNarrowScreen();
+  const crowded = rows.length > (narrow ? 3 : 6);
   return (
     <ChartPanel
       title="Energy before and after, by machine"

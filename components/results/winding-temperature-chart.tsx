@@ -4,6 +4,7 @@ import { ResponsiveBar, type BarCustomLayerProps, type BarDatum } from "@nivo/ba
 import { useMemo } from "react";
 import { Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
+import { useNarrowScreen } from "@/lib/hooks/use-narrow-screen";
 import { formatNumber, formatTempC } from "@/lib/results/format";
 import { windingTemperatures, type WindingTemperatureRow } from "@/lib/results/thermal";
 import { ChartPanel, LineLegend, SwatchLegend } from "./chart-panel";
@@ -95,7 +96,8 @@ export function WindingTemperatureChart({
   // at the tick's size. Slanted when they would not fit side by side on a phone's width, with
   // margins that grow with the longest name so that every tick stays whole.
   const longest = Math.max(0, ...shown.map((r) => r.name.length)) * 6;
-  const crowded = shown.length > 6 || shown.length * longest > 300;
+  const narrow = useNarrowScreen();
+  const crowded = shown.length > (narrow ? 3 : 6) || shown.length * longest > 300;
   const slant = Math.PI / 4;
   const bottom = crowded ? Math.ceil(24 + longest * Math.sin(slant)) : 56;
   const left = crowded ? Math.max(64, Math.ceil(longest * Math.cos(slant)) - 12) : 64;

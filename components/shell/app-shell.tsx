@@ -31,7 +31,11 @@ function Sidebar({
       <nav aria-label="Main">
         <NavLinks items={navItemsFor(user.role)} />
       </nav>
-      <div className="mt-auto space-y-3 rounded-md bg-flux-950/40 p-3 text-small">
+      {/* Named so it is a landmark on phones too, where the menu has no <aside> around it. */}
+      <section
+        aria-label="Signed-in user"
+        className="mt-auto space-y-3 rounded-md bg-flux-950/40 p-3 text-small"
+      >
         <div>
           <p className="font-bold text-white">{user.name}</p>
           <p className="break-all text-flux-200">{user.email}</p>
@@ -39,7 +43,7 @@ function Sidebar({
           {context ? <p className="text-flux-100">{context}</p> : null}
         </div>
         <SignOutButton />
-      </div>
+      </section>
     </div>
   );
 }
