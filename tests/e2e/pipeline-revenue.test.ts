@@ -40,7 +40,9 @@ describe("the pipeline over HTTP", () => {
     for (const q of body.quotes) {
       const want = expectedRevenue(frozenInput(q.id)).revenue;
       expect(cents(fixed(q.vendorRevenue)), `quote ${q.id}`).toBe(cents(want));
-      expect(fixed(q.value) > want).toBe(true);
+      // The investment adds the customer's own costs (downtime, one-time project cost); a quote
+      // made by another file's flow may have none, so it is never below the revenue.
+      expect(fixed(q.value) >= want, `quote ${q.id}`).toBe(true);
     }
 
     const csv = await request(manager, "/api/v1/pipeline.csv");
