@@ -19,7 +19,8 @@ const TAB_STOPS = 8;
 // Pages no read-only walk can open, with the reason; every other page of app/ must be visited.
 const NOT_REACHABLE: Record<string, string> = {
   // The payment provider's return address: needs the id of a checkout session, made by buying.
-  "/dossiers/[proposalId]/paid": "needs a checkout session, which only a purchase creates",
+  "/dossiers/[proposalId]/paid":
+    "needs a checkout session, which only a purchase creates: tests/e2e/dossier.test.ts checks it after its purchase",
 };
 
 let browser: Browser;

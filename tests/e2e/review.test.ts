@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { launchBrowser, screenshot, signInWithForm } from "./support/browser";
+import { seriousAxeViolations } from "./support/axe";
 import { baseUrl, request, signInOverHttp } from "./support/http";
 
 let browser: Browser;
@@ -79,6 +80,8 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
     const page = await pageFor();
     await page.goto(invitationLink);
     await page.getByRole("heading", { name: "Welcome, Pat Controller" }).waitFor();
+    // An open invitation exists only in this flow: the accessibility sweep sees expired ones.
+    expect(await seriousAxeViolations(page), "axe-core, invitation").toEqual([]);
     await screenshot(page, "invitation-set-password");
     await page.getByLabel("New password").fill("pat-chooses-this-1");
     await page.getByLabel("Repeat the password").fill("pat-chooses-this-1");
