@@ -76,7 +76,7 @@ export function EvidenceSources({
                     <Link
                       href={recordHref(f.key)}
                       className="underline"
-                      aria-label={`Record the source of ${f.words}`}
+                      aria-label={`Record it: the source of ${f.words}`}
                     >
                       Record it
                     </Link>
