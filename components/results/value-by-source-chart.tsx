@@ -1,13 +1,13 @@
 "use client";
 
 import { ResponsiveBar } from "@nivo/bar";
-import { Table, Td, Th } from "@/components/ui/table";
 import { VALUE_SOURCES, type CaseResult, type ParsedCase } from "@/lib/engine";
 import { SCENARIO_LABELS } from "@/lib/glossary";
 import { VALUE_SOURCE_LABELS } from "@/lib/results/engine-v2";
 import { formatMoney, formatMoneyCompact, moneyToChartNumber } from "@/lib/results/format";
 import { sourceTotals } from "@/lib/results/source-totals";
 import { ChartPanel, SwatchLegend } from "./chart-panel";
+import { ValueBySourceTotalsTable } from "./value-by-source-totals-table";
 import { CHART_COLORS, chartTheme } from "./chart-theme";
 
 const SCENARIOS = ["physics", "bandLow", "bandHigh"] as const;
@@ -22,8 +22,8 @@ const SOURCE_COLORS = [
 ];
 
 /**
- * Each scenario's value over the horizon stacked by source (lib/results/source-totals.ts). Only
- * the physics scenario is discounted here: the band scenarios move the rate with the band.
+ * Each scenario's value over the horizon stacked by source (lib/results/source-totals.ts); its
+ * table is the dossier's too, each scenario plain and discounted at the case's rate.
  */
 export function ValueBySourceChart({
   result,
@@ -49,50 +49,12 @@ export function ValueBySourceChart({
     ),
   }));
   const keys = VALUE_SOURCES.map((s) => VALUE_SOURCE_LABELS[s]);
-  const physics = totals[0].totals!;
   return (
     <ChartPanel
       title="Value by source over the horizon"
       description="Each scenario's yearly flows added over the horizon, split by where the money comes from."
       legend={<SwatchLegend items={keys.map((label, i) => ({ label, color: SOURCE_COLORS[i] }))} />}
-      table={
-        <Table caption="Value by source over the horizon, per scenario, with the physics scenario discounted at the case's rate">
-          <thead>
-            <tr>
-              <Th>Source</Th>
-              {SCENARIOS.map((k) => (
-                <Th key={k} className="text-right">
-                  {SCENARIO_LABELS[k]}
-                </Th>
-              ))}
-              {rate !== null ? (
-                <Th className="text-right">
-                  {SCENARIO_LABELS.physics}, discounted at {rate} %
-                </Th>
-              ) : null}
-            </tr>
-          </thead>
-          <tbody className="divide-y divide-steel-100">
-            {VALUE_SOURCES.map((source, i) => (
-              <tr key={source}>
-                <Th scope="row" className="bg-white font-normal whitespace-nowrap">
-                  {VALUE_SOURCE_LABELS[source]}
-                </Th>
-                {totals.map(({ key, totals: parts }) => (
-                  <Td key={key} className="text-right tabular-nums whitespace-nowrap">
-                    {formatMoney(parts![i].sum.toFixed(), currency)}
-                  </Td>
-                ))}
-                {rate !== null ? (
-                  <Td className="text-right tabular-nums whitespace-nowrap">
-                    {formatMoney(physics[i].discounted.toFixed(), currency)}
-                  </Td>
-                ) : null}
-              </tr>
-            ))}
-          </tbody>
-        </Table>
-      }
+      table={<ValueBySourceTotalsTable result={result} discountRatePct={rate} />}
     >
       <ResponsiveBar
         data={data}
