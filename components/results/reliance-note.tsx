@@ -11,6 +11,8 @@ import {
 export interface CaseEvidence {
   caseId: number;
   index: EvidenceIndex;
+  /** Who reads the warning: the vendor records sources, the customer's reviewer asks for them. */
+  audience?: "vendor" | "reviewer";
 }
 
 const CAUTION_NOTE =
@@ -18,8 +20,8 @@ const CAUTION_NOTE =
 
 /**
  * Under the NPV: a warning when more than half of the value rests on typed figures with no
- * recorded source, naming them; where the screen has no evidence to weigh (the reviewer's
- * portal, the dossier), the plainer warning that the value is mostly typed.
+ * recorded source, naming them (worded for the vendor or for the customer's reviewer); where the
+ * screen has no evidence to weigh (the dossier), the plainer warning that the value is mostly typed.
  */
 export function RelianceNote({
   scenario,
@@ -42,7 +44,8 @@ export function RelianceNote({
     if (split.mostlyUnevidenced)
       return (
         <p role="note" data-testid="unevidenced-warning" className={CAUTION_NOTE}>
-          <strong>Mostly typed figures without a source.</strong> {unevidencedSentence(split)}
+          <strong>Mostly typed figures without a source.</strong>{" "}
+          {unevidencedSentence(split, 4, evidence?.audience)}
         </p>
       );
     if (!split.mostlyTyped) return null;

@@ -154,4 +154,13 @@ describe("evidencedReliance", () => {
       /^\d+ % of the value over the horizon rests on typed figures with no recorded source: margin per output hour of machine Invented pick-and-place cell; throughput gain the customer will use of machine Invented pick-and-place cell; and \d+ more\. Record where each comes from/,
     );
   });
+
+  it("asks the customer's reviewer to ask for the sources, rather than to record them", () => {
+    const r = evidencedReliance(physics, result, input, {}, CASE_ID)!;
+    const sentence = unevidencedSentence(r, 2, "reviewer");
+    expect(sentence).toMatch(
+      /Ask your supplier where each comes from before relying on this figure\.$/,
+    );
+    expect(sentence).not.toMatch(/Record where/);
+  });
 });

@@ -104,7 +104,13 @@ export default async function ReviewProposalPage({
         </span>
         <MethodLink href="/review/method" />
       </p>
-      <HeadlineCards result={result} input={input} />
+      <HeadlineCards
+        result={result}
+        input={input}
+        evidence={
+          evidence ? { caseId: quote.caseId, index: evidence, audience: "reviewer" } : undefined
+        }
+      />
       <BreakEvenPanel result={result} input={input} />
 
       {input ? (
