@@ -66,8 +66,12 @@ describe("a case with a stored value outside the engine's bounds", () => {
     expect(await fix.getAttribute("href")).toBe(`/axes/${target.axisId}`);
     await fix.click();
     await page.waitForURL(`**/axes/${target.axisId}`);
+    // The form must be live (hydrated) before it is typed into: on a busy machine a value typed
+    // earlier is put back to the stored one when React takes the field over.
+    await page.waitForLoadState("networkidle");
     const ambient = page.getByLabel(/Ambient/).first();
     await ambient.fill(String(target.ambient));
+    await expect.poll(() => ambient.inputValue()).toBe(String(target.ambient));
     await page.getByRole("button", { name: /^Save/ }).click();
     // A saved axis form goes back to its site (components/installed-base/axis-form.tsx); its
     // "Axis saved." line may be gone by the time a check looks for it.
