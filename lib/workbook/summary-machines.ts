@@ -8,11 +8,13 @@ import {
   type MachineValueTable,
 } from "@/lib/results/machine-value";
 import { SCENARIO_LABELS } from "@/lib/glossary";
+import { valueByMachine } from "@/lib/engine/machine-value";
 import { styleHeader } from "./formats";
 import {
   CASH_FLOW,
   MAX_HORIZON_YEARS,
   NAME,
+  SCENARIOS,
   SHEET,
   absolute,
   columnLetter,
@@ -20,6 +22,7 @@ import {
   sourceYearColumn,
   type AxesRanges,
   type MachineRanges,
+  type ScenarioKey,
 } from "./layout";
 import { safeText } from "./safe-text";
 
@@ -31,16 +34,22 @@ export const machineSourceColumn = (source: ValueSource): number =>
   2 + VALUE_SOURCES.indexOf(source);
 export const MACHINE_ALL_COLUMN = 2 + VALUE_SOURCES.length;
 
+/** The header of one per-machine block, as the test and a reader find it: "Value by machine over the horizon, low trade claim". */
+export const machineBlockHeader = (scenario: ScenarioKey, discounted: boolean): string =>
+  `${discounted ? MACHINES_DISCOUNTED_HEADER : MACHINES_HEADER}, ${SCENARIO_LABELS[scenario].toLowerCase()}`;
+
 /**
- * The engine scenario split by machine, as live formulas (lib/engine/machine-value.ts states the
+ * Every scenario split by machine, as live formulas (lib/engine/machine-value.ts states the
  * split): a machine's drive and cooling energy, step-loss money and maintenance are the sums of
  * its axes' rows on the Axes sheet, its added output is its row of the Assumptions sheet's
  * machine table; each grows with the Cash flow sheet's escalation or inflation row, added over
- * the horizon (or weighted by the discount-factor row). A machine is taxed on its own value less
- * the depreciation of its own up-front cost (its axes plus its downtime); the case-wide row
- * carries the service cost and the tax on it less the depreciation of the one-time project cost.
- * Tax is linear in the flows, so the rows add up to the case's figures above them.
- * Returns the row after the blocks.
+ * the horizon (or weighted by the discount-factor row). The engineering estimate counts the
+ * energy each axis saves; a trade-claim scenario counts its band (BandLow_Pct, BandHigh_Pct) of
+ * the energy each axis uses today, as the Cash flow sheet does for the fleet. A machine is taxed
+ * on its own value less the depreciation of its own up-front cost (its axes plus its downtime);
+ * the case-wide row carries the service cost and the tax on it less the depreciation of the
+ * one-time project cost. Tax is linear in the flows, so the rows add up to the case's figures
+ * above them. Returns the row after the blocks.
  */
 export function writeMachineValue(
   sheet: ExcelJS.Worksheet,
@@ -50,15 +59,22 @@ export function writeMachineValue(
   currency: string,
   top: number,
 ): number {
-  let table: MachineValueTable | null = null;
+  const tables = new Map<ScenarioKey, MachineValueTable>();
   try {
-    table = machineValueTable(result, input, "physics");
+    const split = valueByMachine(result, input);
+    for (const scenario of SCENARIOS)
+      tables.set(scenario, machineValueTable(result, input, scenario, split));
   } catch {
-    // A stored result that does not match its input (engine v1): Calc works the figures out.
+    // A stored result that does not match its input, or has no value by source (engine v1):
+    // the cells carry formulas only, and Calc works the figures out.
+    tables.clear();
   }
   let row = top;
-  for (const discounted of [false, true]) {
-    row = writeBlock(sheet, input, ranges, currency, row, discounted, table) + 1;
+  for (const scenario of SCENARIOS) {
+    for (const discounted of [false, true]) {
+      const table = tables.get(scenario) ?? null;
+      row = writeBlock(sheet, input, ranges, currency, row, scenario, discounted, table) + 1;
+    }
   }
   return row;
 }
@@ -69,12 +85,12 @@ function writeBlock(
   { axes, machines }: { axes: AxesRanges; machines: MachineRanges },
   currency: string,
   top: number,
+  scenario: ScenarioKey,
   discounted: boolean,
   table: MachineValueTable | null,
 ): number {
   const header = sheet.getRow(top);
-  header.getCell(1).value =
-    `${discounted ? MACHINES_DISCOUNTED_HEADER : MACHINES_HEADER}, ${SCENARIO_LABELS.physics.toLowerCase()}`;
+  header.getCell(1).value = machineBlockHeader(scenario, discounted);
   for (const s of VALUE_SOURCES)
     header.getCell(machineSourceColumn(s)).value = VALUE_SOURCE_LABELS[s];
   header.getCell(MACHINE_ALL_COLUMN).value = "All sources";
@@ -112,6 +128,12 @@ function writeBlock(
   const tax = (r: number, depreciation: string) =>
     `-${NAME.taxRate}/100*(SUM(${first}${r}:${beforeTax}${r})-${depreciation})`;
 
+  // The kWh a scenario counts: what the axes save, or the band's share of what they use today.
+  const counted = (saved: string, today: string) =>
+    scenario === "physics"
+      ? saved
+      : `${scenario === "bandLow" ? NAME.bandLow : NAME.bandHigh}/100*${today}`;
+
   let r = top + 1;
   for (const machine of input.machines) {
     const assumptionsRow = machines.rowOf.get(machine.id);
@@ -122,8 +144,8 @@ function writeBlock(
     const capex = `(${ofAxes(axes.capexTotal)}+${absolute(SHEET.assumptions, "C", assumptionsRow)}*${NAME.downtimeCost})`;
     sheet.getCell(r, 1).value = safeText(machine.name);
     const formulas: Record<ValueSource, string> = {
-      energy: `${ofAxes(axes.energySavedTotal)}*${NAME.tariff}*${escalation}`,
-      cooling: `${ofAxes(axes.coolingSavedTotal)}*${NAME.tariff}*${escalation}`,
+      energy: `${counted(ofAxes(axes.energySavedTotal), ofAxes(axes.energyOpenLoopTotal))}*${NAME.tariff}*${escalation}`,
+      cooling: `${counted(ofAxes(axes.coolingSavedTotal), ofAxes(axes.coolingOpenLoopTotal))}*${NAME.tariff}*${escalation}`,
       reliability: `${ofAxes(axes.reliability)}*${inflation}`,
       maintenance: `${ofAxes(axes.maintenance)}*${inflation}`,
       throughput: `${absolute(SHEET.assumptions, "H", assumptionsRow)}*${inflation}`,

@@ -18,9 +18,9 @@ import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
 import { IRR_NO_RATE_WORDS } from "@/lib/results/format";
 import { PAYBACK_STATUS_LABELS } from "@/lib/glossary";
 import { DISCOUNTED_COLUMN, summarySourcesTop } from "@/lib/workbook/summary-sheet";
+import { SCENARIOS } from "@/lib/workbook/layout";
 import {
-  MACHINES_DISCOUNTED_HEADER,
-  MACHINES_HEADER,
+  machineBlockHeader,
   MACHINE_ALL_COLUMN,
   machineSourceColumn,
 } from "@/lib/workbook/summary-machines";
@@ -223,45 +223,47 @@ function expectSummaryBreakdown(calc: ExcelJS.Workbook, result: CaseResult, rate
 }
 
 /**
- * The Summary's per-machine blocks (engine scenario, over the horizon then discounted), as Calc
+ * The Summary's per-machine blocks (each scenario, over the horizon then discounted), as Calc
  * recalculates their live formulas: every machine, the case-wide row and the total, each source
- * and all of them, equal the engine's split to the cent; the total row is the case's own figure.
+ * and all of them, equal the engine's split (lib/engine/machine-value.ts) to the cent; the total
+ * row is the case's own figure.
  */
 function expectMachineBlocks(calc: ExcelJS.Workbook, result: CaseResult, input: ParsedCase): void {
   const sheet = calc.getWorksheet("Summary");
   if (!sheet) throw new Error("no Summary sheet");
-  const table = machineValueTable(result, input, "physics");
   const cents = (v: Decimal.Value) => new Decimal(v).toFixed(2);
-  for (const [header, measure] of [
-    [MACHINES_HEADER, "horizon"],
-    [MACHINES_DISCOUNTED_HEADER, "discounted"],
-  ] as const) {
-    let top = 0;
-    sheet.eachRow((row, n) => {
-      if (String(row.getCell(1).value).startsWith(`${header},`)) top = n;
-    });
-    expect(top, header).toBeGreaterThan(0);
+  for (const scenario of SCENARIOS) {
+    const table = machineValueTable(result, input, scenario);
     expect(table.rows.length).toBe(input.machines.length + 2);
-    table.rows.forEach((expected, k) => {
-      const r = top + 1 + k;
-      if (expected.kind === "machine") expect(sheet.getCell(r, 1).value).toBe(expected.name);
-      const read = (column: number) => {
-        const cell = sheet.getCell(r, column);
-        expect(cell.type, cell.address).toBe(ExcelJS.ValueType.Formula);
-        expect(typeof cell.result, `${cell.address}: ${JSON.stringify(cell.result)}`).toBe(
-          "number",
-        );
-        return cell.result as number;
-      };
-      for (const source of VALUE_SOURCES)
-        expect(
-          cents(read(machineSourceColumn(source))),
-          `${expected.name} ${measure} ${source}`,
-        ).toBe(cents(expected.values[measure][source]));
-      expect(cents(read(MACHINE_ALL_COLUMN)), `${expected.name} ${measure} all`).toBe(
-        cents(expected.all[measure]),
-      );
-    });
+    for (const [discounted, measure] of [
+      [false, "horizon"],
+      [true, "discounted"],
+    ] as const) {
+      const header = machineBlockHeader(scenario, discounted);
+      let top = 0;
+      sheet.eachRow((row, n) => {
+        if (row.getCell(1).value === header) top = n;
+      });
+      expect(top, header).toBeGreaterThan(0);
+      table.rows.forEach((expected, k) => {
+        const r = top + 1 + k;
+        if (expected.kind === "machine") expect(sheet.getCell(r, 1).value).toBe(expected.name);
+        const read = (column: number) => {
+          const cell = sheet.getCell(r, column);
+          expect(cell.type, cell.address).toBe(ExcelJS.ValueType.Formula);
+          expect(typeof cell.result, `${cell.address}: ${JSON.stringify(cell.result)}`).toBe(
+            "number",
+          );
+          return cell.result as number;
+        };
+        const label = `${scenario} ${expected.name} ${measure}`;
+        for (const source of VALUE_SOURCES)
+          expect(cents(read(machineSourceColumn(source))), `${label} ${source}`).toBe(
+            cents(expected.values[measure][source]),
+          );
+        expect(cents(read(MACHINE_ALL_COLUMN)), `${label} all`).toBe(cents(expected.all[measure]));
+      });
+    }
   }
 }
 
