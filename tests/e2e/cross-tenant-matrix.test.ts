@@ -81,16 +81,21 @@ const vendorWrite = {
   manager: reaches422,
   admin: reaches422,
 } as const;
+/** A read of a proposal, which its reviewer shares: scoped for the engineer and the reviewer. */
+const proposalRead = { engineer: "scoped", reviewer: "scoped", manager: 200, admin: 200 } as const;
+/** A list of the vendor's: the engineer's leaves out the other tenant's `record`, the manager's
+ * and the administrator's hold it; reviewers have none. */
+const vendorList = (url: string, record: keyof Ids): RouteProbe => ({
+  path: () => url,
+  engineer: "lists",
+  reviewer: 403,
+  manager: 200,
+  admin: 200,
+  listed: (ids, body) => containsId("id", ids[record])(ids, body),
+});
 
 const ROUTES: Record<string, RouteProbe> = {
-  "GET accounts": {
-    path: () => "/api/v1/accounts",
-    engineer: "lists",
-    reviewer: 403,
-    manager: 200,
-    admin: 200,
-    listed: (ids, body) => containsId("id", ids.account)(ids, body),
-  },
+  "GET accounts": vendorList("/api/v1/accounts", "account"),
   "GET admin/outbox": {
     path: () => "/api/v1/admin/outbox",
     engineer: 403,
@@ -120,14 +125,7 @@ const ROUTES: Record<string, RouteProbe> = {
   "GET cases/[caseId]/result": { path: (i) => `/api/v1/cases/${i.case}/result`, ...vendorRead },
   "GET cases/[caseId]": { path: (i) => `/api/v1/cases/${i.case}`, ...vendorRead },
   "GET cases/[caseId]/workbook": { path: (i) => `/api/v1/cases/${i.case}/workbook`, ...vendorRead },
-  "GET cases": {
-    path: () => "/api/v1/cases",
-    engineer: "lists",
-    reviewer: 403,
-    manager: 200,
-    admin: 200,
-    listed: (ids, body) => containsId("id", ids.case)(ids, body),
-  },
+  "GET cases": vendorList("/api/v1/cases", "case"),
   // The engine on a posted case: no stored data, so no tenant; only the signed-out are refused.
   "POST evaluate": {
     path: () => "/api/v1/evaluate",
@@ -154,14 +152,7 @@ const ROUTES: Record<string, RouteProbe> = {
     manager: missingOnly,
     admin: missingOnly,
   },
-  "GET pipeline": {
-    path: () => "/api/v1/pipeline",
-    engineer: "lists",
-    reviewer: 403,
-    manager: 200,
-    admin: 403,
-    listed: (ids, body) => containsId("id", ids.proposal)(ids, body),
-  },
+  "GET pipeline": { ...vendorList("/api/v1/pipeline", "proposal"), admin: 403 },
   // The same quotes as CSV: no ids in it, so the other tenant shows by its account's name.
   "GET pipeline.csv": {
     path: () => "/api/v1/pipeline.csv",
@@ -173,10 +164,7 @@ const ROUTES: Record<string, RouteProbe> = {
   },
   "GET proposals/[proposalId]/comments": {
     path: (i) => `/api/v1/proposals/${i.proposal}/comments`,
-    engineer: "scoped",
-    reviewer: "scoped",
-    manager: 200,
-    admin: 200,
+    ...proposalRead,
   },
   "POST proposals/[proposalId]/comments": {
     path: (i) => `/api/v1/proposals/${i.proposal}/comments`,
@@ -214,10 +202,7 @@ const ROUTES: Record<string, RouteProbe> = {
   },
   "GET proposals/[proposalId]": {
     path: (i) => `/api/v1/proposals/${i.proposal}`,
-    engineer: "scoped",
-    reviewer: "scoped",
-    manager: 200,
-    admin: 200,
+    ...proposalRead,
   },
   "PATCH proposals/[proposalId]": {
     path: (i) => `/api/v1/proposals/${i.proposal}`,
@@ -237,26 +222,13 @@ const ROUTES: Record<string, RouteProbe> = {
   "POST proposals/[proposalId]/what-if": {
     path: (i) => `/api/v1/proposals/${i.proposal}/what-if`,
     body: () => ({ horizonYears: 6 }),
-    engineer: "scoped",
-    reviewer: "scoped",
-    manager: 200,
-    admin: 200,
+    ...proposalRead,
   },
   "GET proposals/[proposalId]/workbook": {
     path: (i) => `/api/v1/proposals/${i.proposal}/workbook`,
-    engineer: "scoped",
-    reviewer: "scoped",
-    manager: 200,
-    admin: 200,
+    ...proposalRead,
   },
-  "GET proposals": {
-    path: () => "/api/v1/proposals",
-    engineer: "lists",
-    reviewer: "lists",
-    manager: 200,
-    admin: 200,
-    listed: (ids, body) => containsId("id", ids.proposal)(ids, body),
-  },
+  "GET proposals": { ...vendorList("/api/v1/proposals", "proposal"), reviewer: "lists" },
   "GET sites/[siteId]/axes": { path: (i) => `/api/v1/sites/${i.site}/axes`, ...vendorRead },
   "POST sites/[siteId]/axes": {
     path: (i) => `/api/v1/sites/${i.site}/axes`,
@@ -271,14 +243,7 @@ const ROUTES: Record<string, RouteProbe> = {
     refusedBody: () => ({}),
     ...vendorWrite,
   },
-  "GET sites": {
-    path: () => "/api/v1/sites",
-    engineer: "lists",
-    reviewer: 403,
-    manager: 200,
-    admin: 200,
-    listed: (ids, body) => containsId("id", ids.site)(ids, body),
-  },
+  "GET sites": vendorList("/api/v1/sites", "site"),
 };
 
 function discoverRoutes(): string[] {
@@ -343,89 +308,119 @@ const FORM_REFUSAL = "Check the highlighted fields.";
 
 const site = { name: "Probe site", currency: "EUR", tariffPerKWh: "0.2", hoursPerYear: 4000 };
 
+// The families of actions, each with one maker, so that a table row says only what is its own.
+
+/** A vendor's write on a record: the engineer is scoped, the reviewer refused for the role, and
+ * the manager and the administrator reach it (reachOf), probed with `refusedArgs`. */
+const vendorAction = (
+  args: ActionProbe["args"],
+  refusedArgs: ActionProbe["args"],
+): ActionProbe => ({ args, refusedArgs, engineer: "scoped", reviewer: "role" });
+
+/** The source of a typed figure of one of the other tenant's records (server/evidence/actions.ts):
+ * refused as a missing record; `refused` replaces what makes the arguments fail the form check. */
+const evidenceAction = (
+  subjectType: "axis" | "machine",
+  field: string,
+  source: Record<string, string>,
+  refused: Record<string, string>,
+): ActionProbe => {
+  const subject = (i: Ids) => ({ subjectType, subjectId: i[subjectType], field });
+  return vendorAction(
+    (i) => [{ ...subject(i), ...source }],
+    (i) => [{ ...subject(i), ...refused }],
+  );
+};
+
+/** A vendor's action that takes a record's id alone (a delete, an undo, a freeze): no argument
+ * can be refused short of writing, so the roles that reach every account are probed with the id
+ * that does not exist only. */
+const idOnlyAction = (record: keyof Ids, extra: Pick<ActionProbe, "void"> = {}): ActionProbe => ({
+  args: (i) => [i[record]],
+  ...extra,
+  engineer: "scoped",
+  reviewer: "role",
+  manager: "missingOnly",
+  admin: "missingOnly",
+});
+
+/** An administrator's own action, naming no record: every other role is refused for the role;
+ * the administrator's `refusedArgs` are refused by the form check. */
+const adminAction = (
+  args: ActionProbe["args"] = () => [{}],
+  refusedArgs: ActionProbe["args"] = args,
+): ActionProbe => ({
+  args,
+  refusedArgs,
+  engineer: "role",
+  reviewer: "role",
+  manager: "role",
+  admin: "form",
+});
+
+/** The reviewer's answer on a proposal: scoped for the reviewer, refused to the vendor's roles. */
+const reviewerAction = (args: ActionProbe["args"]): ActionProbe => ({
+  args,
+  engineer: "role",
+  reviewer: "scoped",
+});
+
 const ACTIONS: Record<string, ActionProbe> = {
-  "installed-base/actions createSiteAction": {
-    args: (i) => [i.account, site],
-    refusedArgs: (i) => [i.account, {}],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "installed-base/actions updateSiteAction": {
-    args: (i) => [i.site, site],
-    refusedArgs: (i) => [i.site, {}],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "installed-base/actions createMachineAction": {
-    args: (i) => [i.site, { name: "Probe machine" }],
-    refusedArgs: (i) => [i.site, {}],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "installed-base/actions updateMachineAction": {
-    args: (i) => [i.machine, { name: "Probe machine" }],
-    refusedArgs: (i) => [i.machine, {}],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "installed-base/actions saveAxisAction": {
-    args: (i) => [i.axis, axisValues],
-    refusedArgs: (i) => [i.axis, {}],
-    engineer: "scoped",
-    reviewer: "role",
-  },
+  "installed-base/actions createSiteAction": vendorAction(
+    (i) => [i.account, site],
+    (i) => [i.account, {}],
+  ),
+  "installed-base/actions updateSiteAction": vendorAction(
+    (i) => [i.site, site],
+    (i) => [i.site, {}],
+  ),
+  "installed-base/actions createMachineAction": vendorAction(
+    (i) => [i.site, { name: "Probe machine" }],
+    (i) => [i.site, {}],
+  ),
+  "installed-base/actions updateMachineAction": vendorAction(
+    (i) => [i.machine, { name: "Probe machine" }],
+    (i) => [i.machine, {}],
+  ),
+  "installed-base/actions saveAxisAction": vendorAction(
+    (i) => [i.axis, axisValues],
+    (i) => [i.axis, {}],
+  ),
   // The source of a typed figure of the other tenant's axis: refused as a missing axis.
-  "evidence/actions saveEvidenceAction": {
-    args: (i) => [
-      {
-        subjectType: "axis",
-        subjectId: i.axis,
-        field: "stepLossEventsPerYear",
-        note: "Probe note",
-        givenOn: "2026-01-05",
-        givenBy: "Probe",
-      },
-    ],
-    refusedArgs: (i) => [
-      { subjectType: "axis", subjectId: i.axis, field: "stepLossEventsPerYear", note: "" },
-    ],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "evidence/actions clearEvidenceAction": {
-    args: (i) => [{ subjectType: "machine", subjectId: i.machine, field: "throughputGainPct" }],
-    refusedArgs: (i) => [{ subjectType: "machine", subjectId: i.machine, field: "label" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
+  "evidence/actions saveEvidenceAction": evidenceAction(
+    "axis",
+    "stepLossEventsPerYear",
+    { note: "Probe note", givenOn: "2026-01-05", givenBy: "Probe" },
+    { note: "" },
+  ),
+  "evidence/actions clearEvidenceAction": evidenceAction(
+    "machine",
+    "throughputGainPct",
+    {},
+    { field: "label" },
+  ),
   // Creating an account names no record: a name the other tenant's account holds is refused
   // (names are unique across accounts) the same way whatever the ids, and nothing is written.
   "accounts/actions createAccountAction": {
-    args: () => [{ name: "Pipetteworks Lab Automation" }],
-    refusedArgs: () => [{ name: "" }],
-    engineer: "scoped",
-    reviewer: "role",
+    ...vendorAction(
+      () => [{ name: "Pipetteworks Lab Automation" }],
+      () => [{ name: "" }],
+    ),
     manager: "form",
     admin: "form",
   },
-  "accounts/actions renameAccountAction": {
-    args: (i) => [{ accountId: i.account, name: "Probe account" }],
-    refusedArgs: (i) => [{ accountId: i.account, name: "" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "accounts/actions shareAccountAction": {
-    args: (i) => [{ accountId: i.account, userId: 1 }],
-    refusedArgs: (i) => [{ accountId: i.account, userId: "" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "accounts/actions unshareAccountAction": {
-    args: (i) => [{ accountId: i.account, userId: 1 }],
-    refusedArgs: (i) => [{ accountId: i.account, userId: "" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
+  "accounts/actions renameAccountAction": vendorAction(
+    (i) => [{ accountId: i.account, name: "Probe account" }],
+    (i) => [{ accountId: i.account, name: "" }],
+  ),
+  "accounts/actions shareAccountAction": vendorAction(
+    (i) => [{ accountId: i.account, userId: 1 }],
+    (i) => [{ accountId: i.account, userId: "" }],
+  ),
+  "accounts/actions unshareAccountAction": vendorAction(
+    (i) => [{ accountId: i.account, userId: 1 }],
+    (i) => [{ accountId: i.account, userId: "" }],
+  ),
   "accounts/actions reassignOwnerAction": {
     args: (i) => [{ accountId: i.account, ownerId: 1 }],
     refusedArgs: (i) => [{ accountId: i.account, ownerId: "" }],
@@ -434,211 +429,78 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "reaches",
     admin: "reaches",
   },
-  "accounts/actions archiveAccountAction": {
-    args: (i) => [{ accountId: i.account }],
-    refusedArgs: () => [{ accountId: "none" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "accounts/actions restoreAccountAction": {
-    args: (i) => [{ accountId: i.account }],
-    refusedArgs: () => [{ accountId: "none" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  // Deletes and undo take an id alone: no argument can be refused short of deleting, so the
-  // roles that reach every account are probed with the id that does not exist only.
-  "installed-base/delete-actions deleteSiteAction": {
-    args: (i) => [i.site],
-    engineer: "scoped",
-    reviewer: "role",
-    manager: "missingOnly",
-    admin: "missingOnly",
-  },
-  "installed-base/delete-actions deleteMachineAction": {
-    args: (i) => [i.machine],
-    engineer: "scoped",
-    reviewer: "role",
-    manager: "missingOnly",
-    admin: "missingOnly",
-  },
-  "installed-base/delete-actions deleteAxisAction": {
-    args: (i) => [i.axis],
-    engineer: "scoped",
-    reviewer: "role",
-    manager: "missingOnly",
-    admin: "missingOnly",
-  },
+  "accounts/actions archiveAccountAction": vendorAction(
+    (i) => [{ accountId: i.account }],
+    () => [{ accountId: "none" }],
+  ),
+  "accounts/actions restoreAccountAction": vendorAction(
+    (i) => [{ accountId: i.account }],
+    () => [{ accountId: "none" }],
+  ),
+  "installed-base/delete-actions deleteSiteAction": idOnlyAction("site"),
+  "installed-base/delete-actions deleteMachineAction": idOnlyAction("machine"),
+  "installed-base/delete-actions deleteAxisAction": idOnlyAction("axis"),
   // An undo belongs to whoever deleted: anyone else's, or none, is not found.
-  "installed-base/delete-actions undoDeletionAction": {
-    args: (i) => [i.axis],
-    engineer: "scoped",
-    reviewer: "role",
-    manager: "missingOnly",
-    admin: "missingOnly",
-  },
-  "installed-base/delete-actions duplicateMachineAction": {
-    args: (i) => [i.machine, { name: "Probe machine copy" }],
-    refusedArgs: (i) => [i.machine, { name: "" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "cases/actions setCaseAxesRetrofitAction": {
-    args: (i) => [i.case, { axisIds: [i.axis], discountPct: 12 }],
-    refusedArgs: (i) => [i.case, { axisIds: [] }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "cases/actions updateCaseDetailsAction": {
-    args: (i) => [i.case, { name: "Probe case", notes: "" }],
-    refusedArgs: (i) => [i.case, { name: "" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "cases/actions duplicateCaseAction": {
-    args: (i) => [i.case, { name: "Probe case copy" }],
-    refusedArgs: (i) => [i.case, { name: "" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "invitations/actions resendInvitationAction": {
-    args: () => [{}],
-    refusedArgs: () => [{}],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "invitations/actions revokeInvitationAction": {
-    args: () => [{}],
-    refusedArgs: () => [{}],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "admin/actions createUserAction": {
-    args: () => [{}],
-    refusedArgs: () => [{}],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "admin/actions changeRoleAction": {
-    args: () => [{}],
-    refusedArgs: () => [{}],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "admin/actions setActiveAction": {
-    args: () => [{}],
-    refusedArgs: () => [{}],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "admin/actions saveSalesSettingsAction": {
-    args: () => [{}],
-    refusedArgs: () => [{}],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "cases/actions createCaseAction": {
-    args: (i) => [{ name: "Probe case", siteId: i.site }],
-    refusedArgs: (i) => [{ name: "", siteId: i.site }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "cases/actions updateAssumptionsAction": {
-    args: (i) => [i.case, assumptionValues],
-    refusedArgs: (i) => [i.case, {}],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "cases/actions setCaseAxesAction": {
-    args: (i) => [i.case, { axisIds: [i.axis] }],
-    refusedArgs: (i) => [i.case, { axisIds: "all" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "cases/actions setAxisRetrofitAction": {
-    args: (i) => [i.case, i.axis, { kitId: 1 }],
-    refusedArgs: (i) => [i.case, i.axis, { kitId: "any" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "cases/actions suggestKitsAction": {
-    args: (i) => [i.case],
-    engineer: "scoped",
-    reviewer: "role",
-    manager: "missingOnly",
-    admin: "missingOnly",
-  },
-  "cases/actions freezeProposalAction": {
-    args: (i) => [i.case],
-    engineer: "scoped",
-    reviewer: "role",
-    manager: "missingOnly",
-    admin: "missingOnly",
-  },
-  "catalogue/actions saveKitAction": {
-    args: () => [{}, 1],
-    refusedArgs: () => [{}, 1],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "catalogue/actions saveMotorAction": {
-    args: () => [{}, 1],
-    refusedArgs: () => [{}, 1],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "catalogue/actions setCatalogueActiveAction": {
-    args: () => [{ kind: "kit", id: 1, active: false }],
-    refusedArgs: () => [{ kind: "kit", id: 1, active: "no" }],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "dossiers/actions saveDossierSettingsAction": {
-    args: (i) => [i.proposal, { seed: 7, ...DEFAULT_RANGES }],
-    refusedArgs: (i) => [i.proposal, { seed: -1 }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "dossiers/actions setDossierPriceAction": {
-    args: () => [{ amount: "1.00", currency: "EUR" }],
-    refusedArgs: () => [{ amount: "-1", currency: "EUR" }],
-    engineer: "role",
-    reviewer: "role",
-    manager: "role",
-    admin: "form",
-  },
-  "dossiers/actions closeDossierCheckoutAction": {
-    args: (i) => [i.proposal],
-    void: true,
-    engineer: "scoped",
-    reviewer: "role",
-    manager: "missingOnly",
-    admin: "missingOnly",
-  },
-  "proposals/actions sendProposalAction": {
-    args: (i) => [i.proposal, { email: "probe@example.invalid", name: "Probe" }],
-    refusedArgs: (i) => [i.proposal, { email: "not an address", name: "Probe" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
+  "installed-base/delete-actions undoDeletionAction": idOnlyAction("axis"),
+  "installed-base/delete-actions duplicateMachineAction": vendorAction(
+    (i) => [i.machine, { name: "Probe machine copy" }],
+    (i) => [i.machine, { name: "" }],
+  ),
+  "cases/actions setCaseAxesRetrofitAction": vendorAction(
+    (i) => [i.case, { axisIds: [i.axis], discountPct: 12 }],
+    (i) => [i.case, { axisIds: [] }],
+  ),
+  "cases/actions updateCaseDetailsAction": vendorAction(
+    (i) => [i.case, { name: "Probe case", notes: "" }],
+    (i) => [i.case, { name: "" }],
+  ),
+  "cases/actions duplicateCaseAction": vendorAction(
+    (i) => [i.case, { name: "Probe case copy" }],
+    (i) => [i.case, { name: "" }],
+  ),
+  "invitations/actions resendInvitationAction": adminAction(),
+  "invitations/actions revokeInvitationAction": adminAction(),
+  "admin/actions createUserAction": adminAction(),
+  "admin/actions changeRoleAction": adminAction(),
+  "admin/actions setActiveAction": adminAction(),
+  "admin/actions saveSalesSettingsAction": adminAction(),
+  "cases/actions createCaseAction": vendorAction(
+    (i) => [{ name: "Probe case", siteId: i.site }],
+    (i) => [{ name: "", siteId: i.site }],
+  ),
+  "cases/actions updateAssumptionsAction": vendorAction(
+    (i) => [i.case, assumptionValues],
+    (i) => [i.case, {}],
+  ),
+  "cases/actions setCaseAxesAction": vendorAction(
+    (i) => [i.case, { axisIds: [i.axis] }],
+    (i) => [i.case, { axisIds: "all" }],
+  ),
+  "cases/actions setAxisRetrofitAction": vendorAction(
+    (i) => [i.case, i.axis, { kitId: 1 }],
+    (i) => [i.case, i.axis, { kitId: "any" }],
+  ),
+  "cases/actions suggestKitsAction": idOnlyAction("case"),
+  "cases/actions freezeProposalAction": idOnlyAction("case"),
+  "catalogue/actions saveKitAction": adminAction(() => [{}, 1]),
+  "catalogue/actions saveMotorAction": adminAction(() => [{}, 1]),
+  "catalogue/actions setCatalogueActiveAction": adminAction(
+    () => [{ kind: "kit", id: 1, active: false }],
+    () => [{ kind: "kit", id: 1, active: "no" }],
+  ),
+  "dossiers/actions saveDossierSettingsAction": vendorAction(
+    (i) => [i.proposal, { seed: 7, ...DEFAULT_RANGES }],
+    (i) => [i.proposal, { seed: -1 }],
+  ),
+  "dossiers/actions setDossierPriceAction": adminAction(
+    () => [{ amount: "1.00", currency: "EUR" }],
+    () => [{ amount: "-1", currency: "EUR" }],
+  ),
+  "dossiers/actions closeDossierCheckoutAction": idOnlyAction("proposal", { void: true }),
+  "proposals/actions sendProposalAction": vendorAction(
+    (i) => [i.proposal, { email: "probe@example.invalid", name: "Probe" }],
+    (i) => [i.proposal, { email: "not an address", name: "Probe" }],
+  ),
   "proposals/actions approveDiscountAction": {
     args: (i) => [i.proposal],
     engineer: "role",
@@ -654,22 +516,18 @@ const ACTIONS: Record<string, ActionProbe> = {
     manager: "reaches",
     admin: "role",
   },
-  "proposals/actions addVendorCommentAction": {
-    args: (i) => [i.proposal, { body: "probe from another account" }],
-    refusedArgs: (i) => [i.proposal, { body: "" }],
-    engineer: "scoped",
-    reviewer: "role",
-  },
-  "review/actions decideAction": {
-    args: (i) => [i.proposal, { decision: "accept", comment: "" }],
-    engineer: "role",
-    reviewer: "scoped",
-  },
-  "review/actions addReviewerCommentAction": {
-    args: (i) => [i.proposal, { body: "probe from another account" }],
-    engineer: "role",
-    reviewer: "scoped",
-  },
+  "proposals/actions addVendorCommentAction": vendorAction(
+    (i) => [i.proposal, { body: "probe from another account" }],
+    (i) => [i.proposal, { body: "" }],
+  ),
+  "review/actions decideAction": reviewerAction((i) => [
+    i.proposal,
+    { decision: "accept", comment: "" },
+  ]),
+  "review/actions addReviewerCommentAction": reviewerAction((i) => [
+    i.proposal,
+    { body: "probe from another account" },
+  ]),
 };
 
 /** The manager's or administrator's expectation of an action (see ActionProbe). */
@@ -781,10 +639,7 @@ const bodyOf = async (res: Response): Promise<unknown> =>
 const one = <T>(sql: string, ...args: unknown[]) => database.prepare(sql).get(...args) as T;
 
 beforeAll(async () => {
-  const account = one<{ id: number }>(
-    "select id from accounts where name = ?",
-    FOREIGN_ACCOUNT,
-  ).id;
+  const account = one<{ id: number }>("select id from accounts where name = ?", FOREIGN_ACCOUNT).id;
   const siteRow = one<{ id: number }>(
     "select id from sites where account_id = ? order by id",
     account,

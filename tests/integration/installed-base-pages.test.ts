@@ -1,7 +1,4 @@
 import "../support/node-async-storage";
-import { AppRouterContext } from "next/dist/shared/lib/app-router-context.shared-runtime";
-import { createElement, type ReactNode } from "react";
-import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import AccountPage from "@/app/(app)/(installed-base)/accounts/[accountId]/page";
 import MachinePage from "@/app/(app)/(installed-base)/machines/[machineId]/page";
@@ -21,26 +18,10 @@ import {
 import { axisInputSchema, siteInputSchema } from "@/lib/validations/installed-base";
 import { caller } from "../support/callers";
 import { asRequestOf } from "../support/next-request";
+import { renderPageAs, renderWithRouter } from "../support/render-page";
 
 const engineer = () => caller("engineer@example.com");
 const reviewer = () => caller("reviewer@example.com");
-
-// Client parts need the App Router's context, which only next start provides: an inert one
-// stands in for it (as in stored-out-of-bounds.test.ts).
-function html(page: ReactNode) {
-  const noop = () => {};
-  const router = {
-    back: noop,
-    forward: noop,
-    refresh: noop,
-    push: noop,
-    replace: noop,
-    prefetch: noop,
-  };
-  return renderToStaticMarkup(
-    createElement(AppRouterContext.Provider, { value: router as never }, page),
-  );
-}
 
 const axisValues = (machineId: number, label: string) =>
   axisInputSchema.parse({
@@ -91,13 +72,12 @@ function setUp(name: string) {
 describe("the installed-base screens", () => {
   it("the machine page shows its figures, links its axes and says what a delete takes", async () => {
     const { machine, axisIds } = setUp("Page machine");
-    const page = await asRequestOf(engineer(), () =>
+    const out = await renderPageAs(engineer(), () =>
       MachinePage({
         params: Promise.resolve({ machineId: String(machine.id) }),
         searchParams: Promise.resolve({}),
       }),
     );
-    const out = html(page);
     expect(out).toContain(machine.name);
     expect(out).toContain("Axis rows");
     for (const id of axisIds) expect(out).toContain(`href="/axes/${id}"`);
@@ -124,13 +104,13 @@ describe("the installed-base screens", () => {
       ok: false,
       message: "Nothing to undo: the deletion has expired or was undone",
     });
-    const notice = html(RemovedAxesNotice({ user: engineer(), caseId: draft.id }));
+    const notice = renderWithRouter(RemovedAxesNotice({ user: engineer(), caseId: draft.id }));
     expect(notice).toContain("Removed from the installed base since this case was built");
     expect(notice).toContain(
       `Action axis axis 1 on ${machine.name} (deleted on its own), by ${engineer().name}, ${new Date().toISOString().slice(0, 10)}`,
     );
     expect(undoDeletion(engineer(), done.data.undoId)).toMatchObject({ kind: "axis" });
-    expect(html(RemovedAxesNotice({ user: engineer(), caseId: draft.id }))).toBe("");
+    expect(renderWithRouter(RemovedAxesNotice({ user: engineer(), caseId: draft.id }))).toBe("");
   });
 
   it("duplicate names the field when the name is missing or taken", async () => {
@@ -161,13 +141,12 @@ describe("the installed-base screens", () => {
       ok: false,
     });
     const done = { data: deleteSite(engineer(), site.id) };
-    const page = await asRequestOf(engineer(), () =>
+    const out = await renderPageAs(engineer(), () =>
       AccountPage({
         params: Promise.resolve({ accountId: String(accountId) }),
         searchParams: Promise.resolve({ deleted: String(done.data.undoId), q: "Action" }),
       }),
     );
-    const out = html(page);
     expect(out).toContain(`Deleted site ${site.name}.`);
     expect(out).toContain(">Undo<");
     expect(out).not.toContain(`>${site.name}<`);

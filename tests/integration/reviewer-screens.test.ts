@@ -1,9 +1,6 @@
 import "../support/node-async-storage";
 import { eq } from "drizzle-orm";
-import { AppRouterContext } from "next/dist/shared/lib/app-router-context.shared-runtime";
-import { PathnameContext } from "next/dist/shared/lib/hooks-client-context.shared-runtime";
-import { createElement, type ReactNode } from "react";
-import { renderToStaticMarkup } from "react-dom/server";
+import { createElement } from "react";
 import { afterEach, beforeAll, describe, expect, it } from "vitest";
 import InvitationPage from "@/app/(auth)/invitation/[token]/page";
 import VendorLayout from "@/app/(app)/layout";
@@ -15,31 +12,13 @@ import { accounts, cases, proposals, sites } from "@/db/schema";
 import { vendorCompanyName } from "@/lib/vendor-name";
 import { paymentsTestMode } from "@/server/payments/config";
 import { caller } from "../support/callers";
-import { asRequestOf } from "../support/next-request";
+import { renderPageAs, renderWithRouter } from "../support/render-page";
 
 const admin = () => caller("admin@example.com");
 const engineer = () => caller("engineer@example.com");
 
-// Client parts need the App Router's context, which only next start provides: an inert one
-// stands in for it (as in installed-base-pages.test.ts), with the path the shell's menu marks.
-function html(page: ReactNode, pathname = "/") {
-  const noop = () => {};
-  const router = {
-    back: noop,
-    forward: noop,
-    refresh: noop,
-    push: noop,
-    replace: noop,
-    prefetch: noop,
-  };
-  return renderToStaticMarkup(
-    createElement(
-      AppRouterContext.Provider,
-      { value: router as never },
-      createElement(PathnameContext.Provider, { value: pathname }, page),
-    ),
-  );
-}
+// The shell's menu marks the page's path: these render at the root.
+const ROOT = "/";
 
 const BANNER = "TEST MODE";
 
@@ -48,11 +27,13 @@ describe("the vendor's test-mode banner", () => {
     // The integration run uses the local test payment service, as `npm start` does without keys.
     expect(paymentsTestMode()).toBe(true);
     const child = createElement("p", null, "page body");
-    const vendor = html(await asRequestOf(engineer(), () => VendorLayout({ children: child })));
+    const vendor = await renderPageAs(engineer(), () => VendorLayout({ children: child }), ROOT);
     expect(vendor).toContain("page body");
     expect(vendor).toContain(BANNER);
-    const review = html(
-      await asRequestOf(caller("reviewer@example.com"), () => ReviewLayout({ children: child })),
+    const review = await renderPageAs(
+      caller("reviewer@example.com"),
+      () => ReviewLayout({ children: child }),
+      ROOT,
     );
     expect(review).toContain("page body");
     expect(review).not.toContain(BANNER);
@@ -113,7 +94,7 @@ function invite(proposalId: number, now = new Date()) {
 }
 
 const page = async (token: string) =>
-  html(await InvitationPage({ params: Promise.resolve({ token }) }));
+  renderWithRouter(await InvitationPage({ params: Promise.resolve({ token }) }), ROOT);
 
 describe("the invitation page, written for the finance reviewer", () => {
   it("says who invited them, from which company, to which proposal of which account, and what they can do", async () => {

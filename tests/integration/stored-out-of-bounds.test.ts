@@ -1,9 +1,6 @@
 // First: Next.js reads the request scope's storage from globalThis when its modules load.
 import "../support/node-async-storage";
 import { eq, sql } from "drizzle-orm";
-import { AppRouterContext } from "next/dist/shared/lib/app-router-context.shared-runtime";
-import { createElement } from "react";
-import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import EditAxisPage from "@/app/(app)/(installed-base)/axes/[axisId]/page";
 import { freezeProposalAction, suggestKitsAction } from "@/server/cases/actions";
@@ -27,6 +24,7 @@ import { openQuoteFor } from "@/db/queries/quote-open";
 import { proposals } from "@/db/schema";
 import { caller } from "../support/callers";
 import { asRequestOf } from "../support/next-request";
+import { renderPageAs } from "../support/render-page";
 
 // Issue 13, finding 6: an axis saved before the bounds existed (ambientC −1000 °C, written here
 // straight into the migrated SQLite file, as an old version stored it) must not break its case
@@ -161,21 +159,10 @@ describe("an axis stored out of bounds by an old version", () => {
 
   it("the axis edit screen's API reads the stored value and takes the correction; then the case evaluates", async () => {
     // The edit page itself renders its form around the stored row (its client part needs the
-    // App Router's context, which only next start provides: an inert one stands in for it).
-    const page = await as(() =>
+    // App Router's context, which only next start provides: tests/support/render-page.ts gives
+    // an inert one).
+    const html = await renderPageAs(engineer(), () =>
       EditAxisPage({ params: Promise.resolve({ axisId: String(axis.axisId) }) }),
-    );
-    const noop = () => {};
-    const router = {
-      back: noop,
-      forward: noop,
-      refresh: noop,
-      push: noop,
-      replace: noop,
-      prefetch: noop,
-    };
-    const html = renderToStaticMarkup(
-      createElement(AppRouterContext.Provider, { value: router as never }, page),
     );
     expect(html).toContain(`Edit ${axis.label}`);
     expect(html).toContain('name="ambientC"');

@@ -1,6 +1,5 @@
 // First: Next.js reads the request scope's storage from globalThis when its modules load.
 import "../support/node-async-storage";
-import { AppRouterContext } from "next/dist/shared/lib/app-router-context.shared-runtime";
 import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
@@ -33,6 +32,7 @@ import { evidencedReliance } from "@/lib/results/value-reliance";
 import { axisInputSchema } from "@/lib/validations/installed-base";
 import { caller } from "../support/callers";
 import { asRequestOf } from "../support/next-request";
+import { renderPageAs } from "../support/render-page";
 
 // Issue 16, evidence for what is typed: a step-loss event's cost built up from downtime, scrap and
 // restart labour, saved through the API and the axis form's schema; the source of each typed
@@ -152,20 +152,8 @@ describe("the cost of a step-loss event built up from what it causes", () => {
     );
 
     // The edit page shows the built-up cost priced with this case's rates, by case name.
-    const page = await as(() =>
+    const html = await renderPageAs(engineer(), () =>
       EditAxisPage({ params: Promise.resolve({ axisId: String(stored.id) }) }),
-    );
-    const noop = () => {};
-    const router = {
-      back: noop,
-      forward: noop,
-      refresh: noop,
-      push: noop,
-      replace: noop,
-      prefetch: noop,
-    };
-    const html = renderToStaticMarkup(
-      createElement(AppRouterContext.Provider, { value: router as never }, page),
     );
     expect(html).toContain("Built up from downtime, scrap and restart labour");
     expect(html).toContain(`${target.name}:`);
