@@ -132,5 +132,9 @@ describe("the dossier's headline and the recorded sources of the frozen figures"
       expect(html).toContain("Every typed figure the value rests on has a recorded source.");
       expect(html).toContain("Source: Shift log, weeks 1 to 12 — Line supervisor, 2026-11-02");
     }
+    // Another tenant's engineer gets the page's 404, not the report or its sources.
+    await expect(
+      asRequestOf(caller("engineer2@example.com"), () => VendorDossierPage(params())),
+    ).rejects.toThrow(/NEXT_HTTP_ERROR_FALLBACK;404/);
   });
 });
