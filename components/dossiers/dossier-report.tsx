@@ -9,8 +9,10 @@ import { MonthlyCashChart } from "@/components/dossiers/monthly-cash-chart";
 import { ValueBySourcePanel } from "@/components/dossiers/value-by-source-panel";
 import { BreakEvenPanel } from "@/components/results/break-even-panel";
 import { CautionsPanel } from "@/components/results/cautions-panel";
+import { EvidenceSources } from "@/components/results/evidence-sources";
 import { HeadlineCards } from "@/components/results/headline-cards";
 import { MotionTable } from "@/components/results/motion-table";
+import type { CaseEvidence } from "@/components/results/reliance-note";
 import { TornadoChart } from "@/components/results/tornado-chart";
 import { TorqueSpeedChart } from "@/components/results/torque-speed-chart";
 import { ValueByMachineTable } from "@/components/results/value-by-machine-table";
@@ -25,6 +27,7 @@ import { npvHistogram } from "@/lib/results/dossier";
 export const DOSSIER_CONTENTS = [
   "Everything in the proposal workbook, recomputed from the frozen input",
   "Value by source over the horizon for each scenario, plain and discounted, and by machine",
+  "The typed figures the value rests on, each with its recorded source or the lack of one",
   "Cash flow month by month over the horizon",
   "Payback over tariff × running hours",
   "Sensitivity of NPV and payback at ±10, ±20 and ±30 %",
@@ -45,13 +48,23 @@ export function DossierContentsList() {
 /**
  * The paid dossier's report body, the same for the vendor's people and the customer's reviewer:
  * headline figures, uncertainty, monthly cash, payback grid, swings, charts, cautions, axes.
+ * The headline weighs the recorded sources of the frozen figures as the proposal pages do, and
+ * the typed figures are listed beside their sources, read only: a report records nothing.
  */
-export function DossierReport({ dossier, input }: { dossier: Dossier; input: ParsedCase }) {
+export function DossierReport({
+  dossier,
+  input,
+  evidence,
+}: {
+  dossier: Dossier;
+  input: ParsedCase;
+  evidence: CaseEvidence;
+}) {
   const { result } = dossier;
   const swing30 = dossier.sensitivity.find((s) => s.swingPct === 30)!;
   return (
     <>
-      <HeadlineCards result={result} input={input} />
+      <HeadlineCards result={result} input={input} evidence={evidence} />
       <BreakEvenPanel result={result} input={input} />
       <UncertaintySummary dossier={dossier} />
       <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
@@ -76,6 +89,13 @@ export function DossierReport({ dossier, input }: { dossier: Dossier; input: Par
       <ValueBySourcePanel result={result} input={input} />
       <ValueBySourceTable result={result} />
       <ValueByMachineTable result={result} input={input} />
+      <EvidenceSources
+        result={result}
+        input={input}
+        caseId={evidence.caseId}
+        index={evidence.index}
+        readOnly
+      />
       <MotionTable result={result} input={input} />
       <WarningsPanel result={result} input={input} />
       <AxisStatesPanel dossier={dossier} />

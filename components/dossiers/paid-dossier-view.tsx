@@ -3,16 +3,21 @@ import { DossierReport } from "@/components/dossiers/dossier-report";
 import { DossierSkeleton } from "@/components/dossiers/dossier-skeleton";
 import { PrintButton } from "@/components/dossiers/print-button";
 import { MethodLink } from "@/components/results/method-link";
+import type { CaseEvidence } from "@/components/results/reliance-note";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { buildDossier } from "@/lib/dossier";
+import type { EvidenceIndex } from "@/lib/evidence/subjects";
+import type { RelianceAudience } from "@/lib/results/headline-reliance";
 import { ENGINE_VERSION, type CaseInput, type ParsedCase } from "@/lib/engine";
 import { StoredInputError } from "@/lib/errors";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 
 /**
  * A paid dossier as the vendor's people and the customer's reviewer both read it: built from the
- * frozen input through the engine, with the workbook download and the print button. `children`
+ * frozen input through the engine, with the workbook download and the print button. `evidence`
+ * is the recorded sources of the frozen figures, read by the page in the reader's scope (the
+ * vendor's case, the reviewer's proposal: db/queries/evidence.ts). `children`
  * come after the report (the vendor's ranges form). The header is sent at once; the report,
  * whose draws take a second or more on a large case, streams in behind a skeleton of its shape.
  */
@@ -22,6 +27,7 @@ export function PaidDossierView({
   crumbs,
   proposal,
   settings,
+  evidence,
   methodHref,
   children,
 }: {
@@ -36,6 +42,7 @@ export function PaidDossierView({
     version: number;
   };
   settings: Parameters<typeof buildDossier>[1];
+  evidence: { index: EvidenceIndex; audience: RelianceAudience };
   /** The method page of the reader's shell. */
   methodHref: string;
   children?: ReactNode;
@@ -91,7 +98,11 @@ export function PaidDossierView({
         <MethodLink href={methodHref} />
       </p>
       <Suspense fallback={<DossierSkeleton />}>
-        <ComputedDossier input={input} settings={settings} />
+        <ComputedDossier
+          input={input}
+          settings={settings}
+          evidence={{ caseId: proposal.caseId, ...evidence }}
+        />
       </Suspense>
       {children}
     </div>
@@ -102,12 +113,16 @@ export function PaidDossierView({
 async function ComputedDossier({
   input,
   settings,
+  evidence,
 }: {
   input: ParsedCase;
   settings: Parameters<typeof buildDossier>[1];
+  evidence: CaseEvidence;
 }) {
   // The draws are synchronous work: yielding once lets React send the shell and the skeleton
   // before the event loop is busy with them.
   await new Promise((resolve) => setImmediate(resolve));
-  return <DossierReport dossier={buildDossier(input, settings)} input={input} />;
+  return (
+    <DossierReport dossier={buildDossier(input, settings)} input={input} evidence={evidence} />
+  );
 }

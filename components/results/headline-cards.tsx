@@ -13,7 +13,6 @@ import {
   formatTonnes,
 } from "@/lib/results/format";
 import { scenarioHeadlines, type ScenarioHeadline } from "@/lib/results/scenarios";
-import { valueReliance } from "@/lib/results/value-reliance";
 import { RelianceNote, type CaseEvidence } from "./reliance-note";
 
 export type { CaseEvidence };
@@ -37,6 +36,8 @@ export function HeadlineCards({
       <h2 id="headline-title" className="sr-only">
         Headline figures by scenario
       </h2>
+      {/* Once for the three cards: they share their typed figures (lib/results/headline-reliance.ts). */}
+      <RelianceNote result={result} input={input} evidence={evidence} className="mb-4" />
       <div className="grid gap-4 md:grid-cols-3">
         {headlines.map((h) => (
           <ScenarioCard
@@ -45,9 +46,6 @@ export function HeadlineCards({
             scenario={result.scenarios[h.key]}
             currency={result.currency}
             horizonYears={horizonYears}
-            result={result}
-            input={input}
-            evidence={evidence}
           />
         ))}
       </div>
@@ -63,23 +61,15 @@ function ScenarioCard({
   scenario,
   currency,
   horizonYears,
-  result,
-  input,
-  evidence,
 }: {
   headline: ScenarioHeadline;
   scenario: Scenario;
   currency: string;
   horizonYears: number;
-  result: CaseResult;
-  input: ParsedCase | null;
-  evidence?: CaseEvidence;
 }) {
   const primary = h.key === "physics";
   const negative = h.npv.startsWith("-");
   const titleId = `scenario-${h.key}-title`;
-  // More than half of the value on typed figures: say so where the headline number is read.
-  const reliance = valueReliance(scenario);
   return (
     <article
       aria-labelledby={titleId}
@@ -102,13 +92,6 @@ function ScenarioCard({
           {formatMoneyHeadline(h.npv, currency)}
         </data>
       </p>
-      <RelianceNote
-        scenario={scenario}
-        result={result}
-        input={input}
-        evidence={evidence}
-        fallback={reliance}
-      />
       <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-small">
         <Row term={FINANCE_TERMS.upFrontCost} value={formatMoney(h.capex, currency)} />
         <Row term="Payback" value={paybackShort(scenario, horizonYears)} />

@@ -311,29 +311,6 @@ function groupWords(first: Figure, count: number): string {
 const sumYears = (years: readonly string[] | undefined): Decimal =>
   (years ?? []).reduce<Decimal>((acc, y) => acc.plus(y), new Money(0));
 
-/** The headline's warning: how much rests on figures without a source, and the first few of them. */
-export function unevidencedSentence(
-  reliance: EvidencedReliance,
-  shown = 4,
-  /** Who reads it: the vendor records sources; the customer's reviewer asks for them. */
-  audience: "vendor" | "reviewer" = "vendor",
-): string {
-  const figures = reliance.unevidencedFigures;
-  const named = figures.slice(0, shown);
-  const more = figures.length - named.length;
-  const list =
-    more > 0
-      ? `${named.join("; ")}; and ${more} more`
-      : named.length > 1
-        ? `${named.slice(0, -1).join("; ")} and ${named[named.length - 1]}`
-        : (named[0] ?? "");
-  const ask =
-    audience === "reviewer"
-      ? "Ask your supplier where each comes from before relying on this figure."
-      : "Record where each comes from (a note, a date and who gave it) before relying on this figure.";
-  return `${reliance.unevidencedPct} % of the value over the horizon rests on typed figures with no recorded source${list ? `: ${list}` : ""}. ${ask}`;
-}
-
 /** One typed figure the value rests on, with the yearly value of the parts resting on it. */
 export interface TypedValueFigure {
   key: string;

@@ -223,6 +223,8 @@ describe("the source of each typed figure", () => {
     expect(none!.mostlyUnevidenced).toBe(true);
     const html = headline({});
     expect(html).toContain("Mostly typed figures without a source.");
+    // Once above the three scenario cards, not on each of them.
+    expect(html.split('data-testid="unevidenced-warning"')).toHaveLength(2);
     expect(html).toContain(none!.unevidencedFigures[0]);
 
     // A source for every typed figure of the case, its axes and their machines.

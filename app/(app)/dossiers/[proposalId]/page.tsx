@@ -6,6 +6,8 @@ import { UncertaintyForm } from "@/components/dossiers/uncertainty-form";
 import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
+import { listProposalEvidence } from "@/db/queries/evidence";
+import { frozenSubjects, indexEvidence } from "@/lib/evidence/subjects";
 import { requirePageUser } from "@/server/auth";
 import { formatMoney } from "@/lib/results/format";
 import { idParam, orNotFound } from "@/lib/pages";
@@ -69,6 +71,10 @@ export default async function DossierPage({ params }: { params: Promise<{ propos
     );
   }
 
+  // The sources recorded for the frozen figures' axes, machines and case, as they stand now.
+  const evidence = indexEvidence(
+    listProposalEvidence(user, proposal.caseId, frozenSubjects(proposal.input)),
+  );
   return (
     <PaidDossierView
       proposalId={id}
@@ -76,6 +82,7 @@ export default async function DossierPage({ params }: { params: Promise<{ propos
       crumbs={crumbs}
       proposal={proposal}
       settings={settings}
+      evidence={{ index: evidence, audience: "vendor" }}
       methodHref="/method"
     >
       {rangesPanel}

@@ -6,6 +6,8 @@ import { Breadcrumbs } from "@/components/ui/breadcrumbs";
 import { buttonClass } from "@/components/ui/button";
 import { PageHeader, Panel } from "@/components/ui/panel";
 import { getDossierAccess, getDossierSettings } from "@/db/queries/dossiers";
+import { listReviewedProposalEvidence } from "@/db/queries/evidence";
+import { frozenSubjects, indexEvidence } from "@/lib/evidence/subjects";
 import { requirePageUser } from "@/server/auth";
 import { idParam, orNotFound } from "@/lib/pages";
 
@@ -56,6 +58,10 @@ export default async function ReviewDossierPage({
     );
   }
 
+  // The supplier's recorded sources of the frozen figures, in the proposal's scope, read only.
+  const evidence = indexEvidence(
+    listReviewedProposalEvidence(user, id, frozenSubjects(proposal.input)),
+  );
   return (
     <PaidDossierView
       proposalId={id}
@@ -63,6 +69,7 @@ export default async function ReviewDossierPage({
       crumbs={crumbs}
       proposal={proposal}
       settings={getDossierSettings(user, id)}
+      evidence={{ index: evidence, audience: "reviewer" }}
       methodHref="/review/method"
     />
   );
