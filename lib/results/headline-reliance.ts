@@ -5,8 +5,11 @@ import { DEFAULT_BAND } from "./case-view";
 import { SCENARIO_KEYS, type ScenarioKey } from "./scenarios";
 import { evidencedReliance, relianceSentence, valueReliance } from "./value-reliance";
 
-/** Who reads the headline's warning: the vendor records sources, the customer's reviewer asks for them. */
-export type RelianceAudience = "vendor" | "reviewer";
+/**
+ * Who reads the headline's warning: the vendor records sources, the customer's reviewer asks for
+ * them, and a report (the dossier the vendor hands on) tells whoever holds it to check them.
+ */
+export type RelianceAudience = "vendor" | "reviewer" | "report";
 
 /** The recorded sources the headline weighs (db/queries/evidence.ts), with whose screen it is. */
 export interface HeadlineEvidence {
@@ -42,9 +45,14 @@ export function figureList(figures: readonly string[], shown = NAMED): string {
 
 /** What the reader of the warning does about figures without a source. */
 export function askForSources(audience: RelianceAudience = "vendor"): string {
-  return audience === "reviewer"
-    ? "Ask your supplier where each comes from before relying on the net present value."
-    : "Record where each comes from (a note, a date and who gave it) before relying on the net present value.";
+  switch (audience) {
+    case "reviewer":
+      return "Ask your supplier where each comes from before relying on the net present value.";
+    case "report":
+      return "Check where each comes from before relying on the net present value.";
+    case "vendor":
+      return "Record where each comes from (a note, a date and who gave it) before relying on the net present value.";
+  }
 }
 
 /** One scenario's share of the value the note is about, and whether it is more than half. */

@@ -93,7 +93,8 @@ describe("the dossier's headline and the recorded sources of the frozen figures"
     expect(count(vendor, 'data-testid="unevidenced-warning"')).toBe(1);
     expect(count(vendor, "Mostly typed figures without a source.")).toBe(1);
     expect(vendor).toContain(escaped(none.unevidencedFigures[0]!));
-    expect(vendor).toContain("Record where each comes from");
+    expect(vendor).toContain("Check where each comes from before relying");
+    expect(vendor).not.toContain("Record where each comes from");
     // The typed figures listed, read only: a report links to no form.
     expect(vendor).toContain("Typed figures and their sources");
     expect(vendor).toContain(

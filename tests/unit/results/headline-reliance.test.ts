@@ -76,6 +76,18 @@ describe("the headline's note on typed figures", () => {
     expect(note.text).not.toMatch(/Record where/);
   });
 
+  it("words a report's warning for whoever holds it: neither a form to fill nor a supplier to ask", () => {
+    const note = headlineReliance(result, input, {
+      caseId: CASE_ID,
+      index: {},
+      audience: "report",
+    })!;
+    expect(note.text).toMatch(
+      /Check where each comes from before relying on the net present value\.$/,
+    );
+    expect(note.text).not.toMatch(/Record where|Ask your supplier/);
+  });
+
   it("with every typed figure sourced, states the sourced share once and warns of nothing", () => {
     const all = sourced(typedValueFigures(result, input, CASE_ID).map((f) => f.key));
     const html = cards({ caseId: CASE_ID, index: all });

@@ -82,7 +82,8 @@ export default async function DossierPage({ params }: { params: Promise<{ propos
       crumbs={crumbs}
       proposal={proposal}
       settings={settings}
-      evidence={{ index: evidence, audience: "vendor" }}
+      // The dossier leaves with the customer: its warning is worded for whoever holds it.
+      evidence={{ index: evidence, audience: "report" }}
       methodHref="/method"
     >
       {rangesPanel}
