@@ -1,7 +1,6 @@
 // First: Next.js reads the request scope's storage from globalThis when its modules load.
 import "../support/node-async-storage";
-import { AppRouterContext } from "next/dist/shared/lib/app-router-context.shared-runtime";
-import { createElement, type ReactNode } from "react";
+import type { ReactNode } from "react";
 import { prerender } from "react-dom/static";
 import { describe, expect, it } from "vitest";
 import VendorDossierPage from "@/app/(app)/dossiers/[proposalId]/page";
@@ -17,6 +16,7 @@ import { evidenceInputSchema } from "@/lib/validations/evidence";
 import { recordPaymentEvent } from "@/server/payments/record-event";
 import { caller } from "../support/callers";
 import { asRequestOf } from "../support/next-request";
+import { withInertRouter } from "../support/render-page";
 
 // Issue 16: the paid dossier weighs the recorded sources of the frozen figures as the proposal
 // pages do — the vendor's people through their case, the customer's reviewer through the
@@ -50,18 +50,7 @@ function pay(proposalId: number) {
 
 /** The page as the browser gets it, the streamed report included (prerender waits for it). */
 async function render(page: ReactNode): Promise<string> {
-  const noop = () => {};
-  const router = {
-    back: noop,
-    forward: noop,
-    refresh: noop,
-    push: noop,
-    replace: noop,
-    prefetch: noop,
-  };
-  const { prelude } = await prerender(
-    createElement(AppRouterContext.Provider, { value: router as never }, page),
-  );
+  const { prelude } = await prerender(withInertRouter(page));
   // React separates adjacent text with empty comments; a reader sees none.
   return (await new Response(prelude).text()).replaceAll("<!-- -->", "");
 }

@@ -18,16 +18,19 @@ const inertRouter = {
   prefetch: noop,
 };
 
-/** The static markup of `node` under the inert router; with `pathname`, the path the shell's
- * menu marks as current (without it, there is no path, as outside a page). */
-export function renderWithRouter(node: ReactNode, pathname?: string): string {
+/** `node` under the inert router; with `pathname`, the path the shell's menu marks as current
+ * (without it, there is no path, as outside a page). */
+export function withInertRouter(node: ReactNode, pathname?: string): ReactNode {
   const inner =
     pathname === undefined
       ? node
       : createElement(PathnameContext.Provider, { value: pathname }, node);
-  return renderToStaticMarkup(
-    createElement(AppRouterContext.Provider, { value: inertRouter as never }, inner),
-  );
+  return createElement(AppRouterContext.Provider, { value: inertRouter as never }, inner);
+}
+
+/** The static markup of `node` under the inert router (see withInertRouter). */
+export function renderWithRouter(node: ReactNode, pathname?: string): string {
+  return renderToStaticMarkup(withInertRouter(node, pathname));
 }
 
 /** Renders a server page (or layout) as one request of `user`, then its markup as above. */
