@@ -2,6 +2,7 @@ import { Panel } from "@/components/ui/panel";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { breakEvenLines, paybackSentence } from "@/lib/results/engine-v2";
 import { SCENARIO_LABELS } from "@/lib/glossary";
+import { BreakEvenRow } from "./break-even-row";
 
 /**
  * When the retrofit pays back and how far the two most uncertain inputs may fall before it
@@ -30,13 +31,7 @@ export function BreakEvenPanel({
           <dd className="text-steel-900">{paybackSentence(physics, horizonYears)}</dd>
         </div>
         {lines.map((line) => (
-          <div key={line.term} className="grid gap-1 py-3 sm:grid-cols-[12rem_1fr]">
-            <dt className="font-bold text-steel-800">{line.term}</dt>
-            <dd>
-              <span className="font-bold text-steel-900">{line.value}</span>
-              <span className="mt-0.5 block text-small text-steel-700">{line.note}</span>
-            </dd>
-          </div>
+          <BreakEvenRow key={line.term} term={line.term} value={line.value} note={line.note} />
         ))}
       </dl>
     </Panel>

@@ -14,6 +14,7 @@ import Decimal from "decimal.js";
 import { Term } from "@/components/ui/term";
 import { ValueBySourceTable } from "@/components/results/value-by-source-table";
 import { breakEvenLines } from "@/lib/results/engine-v2";
+import { BreakEvenRow } from "@/components/results/break-even-row";
 import type { WhatIfRequest } from "@/lib/validations/what-if";
 import { readTypedDecimal } from "@/lib/validations/typed-number";
 
@@ -26,13 +27,12 @@ function SandboxDetail({ result, tariffPerKWh }: { result: CaseResult; tariffPer
       {lines ? (
         <dl aria-label="Break-even with your figures" className="divide-y divide-steel-100">
           {lines.map((line) => (
-            <div key={line.term} className="grid gap-1 py-3 sm:grid-cols-[12rem_1fr]">
-              <dt className="font-bold text-steel-800">{line.term} with your figures</dt>
-              <dd>
-                <span className="font-bold text-steel-900">{line.value}</span>
-                <span className="mt-0.5 block text-small text-steel-700">{line.note}</span>
-              </dd>
-            </div>
+            <BreakEvenRow
+              key={line.term}
+              term={`${line.term} with your figures`}
+              value={line.value}
+              note={line.note}
+            />
           ))}
         </dl>
       ) : null}
