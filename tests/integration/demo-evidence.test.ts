@@ -89,10 +89,13 @@ describe("the demo scenario's recorded sources", () => {
       return { name: quote.caseName, warns: html.includes("without a source") };
     });
     expect(states).toContainEqual({ name: LEAD, warns: false });
-    expect(states.some((s) => s.warns), "a proposal the reviewer sees still warns").toBe(true);
+    expect(
+      states.some((s) => s.warns),
+      "a proposal the reviewer sees still warns",
+    ).toBe(true);
 
-    expect(listAudit(caller("admin@example.com")).filter((a) => a.action === "evidence.save")).toEqual(
-      [],
-    );
+    expect(
+      listAudit(caller("admin@example.com")).filter((a) => a.action === "evidence.save"),
+    ).toEqual([]);
   });
 });
