@@ -65,8 +65,16 @@ describe("text that looks like a formula is written as text (issue 5)", () => {
     expect(axes.getCell("D3").value).toBe(HOSTILE.machine);
     const cautions = sheetOf(workbook, "Cautions");
     const labels: unknown[] = [];
-    cautions.eachRow((row) => labels.push(row.getCell(2).value));
+    const machines: unknown[] = [];
+    const keys: unknown[] = [];
+    cautions.eachRow((row) => {
+      labels.push(row.getCell(1).value);
+      machines.push(row.getCell(2).value);
+      keys.push(row.getCell(5).value);
+    });
     expect(labels).toContain(HOSTILE.label);
+    expect(machines).toContain(HOSTILE.machine);
+    expect(keys).toContain(HOSTILE.axisId);
   });
 
   it("drops characters XML cannot carry and cuts text to what a cell holds", () => {
