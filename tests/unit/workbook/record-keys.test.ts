@@ -39,6 +39,23 @@ describe("record keys in the workbook", () => {
     for (const r of rows) expect(r.join(" | ")).not.toMatch(/\b(Axis|Machine|Kit) id\b/);
   });
 
+  it("the Axes sheet starts with the axis's label and machine, its keys after them", async () => {
+    const { workbook } = await buildWorkbookOf();
+    const rows = rowTexts(sheetOf(workbook, "Axes"));
+    expect(rows[1].slice(0, 4)).toEqual([
+      "Axis label",
+      "Machine",
+      RECORD_KEY_HEADER.axis,
+      RECORD_KEY_HEADER.machine,
+    ]);
+    expect(rows[3].slice(0, 4)).toEqual([
+      "Vertical Z",
+      "Invented pick-and-place cell",
+      "M1-Z",
+      "M1",
+    ]);
+  });
+
   it("the dossier's axis index lists axis, machine and sheet first, the key last", async () => {
     const input = caseInputSchema.parse(fixtureCase);
     const dossier = buildDossier(input, { seed: 4242, ...DEFAULT_RANGES });
@@ -61,7 +78,7 @@ describe("record keys in the workbook", () => {
       hyperlink: string;
     };
     expect(link.hyperlink).toBe("#'2 Vertical Z'!A1");
-    for (const name of [DOSSIER_SHEET.axisIndex, "Cautions", "Assumptions"])
+    for (const name of [DOSSIER_SHEET.axisIndex, "Cautions", "Assumptions", "Axes"])
       for (const r of rowTexts(sheetOf(workbook, name)))
         expect(r.join(" | "), name).not.toMatch(/\b(Axis|Machine) id\b/);
   });

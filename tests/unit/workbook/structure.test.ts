@@ -1,6 +1,6 @@
 import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
-import { LOOP_STATUS_LABELS, PAYBACK_STATUS_LABELS } from "@/lib/glossary";
+import { LOOP_STATUS_LABELS, PAYBACK_STATUS_LABELS, RECORD_KEY_HEADER } from "@/lib/glossary";
 import { definedNameTarget, xlsxPart } from "@/tests/support/libreoffice";
 import { buildWorkbookOf, formulaOf, sheetOf } from "./fixture-workbook";
 
@@ -218,7 +218,8 @@ describe("proposal workbook structure (issue 5)", () => {
       throw new Error(`no column ${group} / ${header}`);
     };
     const z = sheet.getRow(4);
-    expect(z.getCell(1).value).toBe("M1-Z");
+    expect(z.getCell(1).value).toBe("Vertical Z");
+    expect(z.getCell(column(RECORD_KEY_HEADER.axis, "Axis")).value).toBe("M1-Z");
     expect(z.getCell(column("Status", "Open loop today")).value).toBe(
       LOOP_STATUS_LABELS[result.axes[1].openLoop.status],
     );
