@@ -11,6 +11,7 @@ import {
 } from "../queries/case-input";
 import type { Db } from "../client";
 import { dateAfterDays, openQuoteFor } from "../queries/quote-open";
+import { CARTONER_CASE_SOURCES, seedDemoEvidence, type DemoEvidence } from "./evidence";
 import {
   accounts,
   axes,
@@ -44,6 +45,8 @@ type DemoCase = {
   machineOffset?: number;
   // Frozen as version 1, with its quote where the pipeline has it (days relative to seeding).
   quote?: DemoQuote;
+  // Sources of its typed figures; the cases without any show the headline's warning.
+  evidence?: DemoEvidence;
 };
 
 type DemoQuote = {
@@ -94,6 +97,7 @@ export const DEMO_CASES: DemoCase[] = [
       closeInDays: 25,
       sentTo: "reviewer@example.com",
     },
+    evidence: CARTONER_CASE_SOURCES,
   },
   {
     account: "Cartonia Packaging Plant",
@@ -310,6 +314,14 @@ export function seedDemoCases(tx: Tx) {
         })),
       )
       .run();
+    if (demo.evidence)
+      seedDemoEvidence(tx, demo.evidence, {
+        accountId: site.accountId,
+        caseId: caseRow.id,
+        ownerId,
+        axes: caseAxisRows,
+        machines: siteMachines,
+      });
 
     if (demo.quote)
       seedQuote(tx, demo.quote, {

@@ -15,3 +15,13 @@ export const DOSSIER_SHEET = {
   uncertainty: "Uncertainty",
   axisIndex: "Axis sheets",
 } as const;
+
+/**
+ * Headers of the workbook columns that hold a record's key (the id the database keeps it under):
+ * technical columns that formulas match machines by, or that tie a row to the Axes sheet, never
+ * the name a reader knows an axis or a machine by (that is in its own column, to the left).
+ */
+export const RECORD_KEY_HEADER = {
+  axis: "Axis record key (technical)",
+  machine: "Machine record key (for formulas)",
+} as const;

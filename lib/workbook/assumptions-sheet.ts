@@ -1,6 +1,6 @@
 import type ExcelJS from "exceljs";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
-import { FINANCE_TERMS } from "@/lib/glossary";
+import { FINANCE_TERMS, RECORD_KEY_HEADER } from "@/lib/glossary";
 import {
   FORMATS,
   currencyFormat,
@@ -327,9 +327,12 @@ export function writeAssumptionsSheet(
   return machines;
 }
 
+// Column A holds each machine's record key: the Summary's per-machine formulas match the Axes
+// sheet's machine column against it (lib/workbook/summary-machines.ts), so it stays, headed as
+// the technical key it is; the name a reader knows the machine by is beside it.
 const MACHINE_HEADERS = [
-  "Machine id",
-  "Name",
+  RECORD_KEY_HEADER.machine,
+  "Machine",
   "Downtime for the retrofit (h)",
   "Throughput gain asked (%)",
   "Margin per output hour",

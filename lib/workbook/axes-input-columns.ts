@@ -11,6 +11,7 @@ import {
   type EventFieldKey,
   type FieldSpec,
 } from "@/lib/fields";
+import { RECORD_KEY_HEADER } from "@/lib/glossary";
 import { eventCostValue, money, type AxisColumn, type AxisRowContext } from "./axis-column";
 import { FORMATS } from "./formats";
 import { NAME } from "./layout";
@@ -176,21 +177,31 @@ const eventColumns = (Object.keys(EVENT_FIELDS) as EventFieldKey[]).map((key): A
  * a field added there appears here with no other edit.
  */
 export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
-  { key: "id", group: "Axis", header: "Axis id", width: 14, value: (r) => safeText(r.axis.id) },
+  // The axis as a reader knows it, by its label and machine (the two frozen columns), then the
+  // record keys: the machine's is what the Summary's per-machine formulas match on, the axis's
+  // ties a row of the Cautions sheet or the dossier's index to this one. Formulas find every
+  // column by its key, never by its place.
   fieldColumn("label"),
-  {
-    key: "machine",
-    group: "Axis",
-    header: "Machine id",
-    width: 12,
-    value: (r) => safeText(r.axis.machineId),
-  },
   {
     key: "machineName",
     group: "Axis",
     header: "Machine",
     width: 22,
     value: (r) => safeText(r.machineName),
+  },
+  {
+    key: "id",
+    group: "Axis",
+    header: RECORD_KEY_HEADER.axis,
+    width: 14,
+    value: (r) => safeText(r.axis.id),
+  },
+  {
+    key: "machine",
+    group: "Axis",
+    header: RECORD_KEY_HEADER.machine,
+    width: 14,
+    value: (r) => safeText(r.axis.machineId),
   },
   ...fieldsOf("axis", ["label"]),
   ...fieldsOf("motor"),

@@ -379,7 +379,7 @@ describe("LibreOffice Calc recalculating the exported workbook (docs/model.md (S
     expect(seen.Payback_Physics).toBe(BEYOND_HORIZON);
     console.info("beyond-horizon case, LibreOffice:", JSON.stringify(seen));
 
-    const label = calc.getWorksheet("Axes")?.getCell("B3");
+    const label = calc.getWorksheet("Axes")?.getCell("A3");
     expect(label?.type).toBe(ExcelJS.ValueType.String);
     expect(label?.value).toBe(HYPERLINK_LABEL);
   }, 180_000);

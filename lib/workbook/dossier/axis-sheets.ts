@@ -27,7 +27,7 @@ export function writeAxisSheet(sheet: ExcelJS.Worksheet, axis: AxisDetail) {
     { width: 16 },
     { width: 16 },
   ];
-  // Named as the app names it, with its machine; the record id stays in the index's own column.
+  // Named as the app names it, with its machine; its record key stays in the index's technical column.
   styleTitle(sheet.addRow([`${safeText(axis.label)} (${safeText(axis.machineName)})`]).getCell(1));
   sheet.addRow(["Machine", safeText(axis.machineName)]);
   sheet.addRow(["Quantity", axis.quantity]);

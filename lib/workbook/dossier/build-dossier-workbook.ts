@@ -1,6 +1,6 @@
 import type { Dossier } from "@/lib/dossier";
 import type { ParsedCase } from "@/lib/engine";
-import { DOSSIER_SHEET } from "@/lib/glossary";
+import { DOSSIER_SHEET, RECORD_KEY_HEADER } from "@/lib/glossary";
 import { footerOf, streamWorkbook, writeProposalSheets } from "../build-workbook";
 import { sheetOptions } from "../formats";
 import { safeText } from "../safe-text";
@@ -35,8 +35,10 @@ export async function buildDossierWorkbook(
     writeSensitivitySheet(add(DOSSIER_SHEET.sensitivity, 0), input, dossier);
     writeUncertaintySheet(add(DOSSIER_SHEET.uncertainty, 0), input, dossier);
 
+    // Each axis by the names a reader knows it by and a link to its sheet; its record key (the
+    // id the Axes sheet lists it under) at the right, a technical column.
     const index = add(DOSSIER_SHEET.axisIndex);
-    index.columns = [{ width: 16 }, { width: 34 }, { width: 30 }, { width: 34 }];
+    index.columns = [{ width: 34 }, { width: 30 }, { width: 34 }, { width: 16 }];
     const names = new Set<string>();
     const sheetNames = dossier.axes.map((axis, i) => {
       let name = axisSheetName(i, axis.label);
@@ -45,15 +47,12 @@ export async function buildDossierWorkbook(
       names.add(name.toLowerCase());
       return name;
     });
-    const header = index.addRow(["Axis id", "Label", "Machine", "Sheet"]);
+    const header = index.addRow(["Axis", "Machine", "Sheet", RECORD_KEY_HEADER.axis]);
     header.font = { bold: true };
     dossier.axes.forEach((axis, i) => {
-      const row = index.addRow([
-        safeText(axis.id),
-        safeText(axis.label),
-        safeText(axis.machineName),
-      ]);
-      row.getCell(4).value = {
+      const row = index.addRow([safeText(axis.label), safeText(axis.machineName)]);
+      row.getCell(4).value = safeText(axis.id);
+      row.getCell(3).value = {
         text: sheetNames[i],
         hyperlink: `#'${sheetNames[i].replace(/'/g, "''")}'!A1`,
       };

@@ -15,6 +15,7 @@ import {
   registeredFields,
   type FieldSpec,
 } from "@/lib/fields";
+import { RECORD_KEY_HEADER } from "@/lib/glossary";
 import { IMPORT_FIELDS } from "@/lib/import/fields";
 import {
   kitInputSchema as kitFormSchema,
@@ -224,8 +225,8 @@ describe("the forms, the import list, the table and the workbook cover exactly t
 
   it("workbook Axes sheet: one input column per axis and event field, one per motion input, headed by its label", () => {
     const NOT_FIELDS = [
-      "Axis id",
-      "Machine id",
+      RECORD_KEY_HEADER.axis,
+      RECORD_KEY_HEADER.machine,
       "Machine",
       "Pull-out curve",
       "Cost of one event (formula)",

@@ -58,15 +58,24 @@ describe("text that looks like a formula is written as text (issue 5)", () => {
       expect(cell.xml).not.toMatch(/<f[ >]/);
     }
     const axes = sheetOf(workbook, "Axes");
+    // Label and machine first (the frozen columns), then the record keys.
     expect(axes.getCell("A3").type).toBe(ExcelJS.ValueType.String);
-    expect(axes.getCell("A3").value).toBe(HOSTILE.axisId);
-    expect(axes.getCell("B3").type).toBe(ExcelJS.ValueType.String);
-    expect(axes.getCell("B3").value).toBe(HOSTILE.label);
-    expect(axes.getCell("D3").value).toBe(HOSTILE.machine);
+    expect(axes.getCell("A3").value).toBe(HOSTILE.label);
+    expect(axes.getCell("B3").value).toBe(HOSTILE.machine);
+    expect(axes.getCell("C3").type).toBe(ExcelJS.ValueType.String);
+    expect(axes.getCell("C3").value).toBe(HOSTILE.axisId);
     const cautions = sheetOf(workbook, "Cautions");
     const labels: unknown[] = [];
-    cautions.eachRow((row) => labels.push(row.getCell(2).value));
+    const machines: unknown[] = [];
+    const keys: unknown[] = [];
+    cautions.eachRow((row) => {
+      labels.push(row.getCell(1).value);
+      machines.push(row.getCell(2).value);
+      keys.push(row.getCell(5).value);
+    });
     expect(labels).toContain(HOSTILE.label);
+    expect(machines).toContain(HOSTILE.machine);
+    expect(keys).toContain(HOSTILE.axisId);
   });
 
   it("drops characters XML cannot carry and cuts text to what a cell holds", () => {

@@ -1,6 +1,6 @@
 import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
-import { LOOP_STATUS_LABELS, PAYBACK_STATUS_LABELS } from "@/lib/glossary";
+import { LOOP_STATUS_LABELS, PAYBACK_STATUS_LABELS, RECORD_KEY_HEADER } from "@/lib/glossary";
 import { definedNameTarget, xlsxPart } from "@/tests/support/libreoffice";
 import { buildWorkbookOf, formulaOf, sheetOf } from "./fixture-workbook";
 
@@ -178,16 +178,30 @@ describe("proposal workbook structure (issue 5)", () => {
     const { workbook } = await buildWorkbookOf();
     const texts: string[][] = [];
     sheetOf(workbook, "Cautions").eachRow((row) =>
-      texts.push([1, 2, 3, 4].map((c) => String(row.getCell(c).value ?? ""))),
+      texts.push([1, 2, 3, 4, 5].map((c) => String(row.getCell(c).value ?? ""))),
     );
     const all = texts.map((t) => t.join(" | ")).join("\n");
     expect(all).toContain("isolate and lock out");
     expect(all).toContain("brake and a safe-stop");
     expect(all).toContain("not measurements");
     expect(all).toContain("estimates from the stated assumptions");
-    expect(texts.filter((t) => t[0] === "M1-Z" && t[2] === "Standstill load torque")).toHaveLength(
-      1,
-    );
+    // The axis by its label and machine, as the app names it; its record key in the last column.
+    expect(texts[0]).toEqual([
+      "Axis",
+      "Machine",
+      "Caution",
+      "What it means",
+      "Axis record key (technical)",
+    ]);
+    expect(
+      texts.filter(
+        (t) =>
+          t[0] === "Vertical Z" &&
+          t[1] === "Invented pick-and-place cell" &&
+          t[2] === "Standstill load torque" &&
+          t[4] === "M1-Z",
+      ),
+    ).toHaveLength(1);
   });
 
   it("writes each axis's statuses, gains and warnings in words on the Axes sheet", async () => {
@@ -204,7 +218,8 @@ describe("proposal workbook structure (issue 5)", () => {
       throw new Error(`no column ${group} / ${header}`);
     };
     const z = sheet.getRow(4);
-    expect(z.getCell(1).value).toBe("M1-Z");
+    expect(z.getCell(1).value).toBe("Vertical Z");
+    expect(z.getCell(column(RECORD_KEY_HEADER.axis, "Axis")).value).toBe("M1-Z");
     expect(z.getCell(column("Status", "Open loop today")).value).toBe(
       LOOP_STATUS_LABELS[result.axes[1].openLoop.status],
     );
