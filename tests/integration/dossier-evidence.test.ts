@@ -6,7 +6,8 @@ import { describe, expect, it } from "vitest";
 import VendorDossierPage from "@/app/(app)/dossiers/[proposalId]/page";
 import ReviewDossierPage from "@/app/(review)/review/proposals/[proposalId]/dossier/page";
 import { listCases } from "@/db/queries/cases";
-import { saveEvidence } from "@/db/queries/evidence";
+import { clearEvidence, listProposalEvidence, saveEvidence } from "@/db/queries/evidence";
+import { frozenSubjects } from "@/lib/evidence/subjects";
 import { recordCheckoutSession } from "@/db/queries/payments";
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
 import { listProposals } from "@/db/queries/proposal-versions";
@@ -74,6 +75,11 @@ describe("the dossier's headline and the recorded sources of the frozen figures"
 
   it("with no source recorded, warns once, naming the figures, for the vendor and the reviewer", async () => {
     pay(proposal.id);
+    // The demo records sources for this case (db/demo/evidence.ts): take them away first.
+    const seeded = listProposalEvidence(engineer(), target.id, frozenSubjects(input));
+    expect(seeded.length).toBeGreaterThan(0);
+    for (const { subjectType, subjectId, field } of seeded)
+      expect(clearEvidence(engineer(), { subjectType, subjectId, field })).toBe(true);
     const none = evidencedReliance(result.scenarios.physics, result, input, {}, target.id)!;
     // The demo case rests mostly on typed figures: the warning is expected.
     expect(none.mostlyUnevidenced).toBe(true);
