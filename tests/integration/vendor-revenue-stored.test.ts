@@ -1,9 +1,14 @@
 import "../support/node-async-storage";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { GET as pipelineRoute } from "@/app/api/v1/pipeline/route";
 import { GET as pipelineCsvRoute } from "@/app/api/v1/pipeline.csv/route";
 import { db } from "@/db";
+import { openDatabase } from "@/db/client";
+import { seedDatabase } from "@/db/seed";
 import { backfillVendorRevenue } from "@/db/backfill-vendor-revenue";
 import { migrateDatabase } from "@/db/migrate";
 import { listAxesForExport } from "@/db/queries/axes";
@@ -117,6 +122,56 @@ describe("the vendor's revenue stored on the quote", () => {
     for (const id of ids) expectStoredExact(id);
     // Once filled, there is nothing left to do.
     expect(backfillVendorRevenue(db)).toBe(0);
+  });
+
+  it("upgrades a database from before migration 0013: columns added, every quote filled in", () => {
+    // A second file, seeded, then put back as it stood before 0013: its columns dropped and its
+    // record of having run 0013 removed, so that migrating applies drizzle/0013 itself.
+    const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "loopshift-0013-")), "old.db");
+    const old = openDatabase(file);
+    try {
+      migrateDatabase(old);
+      seedDatabase(old);
+      const raw = old.$client;
+      for (const column of [
+        "vendor_revenue",
+        "revenue_kits_at_list_price",
+        "revenue_discounts",
+        "revenue_installation",
+        "revenue_commissioning",
+      ])
+        raw.exec(`alter table quotes drop column ${column}`);
+      raw.exec(
+        "delete from __drizzle_migrations where created_at = (select max(created_at) from __drizzle_migrations)",
+      );
+      const before = raw.prepare("select count(*) as n from __drizzle_migrations").get() as {
+        n: number;
+      };
+      migrateDatabase(old);
+      const after = raw.prepare("select count(*) as n from __drizzle_migrations").get() as {
+        n: number;
+      };
+      expect(after.n).toBe(before.n + 1);
+      const rows = raw
+        .prepare(
+          `select q.vendor_revenue, q.revenue_kits_at_list_price, q.revenue_discounts,
+                  q.revenue_installation, q.revenue_commissioning, p.input
+             from quotes q join proposals p on p.id = q.proposal_id`,
+        )
+        .all() as Record<string, string>[];
+      expect(rows.length).toBeGreaterThanOrEqual(5);
+      for (const r of rows) {
+        const want = expectedRevenue(JSON.parse(r.input) as FrozenInput);
+        expect(fixed(r.vendor_revenue)).toBe(want.revenue);
+        expect(fixed(r.revenue_kits_at_list_price)).toBe(want.kits);
+        expect(fixed(r.revenue_discounts)).toBe(want.discounts);
+        expect(fixed(r.revenue_installation)).toBe(want.installation);
+        expect(fixed(r.revenue_commissioning)).toBe(want.commissioning);
+      }
+    } finally {
+      old.$client.close();
+      fs.rmSync(path.dirname(file), { recursive: true, force: true });
+    }
   });
 
   it("reports how many quotes it filled, and leaves stored ones alone", () => {
