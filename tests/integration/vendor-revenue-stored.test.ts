@@ -249,3 +249,41 @@ describe("the pipeline reads the stored revenue", () => {
     }
   });
 });
+
+describe("a frozen input the backfill cannot sum", () => {
+  it("is left unfilled and named, and does not stop the others or the start", () => {
+    const sample = db.select().from(proposals).limit(1).get()!;
+    const input = structuredClone(sample.input);
+    (input.axes[0].retrofit.kit as { price: unknown }).price = "not a price";
+    const [bad] = db
+      .insert(proposals)
+      .values({ ...sample, id: undefined, version: 990, input, createdAt: undefined })
+      .returning()
+      .all();
+    const ownerId = storedOf(sample.id).ownerId;
+    db.insert(quotes)
+      .values({
+        proposalId: bad.id,
+        ownerId,
+        value: "1",
+        currency: "EUR",
+        expectedCloseOn: "2030-01-01",
+      })
+      .run();
+    const [other] = db.select({ id: quotes.proposalId }).from(quotes).limit(1).all();
+    db.update(quotes).set(NOTHING_STORED).where(eq(quotes.proposalId, other.id)).run();
+    const warnings: string[] = [];
+    const warn = console.warn;
+    console.warn = (message: string) => warnings.push(message);
+    try {
+      expect(backfillVendorRevenue(db)).toBe(1);
+      expect(() => migrateDatabase(db)).not.toThrow();
+    } finally {
+      console.warn = warn;
+      db.delete(proposals).where(eq(proposals.id, bad.id)).run();
+    }
+    expectStoredExact(other.id);
+    expect(warnings[0]).toContain(`proposal ${bad.id}`);
+    expect(warnings).toHaveLength(2);
+  });
+});
