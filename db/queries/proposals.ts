@@ -11,7 +11,7 @@ import { accountScope } from "./accounts";
 import { getSalesSettings } from "./sales-settings";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 import type { VendorRevenue } from "@/lib/pipeline/revenue";
-import { revenueByProposal } from "./vendor-revenue";
+import { revenueColumnsOfQuote, revenueOfQuotes } from "./vendor-revenue";
 
 // Frozen proposals with their sales side (the quote), as each role may see them: the vendor's
 // people by their account scope, a reviewer only the proposals sent to their own account. A
@@ -49,6 +49,8 @@ const rowColumns = {
   decidedAt: quotes.decidedAt,
   discountApprovedAt: quotes.discountApprovedAt,
   discountApprovedById: quotes.discountApprovedById,
+  // Stored when the proposal was frozen; vendorViews reads them (never shown to a reviewer).
+  ...revenueColumnsOfQuote,
   latestVersion: sql<number>`(select max(p2.version) from ${proposals} p2 where p2.case_id = ${proposals.caseId})`,
 };
 
@@ -156,9 +158,12 @@ export function vendorView(
 export type ReviewerProposal = ReturnType<typeof reviewerView>;
 export type VendorProposal = ReturnType<typeof vendorView>;
 
-/** The vendor's view of each row, with its revenue read from the frozen inputs in one go. */
+/**
+ * The vendor's view of each row, with the revenue its quote stored when frozen (worked out of the
+ * frozen input only for a quote that still lacks it).
+ */
 export function vendorViews(rows: QuoteRow[], probabilities: Record<QuoteStage, number>) {
-  const revenue = revenueByProposal(rows.map((r) => r.id));
+  const revenue = revenueOfQuotes(rows);
   return rows.map((row) => vendorView(row, probabilities, revenue.get(row.id)!));
 }
 

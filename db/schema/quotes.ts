@@ -12,7 +12,10 @@ export { QUOTE_STAGES, type QuoteStage };
 // The sales side of a frozen proposal: one row per proposal. A proposal's input and result never
 // change (a trigger refuses it), so everything that moves while it is sold lives here. Value,
 // currency, payback and the largest kit discount are copied from the frozen snapshot once, so
-// that the pipeline sums and filters them without reading megabytes of result JSON.
+// that the pipeline sums and filters them without reading megabytes of result JSON. So is the
+// vendor's revenue with its parts (lib/pipeline/revenue.ts), as exact decimal strings: the
+// pipeline no longer works it out of every frozen input on each read. They are null only on a
+// quote frozen before they existed and not yet filled in (db/backfill-vendor-revenue.ts).
 export const quotes = sqliteTable(
   "quotes",
   {
@@ -27,6 +30,11 @@ export const quotes = sqliteTable(
     currency: text("currency").notNull(),
     paybackYears: real("payback_years"),
     maxDiscountPct: real("max_discount_pct").notNull().default(0),
+    vendorRevenue: text("vendor_revenue"),
+    revenueKitsAtListPrice: text("revenue_kits_at_list_price"),
+    revenueDiscounts: text("revenue_discounts"),
+    revenueInstallation: text("revenue_installation"),
+    revenueCommissioning: text("revenue_commissioning"),
     expectedCloseOn: text("expected_close_on").notNull(),
     sentAt: text("sent_at"),
     sentToId: integer("sent_to_id").references(() => users.id, { onDelete: "set null" }),

@@ -15,6 +15,7 @@ for (const [name, title] of [
   ["bench-cases", "Cases: workbook and result route"],
   ["bench-dossier", "Dossier: 500 axes, 1,000 draws, workbook"],
   ["bench-hostile-upload", "Hostile workbook uploads: time, server memory, other requests"],
+  ["bench-pipeline", "Pipeline: 2,000 frozen quotes"],
 ]) {
   // `npm run bench -- bench-cases` runs one of them.
   if (process.argv[2] && process.argv[2] !== name) continue;

@@ -1,12 +1,13 @@
 import Decimal from "decimal.js";
 import type { CaseInput, CaseResult } from "../engine";
 import { roundMoney } from "../engine/money";
+import { revenueColumns, vendorRevenue } from "./revenue";
 import { OPEN_STAGES, type QuoteStage } from "./stages";
 
 /**
  * What a quote copies from its frozen proposal once: value (the customer's investment, the
- * engine's up-front cost), currency, payback, top discount. The vendor's revenue is read from the
- * frozen input when shown (lib/pipeline/revenue.ts).
+ * engine's up-front cost), currency, payback, top discount, and the vendor's revenue with its
+ * parts (lib/pipeline/revenue.ts), which the pipeline then reads instead of the frozen input.
  */
 export function quoteFigures(input: CaseInput, result: CaseResult) {
   return {
@@ -14,6 +15,7 @@ export function quoteFigures(input: CaseInput, result: CaseResult) {
     currency: result.currency,
     paybackYears: result.scenarios.physics.paybackYears,
     maxDiscountPct: Math.max(0, ...input.axes.map((a) => a.retrofit.discountPct ?? 0)),
+    ...revenueColumns(vendorRevenue(input)),
   };
 }
 

@@ -53,3 +53,45 @@ export function vendorRevenue(input: CaseInput): VendorRevenue {
     revenue: plain(kits.minus(discounts).plus(installation).plus(commissioning)),
   };
 }
+
+/**
+ * The revenue as a quote stores it when its proposal is frozen (db/schema/quotes.ts), one column
+ * per part, so that reading the pipeline does not work it out of every frozen input again.
+ */
+export type StoredRevenue = {
+  vendorRevenue: string | null;
+  revenueKitsAtListPrice: string | null;
+  revenueDiscounts: string | null;
+  revenueInstallation: string | null;
+  revenueCommissioning: string | null;
+};
+
+export function revenueColumns(r: VendorRevenue): { [K in keyof StoredRevenue]: string } {
+  return {
+    vendorRevenue: r.revenue,
+    revenueKitsAtListPrice: r.kitsAtListPrice,
+    revenueDiscounts: r.discounts,
+    revenueInstallation: r.installation,
+    revenueCommissioning: r.commissioning,
+  };
+}
+
+/** The stored revenue, or null when any part is missing (a quote not yet backfilled). */
+export function storedRevenue(row: StoredRevenue): VendorRevenue | null {
+  const {
+    vendorRevenue: revenue,
+    revenueKitsAtListPrice: kitsAtListPrice,
+    revenueDiscounts: discounts,
+    revenueInstallation: installation,
+    revenueCommissioning: commissioning,
+  } = row;
+  if (
+    revenue === null ||
+    kitsAtListPrice === null ||
+    discounts === null ||
+    installation === null ||
+    commissioning === null
+  )
+    return null;
+  return { kitsAtListPrice, discounts, installation, commissioning, revenue };
+}

@@ -2,7 +2,11 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { ApproveDiscountButton } from "@/components/proposals/quote-manager-form";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
-import { ValueByMonthChart, ValueByStageChart } from "@/components/pipeline/pipeline-charts";
+import {
+  ValueByMonthChart,
+  ValueByStageChart,
+  type ValueRow,
+} from "@/components/pipeline/pipeline-charts";
 import { ValueTable } from "@/components/pipeline/value-table";
 import { buttonClass } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
@@ -40,6 +44,9 @@ const monthLabel = (month: string) =>
     year: "numeric",
     timeZone: "UTC",
   });
+
+// A table of sums behind one of the charts: by stage or by expected close month.
+type GroupTable = { group: "stage" | "month"; rows: ValueRow[]; first: string; caption: string };
 
 // The CSV export with the same filters as the page (its sort and page do not matter there).
 function csvHref(current: Record<string, string | undefined>) {
@@ -195,40 +202,39 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
           const monthRows = data.byMonth
             .filter((m) => m.currency === t.currency && m.count > 0)
             .map((m) => ({ key: m.month, label: monthLabel(m.month), ...m }));
-          const stageTable = (
-            <ValueTable
-              rows={sortGroups(stageRows, groupSort.stageSort, groupSort.stageDir)}
-              currency={t.currency}
-              first="Stage"
-              caption="Revenue by stage"
-              sort={groupSort.stageSort}
-              dir={groupSort.stageDir}
-              href={(column, dir) =>
-                listHref("/pipeline", current, {
-                  stageSort: column,
-                  stageDir: dir,
-                  page: current.page,
-                })
-              }
-            />
-          );
-          const monthTable = (
-            <ValueTable
-              rows={sortGroups(monthRows, groupSort.monthSort, groupSort.monthDir)}
-              currency={t.currency}
-              first="Close month"
-              caption="Revenue by expected close month"
-              sort={groupSort.monthSort}
-              dir={groupSort.monthDir}
-              href={(column, dir) =>
-                listHref("/pipeline", current, {
-                  monthSort: column,
-                  monthDir: dir,
-                  page: current.page,
-                })
-              }
-            />
-          );
+          // The two tables behind the charts differ only in their rows, first column, caption
+          // and the URL keys their sort is kept under (stageSort and stageDir, or month…).
+          const groupTables: GroupTable[] = [
+            { group: "stage", rows: stageRows, first: "Stage", caption: "Revenue by stage" },
+            {
+              group: "month",
+              rows: monthRows,
+              first: "Close month",
+              caption: "Revenue by expected close month",
+            },
+          ];
+          const [stageTable, monthTable] = groupTables.map(({ group, rows, first, caption }) => {
+            const sortKey = `${group}Sort` as const;
+            const dirKey = `${group}Dir` as const;
+            return (
+              <ValueTable
+                key={group}
+                rows={sortGroups(rows, groupSort[sortKey], groupSort[dirKey])}
+                currency={t.currency}
+                first={first}
+                caption={caption}
+                sort={groupSort[sortKey]}
+                dir={groupSort[dirKey]}
+                href={(column, dir) =>
+                  listHref("/pipeline", current, {
+                    [sortKey]: column,
+                    [dirKey]: dir,
+                    page: current.page,
+                  })
+                }
+              />
+            );
+          });
           return (
             <section key={t.currency} aria-label={`Totals in ${t.currency}`} className="space-y-6">
               <div className="grid gap-4 sm:grid-cols-2 xl:grid-cols-4">

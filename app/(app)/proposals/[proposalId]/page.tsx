@@ -24,7 +24,7 @@ import { formatMoney, formatPayback } from "@/lib/results/format";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
 import { discountAboveThreshold, needsDiscountApproval } from "@/lib/pipeline/discount";
 import { FINANCE_TERMS } from "@/lib/glossary";
-import { vendorRevenue } from "@/lib/pipeline/revenue";
+import { storedRevenue, vendorRevenue } from "@/lib/pipeline/revenue";
 import { frozenSubjects, indexEvidence } from "@/lib/evidence/subjects";
 
 export const metadata: Metadata = { title: "Proposal" };
@@ -38,7 +38,9 @@ export default async function ProposalPage({
   const id = idParam((await params).proposalId);
   const { quote: row, input: rawInput, result } = getProposalSnapshotOrThrow(user, id);
   const settings = getSalesSettings();
-  const quote = vendorView(row, settings.stageProbabilities, vendorRevenue(rawInput));
+  // The revenue stored at freezing, as the pipeline shows it; worked out only if not yet stored.
+  const revenue = storedRevenue(row) ?? vendorRevenue(rawInput);
+  const quote = vendorView(row, settings.stageProbabilities, revenue);
   const input = parseCaseInput(rawInput);
   const comments = listComments(user, id);
   const blocker = sendBlocker(row, settings.discountThresholdPct);
