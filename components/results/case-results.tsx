@@ -121,7 +121,10 @@ export function CaseResultsView({
           <InputPending title="Torque against speed" state={inputState} onRetry={onRetry} />
         )}
         <CashFlowChart result={result} input={input} />
-        <ValueBySourceChart result={result} input={input} />
+        {/* Full width: its table has a column per scenario, plain and discounted. */}
+        <div className="min-w-0 xl:col-span-2">
+          <ValueBySourceChart result={result} input={input} />
+        </div>
         <EnergyByMachineChart result={result} input={input} />
         <TornadoChart result={result} input={input} />
         <WindingTemperatureChart result={result} input={input} />
