@@ -1,5 +1,5 @@
-import { DECISION_LABELS, FINANCE_TERMS } from "../glossary";
-import { formatMoney, formatPayback } from "../results/format";
+import { DECISION_LABELS, FINANCE_TERMS, SCENARIO_LABELS } from "../glossary";
+import { formatMoney, formatMoneyHeadline, formatPayback } from "../results/format";
 import { composeMail, type MailBlock, type MailContent } from "./layout";
 
 // The messages Loopshift sends, in its own words. Links are absolute (they are opened from a
@@ -14,6 +14,44 @@ export type ProposalFacts = {
   paybackYears: number | null;
   horizonYears: number;
 };
+
+/**
+ * Where a proposal's value comes from, for the message that sends it (server/proposals/facts.ts
+ * proposalValue): the engineering estimate's sources over the horizon, largest first, their
+ * total, the net present value and how much of it rests on figures typed for the case.
+ */
+export type ProposalValue = {
+  sources: { label: string; amount: string }[];
+  total: string;
+  npv: string;
+  /** Share of the value over the horizon resting on typed figures, when it is more than half. */
+  mostlyTypedPct: number | null;
+};
+
+/** The value block of a sent proposal: a controller's first question is where the money comes from. */
+function valueBlocks(p: ProposalFacts, v: ProposalValue): MailBlock[] {
+  const money = (amount: string) => formatMoney(amount, p.currency);
+  const blocks: MailBlock[] = [
+    {
+      kind: "paragraph",
+      text: `Where the value comes from, in the ${SCENARIO_LABELS.physics.toLowerCase()} over ${p.horizonYears} years, before discounting:`,
+    },
+    {
+      kind: "facts",
+      rows: [
+        ...v.sources.map(({ label, amount }): [string, string] => [label, money(amount)]),
+        ["All sources", money(v.total)],
+        ["Net present value", formatMoneyHeadline(v.npv, p.currency)],
+      ],
+    },
+  ];
+  if (v.mostlyTypedPct !== null)
+    blocks.push({
+      kind: "note",
+      text: `${v.mostlyTypedPct} % of this value rests on figures typed for this case rather than computed by the engine. The proposal lists them, each with its source where one is recorded.`,
+    });
+  return blocks;
+}
 
 function factRows(p: ProposalFacts): [string, string][] {
   return [
@@ -32,7 +70,12 @@ const dateText = (iso: string) =>
     timeZone: "UTC",
   });
 
-type SentArgs = { recipientName: string; senderName: string; proposal: ProposalFacts };
+type SentArgs = {
+  recipientName: string;
+  senderName: string;
+  proposal: ProposalFacts;
+  value?: ProposalValue;
+};
 
 /** A proposal sent to the customer's reviewer: the same subject, greeting and facts for both. */
 function proposalSent(args: SentArgs, invitation: string, rest: MailBlock[]): MailContent {
@@ -47,6 +90,7 @@ function proposalSent(args: SentArgs, invitation: string, rest: MailBlock[]): Ma
         text: `${args.senderName} has sent you a proposal to convert open-loop stepper axes to closed-loop control. ${invitation}`,
       },
       { kind: "facts", rows: factRows(p) },
+      ...(args.value ? valueBlocks(p, args.value) : []),
       ...rest,
     ],
   );
@@ -58,7 +102,7 @@ export function invitationMail(
 ): MailContent {
   return proposalSent(
     args,
-    "You can check the payback, try your own tariff, discount rate and horizon, download the workbook, and accept, ask for changes or decline.",
+    "You can check the payback and where the value comes from, try your own figures (tariff, running hours, step-loss events and their cost, added output, discount rate, horizon, tax rate), download the workbook, and accept, ask for changes or decline.",
     [
       {
         kind: "paragraph",

@@ -20,7 +20,7 @@ import {
 import { setQuoteStage } from "@/db/queries/quote-stage";
 import { getSalesSettings } from "@/db/queries/sales-settings";
 import { findUserForSignIn } from "@/db/queries/users";
-import { proposalFacts } from "./facts";
+import { proposalFacts, proposalValue } from "./facts";
 import { needsDiscountApproval } from "@/lib/pipeline/discount";
 
 const label = (q: QuoteRow) => `${q.caseName} v${q.version}`;
@@ -60,7 +60,7 @@ export async function sendProposal(
   const quote = vendorQuoteOrThrow(caller, proposalId);
   const blocker = sendBlocker(quote);
   if (blocker) throw new ConflictError(blocker);
-  const { input: caseInput } = getProposalSnapshotOrThrow(caller, proposalId);
+  const { input: caseInput, result } = getProposalSnapshotOrThrow(caller, proposalId);
   const existing = findUserForSignIn(input.email);
   if (existing && (existing.role !== "reviewer" || existing.accountId !== quote.accountId))
     throw new ConflictError(
@@ -74,6 +74,7 @@ export async function sendProposal(
   // A password nobody knows until the invitation sets one; hashed outside the transaction.
   const placeholderHash = existing ? null : hashPassword(randomBytes(32).toString("base64url"));
   const facts = proposalFacts(quote, caseInput);
+  const value = proposalValue(result) ?? undefined;
 
   const { reviewer, mailId } = db.transaction((tx) => {
     const reviewer = existing
@@ -108,6 +109,7 @@ export async function sendProposal(
             recipientName: reviewer.name,
             senderName: caller.name,
             proposal: facts,
+            value,
             invitationUrl: appUrl(`/invitation/${token}`),
             expiresAt,
             email: reviewer.email,
@@ -117,6 +119,7 @@ export async function sendProposal(
           recipientName: reviewer.name,
           senderName: caller.name,
           proposal: facts,
+          value,
           proposalUrl: appUrl(`/review/proposals/${proposalId}`),
         });
     setQuoteStage(tx, quote, "sent", { sentAt: new Date().toISOString(), sentToId: reviewer.id });

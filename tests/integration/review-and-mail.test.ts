@@ -75,6 +75,38 @@ function frozenCase(who = engineer(), siteName = "North hall", discountPct = 5, 
   return freezeProposal(who, row.id);
 }
 
+/**
+ * Issue 16: the message says where the value comes from. The amounts it lists, read back from
+ * the text, add up to its "All sources" line, and that is the engine's own yearly flows of the
+ * engineering estimate (years 1 to the horizon) re-evaluated from the frozen input.
+ */
+function expectValueBreakdown(text: string, proposalId: number) {
+  const { input } = getProposalSnapshotOrThrow(engineer(), proposalId);
+  const flows = evaluateCase(input).scenarios.physics.cashFlows.slice(1);
+  const expected = flows.reduce((acc, f) => acc.plus(f), new Decimal(0));
+  const after = text.split("Where the value comes from, in the engineering estimate over ")[1];
+  expect(after, text).toBeDefined();
+  const rows = after.split("\n\n")[1].split("\n");
+  const amount = (line: string) => {
+    const [, sign, digits] = /: (-?)€([\d,]+\.\d{2})$/.exec(line) ?? [];
+    expect(digits, line).toBeDefined();
+    return new Decimal(`${sign}${digits.replaceAll(",", "")}`);
+  };
+  const total = rows.find((r) => r.startsWith("All sources: "))!;
+  const parts = rows.slice(0, rows.indexOf(total));
+  expect(parts.length).toBeGreaterThan(1);
+  const sum = parts.reduce((acc, line) => acc.plus(amount(line)), new Decimal(0));
+  // Each part is rounded to the cent on its own: the sum may differ from the total by a cent a part.
+  expect(sum.minus(amount(total)).abs().toNumber()).toBeLessThanOrEqual(0.01 * parts.length);
+  expect(amount(total).toFixed(2)).toBe(
+    expected.toDecimalPlaces(2, Decimal.ROUND_HALF_EVEN).toFixed(2),
+  );
+  expect(
+    rows.some((r) => /^Net present value: €[\d,]+00$/.test(r)),
+    rows.join("\n"),
+  ).toBe(true);
+}
+
 const newestMailTo = (email: string) => listOutbox(admin()).find((m) => m.to.includes(email));
 
 function linkIn(text: string, path: string): string {
@@ -184,6 +216,7 @@ describe("sending a proposal by e-mail through the local SMTP server", () => {
 
     const message = newestMailTo("dana.finance@example.com")!;
     expect(message.subject).toMatch(/^Retrofit proposal for Cartonia Packaging Plant: Mail test/);
+    expectValueBreakdown(message.text, proposal.id);
     const link = linkIn(message.text, "/invitation/");
     expect(message.html).toContain(`href="${link}"`);
     const token = link.split("/invitation/")[1];

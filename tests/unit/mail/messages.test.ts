@@ -31,6 +31,41 @@ describe("Loopshift's messages", () => {
     expect(mail.text).toContain("1 year 6 months");
   });
 
+  it("say where a sent proposal's value comes from, largest first, with its total and the NPV to the hundred", () => {
+    const mail = invitationMail({
+      recipientName: "Pat",
+      senderName: "Sam",
+      proposal,
+      value: {
+        sources: [
+          { label: "Added output", amount: "18000" },
+          { label: "Cabinet cooling", amount: "-10.625" },
+        ],
+        total: "17989.375",
+        npv: "14249.99",
+        mostlyTypedPct: 99,
+      },
+      invitationUrl: "https://app.example.com/invitation/x",
+      expiresAt: "2027-01-08T10:00:00.000Z",
+      email: "pat@example.com",
+    });
+    expect(mail.text).toContain(
+      "Where the value comes from, in the engineering estimate over 5 years, before discounting:\n\nAdded output: €18,000.00\nCabinet cooling: -€10.62\nAll sources: €17,989.38\nNet present value: €14,200",
+    );
+    expect(mail.text).toContain("99 % of this value rests on figures typed for this case");
+    expect(mail.html).toContain("Net present value");
+    // Without a breakdown (a result from before value by source), the message says nothing of it.
+    const plain = invitationMail({
+      recipientName: "Pat",
+      senderName: "Sam",
+      proposal,
+      invitationUrl: "https://app.example.com/invitation/x",
+      expiresAt: "2027-01-08T10:00:00.000Z",
+      email: "pat@example.com",
+    });
+    expect(plain.text).not.toContain("Where the value comes from,");
+  });
+
   it("escape what users typed in the HTML part, and keep it verbatim in the text part", () => {
     const mail = decisionMail({
       recipientName: "Sam",
