@@ -117,10 +117,19 @@ export const PIPELINE_SORTS = [
   "payback",
 ] as const satisfies readonly QuoteSort[];
 export type PipelineSort = (typeof PIPELINE_SORTS)[number];
-export const pipelineListParamsSchema = listParamsSchema(PIPELINE_SORTS, {
-  sort: "created",
-  dir: "desc",
-});
+// Links saved before the value column split in two sorted by `value`, which was the customer's
+// investment: they keep sorting by it.
+const RENAMED_SORTS: Record<string, PipelineSort> = { value: "investment" };
+export const pipelineListParamsSchema = z.preprocess(
+  (raw) => {
+    if (!raw || typeof raw !== "object") return raw;
+    const sort = (raw as { sort?: unknown }).sort;
+    return typeof sort === "string" && sort in RENAMED_SORTS
+      ? { ...raw, sort: RENAMED_SORTS[sort] }
+      : raw;
+  },
+  listParamsSchema(PIPELINE_SORTS, { sort: "created", dir: "desc" }),
+);
 export type PipelineListParams = z.infer<typeof pipelineListParamsSchema>;
 
 // The sums by stage and by close month, each table sorted by its own URL parameters.

@@ -71,5 +71,10 @@ describe("the pipeline's quote list pages and sorts on the server", () => {
       dir: "desc",
       page: 1,
     });
+    // A link saved when the one value column was the customer's investment still sorts by it.
+    expect(pipelineListParamsSchema.parse({ sort: "value", dir: "asc" })).toMatchObject({
+      sort: "investment",
+      dir: "asc",
+    });
   });
 });
