@@ -77,32 +77,16 @@ export function listSubjectEvidence(
  */
 export function listCaseEvidence(caller: SessionUser, caseId: number): EvidenceEntry[] {
   const row = getCaseOrThrow(caller, caseId);
-  const caseAxisIds = db
-    .select({ id: caseAxes.axisId })
-    .from(caseAxes)
-    .where(eq(caseAxes.caseId, caseId));
-  const caseMachineIds = db
-    .select({ id: axes.machineId })
+  const picked = db
+    .select({ axisId: caseAxes.axisId, machineId: axes.machineId })
     .from(caseAxes)
     .innerJoin(axes, eq(axes.id, caseAxes.axisId))
-    .where(eq(caseAxes.caseId, caseId));
-  return db
-    .select(entryColumns)
-    .from(valueEvidence)
-    .where(
-      and(
-        eq(valueEvidence.accountId, row.accountId),
-        or(
-          and(eq(valueEvidence.subjectType, "case"), eq(valueEvidence.subjectId, caseId)),
-          and(eq(valueEvidence.subjectType, "axis"), inArray(valueEvidence.subjectId, caseAxisIds)),
-          and(
-            eq(valueEvidence.subjectType, "machine"),
-            inArray(valueEvidence.subjectId, caseMachineIds),
-          ),
-        ),
-      ),
-    )
+    .where(eq(caseAxes.caseId, caseId))
     .all();
+  return evidenceOf(row.accountId, caseId, {
+    axisIds: picked.map((p) => p.axisId),
+    machineIds: [...new Set(picked.map((p) => p.machineId))],
+  });
 }
 
 /**
