@@ -1,29 +1,12 @@
 import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
 import { eq } from "drizzle-orm";
 import ExcelJS from "exceljs";
+import { median, seededBenchDatabase, timedAsync } from "./bench-database";
 
 // Issue 4's targets: a page of the axes table under 100 ms with 50,000 axes in the database, and
 // a 10,000-row workbook validated under 5 s and committed under 5 s — on a fresh, migrated file.
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), "loopshift-bench-"));
-process.env.DATABASE_PATH = path.join(dir, "bench.db");
-
-const median = (v: number[]) => [...v].sort((a, b) => a - b)[v.length >> 1];
-const timed = async <T>(run: () => T | Promise<T>) => {
-  const start = performance.now();
-  const value = await run();
-  return { value, ms: performance.now() - start };
-};
-
 async function main() {
-  const { openDatabase } = await import("../../db/client");
-  const { migrateDatabase } = await import("../../db/migrate");
-  const { seedDatabase } = await import("../../db/seed");
-  const setup = openDatabase(process.env.DATABASE_PATH);
-  migrateDatabase(setup);
-  seedDatabase(setup);
-  setup.$client.close();
+  const dir = await seededBenchDatabase("loopshift-bench-");
 
   const { db } = await import("../../db");
   const { axes, machines } = await import("../../db/schema");
@@ -70,7 +53,7 @@ async function main() {
   for (const p of pages) {
     const times: number[] = [];
     for (let i = 0; i < 7; i++)
-      times.push((await timed(() => listAxes(engineer, site.id, p.params))).ms);
+      times.push((await timedAsync(() => listAxes(engineer, site.id, p.params))).ms);
     const ms = median(times);
     pagesMet &&= ms < 100;
     console.log(
@@ -99,12 +82,12 @@ async function main() {
     );
   }
   const bytes = new Uint8Array(await workbook.xlsx.writeBuffer());
-  const checked = await timed(() => checkImportFile(bytes, "bench.xlsx", { site }));
+  const checked = await timedAsync(() => checkImportFile(bytes, "bench.xlsx", { site }));
   const { result } = checked.value;
   console.log(
     `10,000-row workbook (${(bytes.length / 1024).toFixed(0)} KB): read and validated in ${checked.ms.toFixed(0)} ms, ${result.rows.length} valid rows, ${result.errors.length} errors (target 5000 ms)`,
   );
-  const commit = await timed(() =>
+  const commit = await timedAsync(() =>
     commitImport(
       engineer,
       site.id,

@@ -1,6 +1,5 @@
 import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
+import { median, seededBenchDatabase, timed } from "./bench-database";
 
 // The pipeline read over many frozen quotes: the manager's pipeline (totals per stage, per month
 // and the quote list) and one sorted page of it, with 2,000 quotes in the database. Target
@@ -8,24 +7,8 @@ import path from "node:path";
 // inputs, before the quotes stored it (migration 0013).
 const QUOTES = 2_000;
 const TARGET_MS = 500;
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), "loopshift-bench-pipeline-"));
-process.env.DATABASE_PATH = path.join(dir, "bench.db");
-
-const median = (v: number[]) => [...v].sort((a, b) => a - b)[v.length >> 1];
-const timed = <T>(run: () => T) => {
-  const start = performance.now();
-  const value = run();
-  return { value, ms: performance.now() - start };
-};
-
 async function main() {
-  const { openDatabase } = await import("../../db/client");
-  const { migrateDatabase } = await import("../../db/migrate");
-  const { seedDatabase } = await import("../../db/seed");
-  const setup = openDatabase(process.env.DATABASE_PATH);
-  migrateDatabase(setup);
-  seedDatabase(setup);
-  setup.$client.close();
+  const dir = await seededBenchDatabase("loopshift-bench-pipeline-");
 
   const { db } = await import("../../db");
   const { cases, proposals, quotes } = await import("../../db/schema");
