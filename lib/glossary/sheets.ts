@@ -24,4 +24,5 @@ export const DOSSIER_SHEET = {
 export const RECORD_KEY_HEADER = {
   axis: "Axis record key (technical)",
   machine: "Machine record key (for formulas)",
+  kit: "Kit record key (technical)",
 } as const;

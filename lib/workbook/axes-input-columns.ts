@@ -231,18 +231,18 @@ export const AXIS_INPUT_COLUMNS: readonly AxisColumn[] = [
   fieldColumn("avoidedPct"),
 
   {
-    key: "kitId",
-    group: "Retrofit",
-    header: "Kit id",
-    width: 12,
-    value: (r) => safeText(r.axis.retrofit.kit.id),
-  },
-  {
     key: "kitName",
     group: "Retrofit",
     header: "Kit",
     width: 26,
     value: (r) => safeText(r.axis.retrofit.kit.name),
+  },
+  {
+    key: "kitId",
+    group: "Retrofit",
+    header: RECORD_KEY_HEADER.kit,
+    width: 14,
+    value: (r) => safeText(r.axis.retrofit.kit.id),
   },
   {
     key: "sensing",

@@ -54,6 +54,12 @@ describe("record keys in the workbook", () => {
       "M1-Z",
       "M1",
     ]);
+    // The kit by its name, its catalogue key to the right of it; no "… id" header anywhere.
+    const kit = rows[1].indexOf("Kit");
+    expect(kit, "the Kit column").toBeGreaterThan(3);
+    expect(rows[1][kit + 1]).toBe(RECORD_KEY_HEADER.kit);
+    for (const r of rows.slice(0, 3))
+      expect(r.join(" | ")).not.toMatch(/\b(Axis|Machine|Kit) id\b/);
   });
 
   it("the dossier's axis index lists axis, machine and sheet first, the key last", async () => {
