@@ -35,14 +35,8 @@ export interface ValueReliance {
   mostlyTyped: boolean;
 }
 
-/**
- * Splits a scenario's pre-tax value over the horizon into typed and computed parts. Only
- * sources that add value count (a negative service cost lowers the value but is not a figure
- * the value rests on). Null when the scenario has no value by source or no positive value.
- */
-export function valueReliance(scenario: Scenario): ValueReliance | null {
-  const bySource = (scenario as Partial<Scenario>).bySource;
-  if (!bySource) return null;
+/** A scenario's pre-tax value over the horizon that adds value, and the typed part of it. */
+function typedAndTotal(bySource: Scenario["bySource"]) {
   let typed: Decimal = new Money(0);
   let total: Decimal = new Money(0);
   const carried: { label: string; amount: Decimal }[] = [];
@@ -56,6 +50,18 @@ export function valueReliance(scenario: Scenario): ValueReliance | null {
       carried.push({ label: VALUE_SOURCE_LABELS[source], amount });
     }
   }
+  return { typed, total, carried };
+}
+
+/**
+ * Splits a scenario's pre-tax value over the horizon into typed and computed parts. Only
+ * sources that add value count (a negative service cost lowers the value but is not a figure
+ * the value rests on). Null when the scenario has no value by source or no positive value.
+ */
+export function valueReliance(scenario: Scenario): ValueReliance | null {
+  const bySource = (scenario as Partial<Scenario>).bySource;
+  if (!bySource) return null;
+  const { typed, total, carried } = typedAndTotal(bySource);
   if (!total.greaterThan(0)) return null;
   const share = typed.div(total);
   return {
@@ -63,6 +69,14 @@ export function valueReliance(scenario: Scenario): ValueReliance | null {
     typedSources: carried.sort((a, b) => b.amount.comparedTo(a.amount)).map((c) => c.label),
     mostlyTyped: share.greaterThan(0.5),
   };
+}
+
+/** The same share unrounded, as a fraction (the workbook's Summary states it as a formula). */
+export function typedShare(scenario: Scenario): number | null {
+  const bySource = (scenario as Partial<Scenario>).bySource;
+  if (!bySource) return null;
+  const { typed, total } = typedAndTotal(bySource);
+  return total.greaterThan(0) ? typed.div(total).toNumber() : null;
 }
 
 /** The sentence shown under the results, e.g. "62 % of the value … : step-loss events avoided and added output". */

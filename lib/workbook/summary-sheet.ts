@@ -1,6 +1,7 @@
 import type ExcelJS from "exceljs";
 import { VALUE_SOURCES, type CaseResult, type ParsedCase } from "@/lib/engine";
 import { VALUE_SOURCE_LABELS } from "@/lib/results/engine-v2";
+import { SOURCE_ORIGIN, typedShare } from "@/lib/results/value-reliance";
 import {
   BAND_POSITION_LABELS,
   FINANCE_TERMS,
@@ -223,7 +224,7 @@ export function writeSummarySheet(
     result,
     ranges,
     currency,
-    bandTop + 12 + VALUE_SOURCES.length + 2,
+    bandTop + 12 + VALUE_SOURCES.length + 4,
   );
 }
 
@@ -255,6 +256,7 @@ function writeValueBySource(
     header.getCell(2 + j).value = SCENARIO_TITLE[s];
     header.getCell(DISCOUNTED_COLUMN + j).value = `${SCENARIO_TITLE[s]}, discounted`;
   });
+  header.getCell(ORIGIN_COLUMN).value = "Where its figures come from";
   styleHeader(header);
   const cashFlowYears = (r: number) =>
     `${sheetRef(SHEET.cashFlow)}!$${sourceYearColumn(1)}$${r}:$${sourceYearColumn(MAX_HORIZON_YEARS)}$${r}`;
@@ -271,6 +273,8 @@ function writeValueBySource(
   VALUE_SOURCES.forEach((source, i) => {
     const row = top + 1 + i;
     sheet.getCell(row, 1).value = VALUE_SOURCE_LABELS[source];
+    const origin = SOURCE_ORIGIN[source];
+    sheet.getCell(row, ORIGIN_COLUMN).value = origin ? ORIGIN_WORDS[origin] : ORIGIN_WORDS.neither;
     SCENARIOS.forEach((s, j) => {
       const r = sourceRow(s, source);
       const cell = sheet.getCell(row, 2 + j);
@@ -320,6 +324,49 @@ function writeValueBySource(
   });
   sheet.getCell(totalRow + 1, 1).value =
     "Discounted total less the up-front cost: the net present value";
+  writeTypedShare(sheet, result, top, totalRow + 2);
+}
+
+/** Column of the value-by-source block that says where each source's figures come from. */
+export const ORIGIN_COLUMN = 2 + 2 * SCENARIOS.length;
+
+const ORIGIN_WORDS = {
+  typed: "typed for this case",
+  computed: "computed by the engine",
+  neither: "follows from the others",
+} as const;
+
+/** Label of the Summary row that gives the share of the value resting on typed figures. */
+export const TYPED_SHARE_LABEL =
+  "Share of the value over the horizon resting on figures typed for this case";
+
+/**
+ * The share lib/results/value-reliance.ts states on screen, as a live formula: of the sources that
+ * add value over the horizon (a positive sum), those typed for the case, over all of them but tax.
+ */
+function writeTypedShare(
+  sheet: ExcelJS.Worksheet,
+  result: CaseResult,
+  top: number,
+  row: number,
+): void {
+  const first = top + 1;
+  const last = top + VALUE_SOURCES.length;
+  const originColumn = sheet.getCell(first, ORIGIN_COLUMN).address.replace(/\d+$/, "");
+  const origins = `$${originColumn}$${first}:$${originColumn}$${last}`;
+  sheet.getCell(row, 1).value = TYPED_SHARE_LABEL;
+  SCENARIOS.forEach((s, j) => {
+    const column = sheet.getCell(row, 2 + j).address.replace(/\d+$/, "");
+    const sums = `${column}${first}:${column}${last}`;
+    const adding = (origin: string) => `SUMPRODUCT((${origins}${origin})*(${sums}>0)*${sums})`;
+    const cell = sheet.getCell(row, 2 + j);
+    const reliance = typedShare(result.scenarios[s]);
+    cell.value = {
+      formula: `IFERROR(${adding(`="${ORIGIN_WORDS.typed}"`)}/${adding(`<>"${ORIGIN_WORDS.neither}"`)},"${NOT_APPLICABLE}")`,
+      result: reliance ?? NOT_APPLICABLE,
+    };
+    cell.numFmt = FORMATS.ratio;
+  });
 }
 
 /** First column of the discounted value by source (one per scenario), beside the plain sums. */

@@ -17,7 +17,12 @@ import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { BEYOND_HORIZON, buildProposalWorkbook } from "@/lib/workbook";
 import { IRR_NO_RATE_WORDS } from "@/lib/results/format";
 import { PAYBACK_STATUS_LABELS } from "@/lib/glossary";
-import { DISCOUNTED_COLUMN, summarySourcesTop } from "@/lib/workbook/summary-sheet";
+import {
+  DISCOUNTED_COLUMN,
+  TYPED_SHARE_LABEL,
+  summarySourcesTop,
+} from "@/lib/workbook/summary-sheet";
+import { valueReliance } from "@/lib/results/value-reliance";
 import { SCENARIOS } from "@/lib/workbook/layout";
 import {
   machineBlockHeader,
@@ -219,6 +224,13 @@ function expectSummaryBreakdown(calc: ExcelJS.Workbook, result: CaseResult, rate
       cents(read(top! + 2 + VALUE_SOURCES.length, discounted)),
       `Summary ${key} NPV from the discounted sources`,
     ).toBe(cents(s.npv));
+    // The share resting on typed figures, as the screens state it in whole percent
+    // (lib/results/value-reliance.ts): Calc's live formula rounds to the same.
+    const shareRow = top! + 3 + VALUE_SOURCES.length;
+    expect(sheet.getCell(shareRow, 1).value).toBe(TYPED_SHARE_LABEL);
+    const reliance = valueReliance(s);
+    expect(reliance, `${key}: value over the horizon`).not.toBeNull();
+    expect(Math.round(read(shareRow) * 100), `Summary ${key} typed share`).toBe(reliance!.typedPct);
   });
 }
 
