@@ -7,6 +7,12 @@ export const SHEET = {
   cautions: "Cautions",
 } as const;
 
+/**
+ * The sheet a proposal workbook adds after Cautions when the sources of its typed figures are
+ * at hand (the download routes read them; a workbook built without them has no such sheet).
+ */
+export const SOURCES_SHEET = "Sources";
+
 /** The sheets the dossier workbook adds after the proposal's, before one sheet per axis. */
 export const DOSSIER_SHEET = {
   monthly: "Monthly cash flow",

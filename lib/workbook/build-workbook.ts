@@ -9,6 +9,8 @@ import { sheetOptions } from "./formats";
 import { FROZEN, SHEET } from "./layout";
 import { headerFooterText } from "./safe-text";
 import { writeSummarySheet } from "./summary-sheet";
+import { writeSourcesSheet } from "./sources-sheet";
+import { SOURCES_SHEET } from "@/lib/glossary";
 import type { WorkbookMeta } from "./types";
 
 /**
@@ -94,4 +96,9 @@ export function writeProposalSheets(
   writeCashFlowSheet(workbook, cashFlow, input, result, axesRanges, machineRanges);
   writeSummarySheet(summary, input, result, meta, { axes: axesRanges, machines: machineRanges });
   writeCautionsSheet(cautions, input, result);
+  if (meta.evidence) {
+    const sources = workbook.addWorksheet(SOURCES_SHEET, sheetOptions(3, 0));
+    sources.headerFooter = { ...sources.headerFooter, oddFooter: footer };
+    writeSourcesSheet(sources, input, result, meta.evidence);
+  }
 }

@@ -6,6 +6,8 @@ import { requireRole } from "@/server/auth";
 import { caseInputSchema } from "@/lib/engine";
 import { buildProposalWorkbook } from "@/lib/workbook";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
+import { listCaseEvidence } from "@/db/queries/evidence";
+import { indexEvidence } from "@/lib/evidence/subjects";
 
 // The case as it stands as an .xlsx whose formulas recompute every figure; no version, since
 // nothing is frozen (GET /api/v1/proposals/{id}/workbook gives a frozen one).
@@ -24,6 +26,7 @@ export const GET = withApi(
       version: null,
       engineVersion: result.engineVersion,
       generatedAt: new Date().toISOString(),
+      evidence: { caseId, index: indexEvidence(listCaseEvidence(caller, caseId)) },
     });
     // An ASCII file name: the header cannot carry the case name's other characters as they are.
     const file = `${found.name.replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "") || "case"}.xlsx`;

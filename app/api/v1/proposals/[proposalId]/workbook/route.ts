@@ -4,6 +4,8 @@ import { idFromRoute } from "@/lib/validations/ids";
 import { requireUser } from "@/server/auth";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 import { buildProposalWorkbook } from "@/lib/workbook";
+import { listProposalEvidence, listReviewedProposalEvidence } from "@/db/queries/evidence";
+import { frozenSubjects, indexEvidence } from "@/lib/evidence/subjects";
 
 // A frozen proposal as an .xlsx: built from the input and result stored when it was frozen, so
 // it reads the same whatever happened to the case since. A reviewer downloads the workbooks of
@@ -11,11 +13,16 @@ import { buildProposalWorkbook } from "@/lib/workbook";
 export const GET = withApi(
   async (_request: Request, context: { params: Promise<{ proposalId: string }> }) => {
     const caller = await requireUser();
-    const { quote, input, result } = getProposalSnapshotOrThrow(
-      caller,
-      idFromRoute((await context.params).proposalId),
-    );
+    const proposalId = idFromRoute((await context.params).proposalId);
+    const { quote, input, result } = getProposalSnapshotOrThrow(caller, proposalId);
     const proposal = { ...quote, input, result };
+    // The sources beside the frozen figures, as recorded now: the reviewer reads them through the
+    // proposal sent to them, the vendor's people through the case (db/queries/evidence.ts).
+    const subjects = frozenSubjects(input);
+    const evidence =
+      caller.role === "reviewer"
+        ? listReviewedProposalEvidence(caller, proposalId, subjects)
+        : listProposalEvidence(caller, quote.caseId, subjects);
     const workbook = await buildProposalWorkbook(parseFrozenInput(proposal), proposal.result, {
       title: `${proposal.caseName}: retrofit proposal, version ${proposal.version}`,
       accountName: proposal.accountName,
@@ -24,6 +31,7 @@ export const GET = withApi(
       version: proposal.version,
       engineVersion: proposal.engineVersion,
       generatedAt: new Date().toISOString(),
+      evidence: { caseId: quote.caseId, index: indexEvidence(evidence) },
     });
     // An ASCII file name: the header cannot carry the case name's other characters as they are.
     const base = proposal.caseName.replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "") || "case";
