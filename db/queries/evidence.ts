@@ -116,6 +116,20 @@ export function listReviewedProposalEvidence(
   return evidenceOf(quote.accountId, quote.caseId, subjects);
 }
 
+/**
+ * A frozen proposal's sources for whoever asks: the customer's reviewer through the proposal sent
+ * to them, the vendor's people through its case (the workbook and dossier downloads).
+ */
+export function listProposalEvidenceFor(
+  caller: SessionUser,
+  proposal: { id: number; caseId: number },
+  subjects: { axisIds: number[]; machineIds: number[] },
+): EvidenceEntry[] {
+  return caller.role === "reviewer"
+    ? listReviewedProposalEvidence(caller, proposal.id, subjects)
+    : listProposalEvidence(caller, proposal.caseId, subjects);
+}
+
 function evidenceOf(
   accountId: number,
   caseId: number,

@@ -4,6 +4,9 @@ import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
 import { GET as caseWorkbookGet } from "@/app/api/v1/cases/[caseId]/workbook/route";
 import { GET as proposalWorkbookGet } from "@/app/api/v1/proposals/[proposalId]/workbook/route";
+import { GET as dossierGet } from "@/app/api/v1/proposals/[proposalId]/dossier/route";
+import { recordCheckoutSession } from "@/db/queries/payments";
+import { recordPaymentEvent } from "@/server/payments/record-event";
 import { buildCaseInput, listCases } from "@/db/queries/cases";
 import { listCaseEvidence, listReviewedProposalEvidence } from "@/db/queries/evidence";
 import { getProposalSnapshotOrThrow } from "@/db/queries/proposals";
@@ -32,13 +35,16 @@ const get = () => new Request("http://localhost/x");
  * The Sources sheet's rows as LibreOffice Calc saves the file again (tests/support/libreoffice.ts):
  * the sheet the streaming writer wrote opens in a spreadsheet program and keeps its rows.
  */
-async function sourcesSheet(res: Response) {
+async function sourcesSheet(res: Response, last = true) {
   expect(res.status).toBe(200);
   const workbook = new ExcelJS.Workbook();
   await workbook.xlsx.load(
     recalculateWithLibreOffice(Buffer.from(await res.arrayBuffer())) as never,
   );
-  expect(workbook.worksheets.map((s) => s.name).at(-1)).toBe(SOURCES_SHEET);
+  const names = workbook.worksheets.map((s) => s.name);
+  // After Cautions: last in a proposal workbook, before the dossier's own sheets in a dossier.
+  expect(names[names.indexOf("Cautions") + 1]).toBe(SOURCES_SHEET);
+  if (last) expect(names.at(-1)).toBe(SOURCES_SHEET);
   const sheet = workbook.getWorksheet(SOURCES_SHEET)!;
   const rows: string[][] = [];
   sheet.eachRow((row) => rows.push((row.values as unknown[]).slice(1).map((v) => String(v ?? ""))));
@@ -92,5 +98,42 @@ describe("the Sources sheet of the workbooks", () => {
       `${figures.length} of ${figures.length} typed figures the value rests on have no recorded source.`,
     );
     expect(rows.slice(3).every((r) => r[2] === "No source recorded")).toBe(true);
+  });
+
+  it("the paid dossier's workbook carries the same sheet, for the reviewer too", async () => {
+    const target = caseNamed("North hall cartoners, phase 1");
+    const proposal = listProposals(engineer(), target.id).at(-1)!;
+    recordCheckoutSession(engineer(), proposal.id, {
+      id: "cs_test_workbook_sources",
+      amountMinor: 49000,
+      amount: "490.00",
+      currency: "EUR",
+    });
+    const paid = recordPaymentEvent({
+      id: "evt_workbook_sources",
+      type: "checkout.session.completed",
+      session: {
+        id: "cs_test_workbook_sources",
+        paymentStatus: "paid",
+        amountTotal: 49000,
+        currency: "eur",
+      },
+    });
+    expect(paid.outcome).toBe("granted");
+    const { input: frozen, result } = getProposalSnapshotOrThrow(reviewer(), proposal.id);
+    const input = caseInputSchema.parse(frozen);
+    const figures = typedValueFigures(result, input, target.id);
+    const index = indexEvidence(
+      listReviewedProposalEvidence(reviewer(), proposal.id, frozenSubjects(input)),
+    );
+    const rows = await sourcesSheet(
+      await asRequestOf(reviewer(), () => dossierGet(get(), params("proposalId", proposal.id))),
+      false,
+    );
+    const body = rows.slice(3);
+    expect(body).toHaveLength(figures.length);
+    expect(body.filter((r) => r[2] !== "No source recorded")).toHaveLength(
+      figures.filter((f) => index[f.key]).length,
+    );
   });
 });

@@ -6,6 +6,8 @@ import { buildDossier } from "@/lib/dossier";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 import { buildDossierWorkbook } from "@/lib/workbook";
 import { VENDOR_ROLES } from "@/lib/auth/roles";
+import { listProposalEvidenceFor } from "@/db/queries/evidence";
+import { frozenSubjects, indexEvidence } from "@/lib/evidence/subjects";
 
 // The dossier workbook of a proposal: 402 until its account has paid (with the price, for the
 // vendor's people who may buy it), then the .xlsx, built from the frozen input with the recorded
@@ -38,6 +40,11 @@ export const GET = withApi(
       version: proposal.version,
       engineVersion: dossier.result.engineVersion,
       generatedAt: new Date().toISOString(),
+      // The Sources sheet after Cautions, for whoever downloads it (db/queries/evidence.ts).
+      evidence: {
+        caseId: proposal.caseId,
+        index: indexEvidence(listProposalEvidenceFor(caller, proposal, frozenSubjects(input))),
+      },
     });
     const base = proposal.caseName.replace(/[^A-Za-z0-9]+/g, "-").replace(/^-|-$/g, "") || "case";
     return new Response(new Uint8Array(workbook), {

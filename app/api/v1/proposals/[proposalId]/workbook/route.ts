@@ -4,7 +4,7 @@ import { idFromRoute } from "@/lib/validations/ids";
 import { requireUser } from "@/server/auth";
 import { parseFrozenInput } from "@/lib/results/stored-input-problems";
 import { buildProposalWorkbook } from "@/lib/workbook";
-import { listProposalEvidence, listReviewedProposalEvidence } from "@/db/queries/evidence";
+import { listProposalEvidenceFor } from "@/db/queries/evidence";
 import { frozenSubjects, indexEvidence } from "@/lib/evidence/subjects";
 
 // A frozen proposal as an .xlsx: built from the input and result stored when it was frozen, so
@@ -18,11 +18,7 @@ export const GET = withApi(
     const proposal = { ...quote, input, result };
     // The sources beside the frozen figures, as recorded now: the reviewer reads them through the
     // proposal sent to them, the vendor's people through the case (db/queries/evidence.ts).
-    const subjects = frozenSubjects(input);
-    const evidence =
-      caller.role === "reviewer"
-        ? listReviewedProposalEvidence(caller, proposalId, subjects)
-        : listProposalEvidence(caller, quote.caseId, subjects);
+    const evidence = listProposalEvidenceFor(caller, quote, frozenSubjects(input));
     const workbook = await buildProposalWorkbook(parseFrozenInput(proposal), proposal.result, {
       title: `${proposal.caseName}: retrofit proposal, version ${proposal.version}`,
       accountName: proposal.accountName,
