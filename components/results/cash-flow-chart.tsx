@@ -21,7 +21,14 @@ const STYLE_BY_KEY: Record<ScenarioKey, LineStyle> = {
 };
 
 /** Cumulative cash flow of the three scenarios, from the up-front cost at year 0 to the horizon. */
-export function CashFlowChart({ result, input }: { result: CaseResult; input: ParsedCase | null }) {
+export function CashFlowChart({
+  result,
+  input,
+}: {
+  result: CaseResult;
+  /** Only its band (the trade-claim scenarios' labels): the sandbox passes the proposal's. */
+  input: Pick<ParsedCase, "band"> | null;
+}) {
   const currency = result.currency;
   const series = useMemo(() => cashFlowSeries(result, input), [result, input]);
   const data: FlowSeries[] = series.map((s) => ({

@@ -30,7 +30,8 @@ export function ValueBySourceChart({
   input,
 }: {
   result: CaseResult;
-  input: ParsedCase | null;
+  /** Only its discount rate, for the discounted columns: the sandbox passes the one it used. */
+  input: { finance: Pick<ParsedCase["finance"], "discountRatePct"> } | null;
 }) {
   const currency = result.currency;
   const rate = input?.finance.discountRatePct ?? null;

@@ -13,16 +13,33 @@ import { SCENARIO_KEYS, scenarioLabel } from "@/lib/results/scenarios";
 import Decimal from "decimal.js";
 import { Term } from "@/components/ui/term";
 import { ValueBySourceTable } from "@/components/results/value-by-source-table";
+import { CashFlowChart } from "@/components/results/cash-flow-chart";
+import { ValueBySourceChart } from "@/components/results/value-by-source-chart";
 import { breakEvenLines } from "@/lib/results/engine-v2";
 import { BreakEvenRow } from "@/components/results/break-even-row";
 import type { WhatIfRequest } from "@/lib/validations/what-if";
 import { readTypedDecimal } from "@/lib/validations/typed-number";
 
 /** Where the sandbox's value comes from and where it breaks even, for the reviewer's figures. */
-function SandboxDetail({ result, tariffPerKWh }: { result: CaseResult; tariffPerKWh: string }) {
+function SandboxDetail({
+  result,
+  tariffPerKWh,
+  discountRatePct,
+  band,
+}: {
+  result: CaseResult;
+  tariffPerKWh: string;
+  discountRatePct: number;
+  band: { lowPct: number; highPct: number };
+}) {
   const lines = breakEvenLines(result, tariffPerKWh);
   return (
     <div className="mt-5 grid grid-cols-[minmax(0,1fr)] gap-5" data-testid="what-if-detail">
+      <h3 className="text-lead font-bold text-steel-900">With your figures</h3>
+      <div className="grid grid-cols-1 gap-5 xl:grid-cols-2">
+        <CashFlowChart result={result} input={{ band }} />
+        <ValueBySourceChart result={result} input={{ finance: { discountRatePct } }} />
+      </div>
       <ValueBySourceTable result={result} />
       {lines ? (
         <dl aria-label="Break-even with your figures" className="divide-y divide-steel-100">
@@ -95,14 +112,17 @@ function toRequest(values: Record<SandboxKey, string>): WhatIfRequest {
   ) as WhatIfRequest;
 }
 
-/** The tariff the reviewer computed with, as decimal text, for the break-even lines. */
-function sentTariff(text: string, proposal: string): string {
+/**
+ * A figure the reviewer computed with, as decimal text (the tariff for the break-even lines, the
+ * discount rate for the discounted value by source): as typed when readable, else the proposal's.
+ */
+function sentFigure(text: string, proposal: string): string {
   const read = readTypedDecimal(text);
   return read.ok ? read.text : proposal;
 }
 
 /**
- * The sandbox: the reviewer's own tariff, escalation, discount rate and horizon run through the
+ * The sandbox: the reviewer's own finance figures and factors on what the proposal entered run through the
  * engine on the frozen proposal, shown beside the proposal's figures. Nothing is saved.
  */
 export function WhatIfPanel({
@@ -127,6 +147,7 @@ export function WhatIfPanel({
   const initial = inProposal;
   const [values, setValues] = useState(initial);
   const [computedTariff, setComputedTariff] = useState(finance.tariffPerKWh);
+  const [computedRate, setComputedRate] = useState(finance.discountRatePct);
   const whatIf = useWhatIf(proposalId);
   const error = whatIf.error instanceof WhatIfError ? whatIf.error : null;
   const currency = proposal.currency;
@@ -143,7 +164,10 @@ export function WhatIfPanel({
         aria-label="What-if figures"
         onSubmit={(e) => {
           e.preventDefault();
-          setComputedTariff(sentTariff(values.tariffPerKWh, finance.tariffPerKWh));
+          setComputedTariff(sentFigure(values.tariffPerKWh, finance.tariffPerKWh));
+          setComputedRate(
+            Number(sentFigure(values.discountRatePct, String(finance.discountRatePct))),
+          );
           whatIf.mutate(toRequest(values));
         }}
         className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4"
@@ -265,7 +289,14 @@ export function WhatIfPanel({
           </p>
         ) : null}
       </div>
-      {mine ? <SandboxDetail result={mine} tariffPerKWh={computedTariff} /> : null}
+      {mine ? (
+        <SandboxDetail
+          result={mine}
+          tariffPerKWh={computedTariff}
+          discountRatePct={computedRate}
+          band={band}
+        />
+      ) : null}
     </Panel>
   );
 }

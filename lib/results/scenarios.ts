@@ -32,7 +32,10 @@ export function cumulativeFlows(scenario: Scenario): CashFlowPoint[] {
   });
 }
 
-export function cashFlowSeries(result: CaseResult, input: ParsedCase | null): CashFlowSeries[] {
+export function cashFlowSeries(
+  result: CaseResult,
+  input: Pick<ParsedCase, "band"> | null,
+): CashFlowSeries[] {
   const band = input?.band ?? DEFAULT_BAND;
   return SCENARIO_KEYS.map((key) => ({
     key,

@@ -119,6 +119,10 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
     await sandbox.getByRole("button", { name: "Compute with these figures" }).click();
     await expect.poll(() => npv.textContent(), { timeout: 15_000 }).not.toBe(npvBefore);
     await expect.poll(() => detail.textContent(), { timeout: 15_000 }).not.toBe(breakdownBefore);
+    // The charts are drawn again with the reviewer's figures, inside the sandbox.
+    for (const chart of ["Cumulative cash flow", "Value by source over the horizon"])
+      await detail.getByRole("heading", { name: chart }).waitFor();
+    await screenshot(page, "review-portal-what-if-charts");
     expect(await page.getByRole("cell").filter({ hasText: /€/ }).first().textContent()).toBe(
       proposalNpv,
     );
