@@ -35,6 +35,18 @@ export interface ValueReliance {
   mostlyTyped: boolean;
 }
 
+/**
+ * `part` of `whole` in whole percent, as the sentences state it: rounded, except that a part
+ * short of the whole never reads 100 % and a part above nothing never reads 0 %, so "100 % rests
+ * on typed figures" is only said when nothing rests on computed ones.
+ */
+export function wholePercent(part: Decimal, whole: Decimal): number {
+  const pct = part.div(whole).times(100).toDecimalPlaces(0).toNumber();
+  if (pct === 100 && part.lessThan(whole)) return 99;
+  if (pct === 0 && part.greaterThan(0)) return 1;
+  return pct;
+}
+
 /** A scenario's pre-tax value over the horizon that adds value, and the typed part of it. */
 function typedAndTotal(bySource: Scenario["bySource"]) {
   let typed: Decimal = new Money(0);
@@ -65,7 +77,7 @@ export function valueReliance(scenario: Scenario): ValueReliance | null {
   if (!total.greaterThan(0)) return null;
   const share = typed.div(total);
   return {
-    typedPct: share.times(100).toDecimalPlaces(0).toNumber(),
+    typedPct: wholePercent(typed, total),
     typedSources: carried.sort((a, b) => b.amount.comparedTo(a.amount)).map((c) => c.label),
     mostlyTyped: share.greaterThan(0.5),
   };
@@ -294,7 +306,7 @@ export function evidencedReliance(
       }
     }
   }
-  const pct = (d: Decimal) => d.div(total).times(100).toDecimalPlaces(0).toNumber();
+  const pct = (d: Decimal) => wholePercent(d, total);
   return {
     ...base,
     evidencedPct: pct(evidenced),

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import type { Scenario } from "@/lib/engine";
-import { relianceSentence, valueReliance } from "@/lib/results/value-reliance";
+import Decimal from "decimal.js";
+import { relianceSentence, valueReliance, wholePercent } from "@/lib/results/value-reliance";
 
 function scenario(bySource: Partial<Scenario["bySource"]>): Scenario {
   const zero = ["0", "0"];
@@ -26,6 +27,19 @@ function scenario(bySource: Partial<Scenario["bySource"]>): Scenario {
 }
 
 describe("valueReliance", () => {
+  it("never rounds a typed share up to 100 % while some value is computed, nor a small one down to 0 %", () => {
+    // 9,970 typed of 10,000 (99.7 %) and 30 of 10,000 (0.3 %): worked by hand.
+    const most = valueReliance(scenario({ energy: ["15", "15"], throughput: ["4985", "4985"] }));
+    expect(most?.typedPct).toBe(99);
+    const least = valueReliance(scenario({ energy: ["4985", "4985"], throughput: ["15", "15"] }));
+    expect(least?.typedPct).toBe(1);
+    expect(valueReliance(scenario({ throughput: ["1", "1"] }))?.typedPct).toBe(100);
+    expect(wholePercent(new Decimal(995), new Decimal(1000))).toBe(99);
+    expect(wholePercent(new Decimal(994), new Decimal(1000))).toBe(99);
+    expect(wholePercent(new Decimal(985), new Decimal(1000))).toBe(99);
+    expect(wholePercent(new Decimal(984), new Decimal(1000))).toBe(98);
+  });
+
   it("counts event and output value as typed, energy and cooling as computed, tax as neither", () => {
     // 620 typed of 1000 pre-tax: worked by hand.
     const r = valueReliance(
