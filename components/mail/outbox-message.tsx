@@ -6,7 +6,8 @@ const URL_PATTERN = /(https?:\/\/[^\s<>"]+)/g;
 function TextWithLinks({ text }: { text: string }) {
   const parts = text.split(URL_PATTERN);
   return (
-    <pre className="whitespace-pre-wrap break-words font-sans text-small text-steel-900">
+    // wrap-anywhere: an invitation's long link breaks too, so a narrow screen never scrolls sideways.
+    <pre className="whitespace-pre-wrap wrap-anywhere font-sans text-small text-steel-900">
       {parts.map((part, i) =>
         i % 2 === 1 ? (
           <a key={i} href={part} className="font-bold text-flux-700 underline">
@@ -44,13 +45,13 @@ export function OutboxMessage({ message, open }: { message: OutboxEntry; open: b
         </span>
       </summary>
       <div className="grid gap-4 border-t border-steel-200 p-4 xl:grid-cols-2">
-        <section aria-label="Plain-text part">
+        <section aria-label="Plain-text part" className="min-w-0">
           <h3 className="mb-2 text-caption font-bold uppercase tracking-wide text-steel-600">
             Plain text
           </h3>
           <TextWithLinks text={message.text} />
         </section>
-        <section aria-label="HTML part">
+        <section aria-label="HTML part" className="min-w-0">
           <h3 className="mb-2 text-caption font-bold uppercase tracking-wide text-steel-600">
             HTML
           </h3>

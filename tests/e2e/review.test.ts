@@ -107,7 +107,7 @@ describe("a proposal goes to the customer's reviewer by e-mail and comes back wi
     // Half the step-loss events entered: the NPV and the value by source move, the proposal's
     // own column does not.
     // The reviewer reads where the value comes from before trying figures.
-    await page.getByRole("heading", { name: "Value by source over the horizon" }).waitFor();
+    await page.getByRole("heading", { name: "Value by source over the horizon" }).first().waitFor();
     const storedBefore = await (
       await page.request.get(`${baseUrl()}/api/v1/proposals/${proposalId}`)
     ).text();
