@@ -4,6 +4,7 @@ import type { CaseResult, ParsedCase } from "@/lib/engine";
 import type { EvidenceIndex } from "@/lib/evidence/subjects";
 import { formatMoney } from "@/lib/results/format";
 import { typedValueFigures, valueReliance } from "@/lib/results/value-reliance";
+import { upperFirst } from "@/lib/words";
 
 /** Where a figure's source is recorded: its axis's, machine's or case's page. */
 function recordHref(key: string): string {
@@ -14,8 +15,6 @@ function recordHref(key: string): string {
       ? `/machines/${id}`
       : `/cases/${id}`;
 }
-
-const sentenceCase = (words: string) => words.charAt(0).toUpperCase() + words.slice(1);
 
 /** How many figures the panel lists before "and N more": a fleet has thousands of axes. */
 const SHOWN = 12;
@@ -60,7 +59,7 @@ export function EvidenceSources({
           return (
             <li key={f.key} className="py-2">
               <p className="flex flex-wrap justify-between gap-x-4">
-                <span className="font-bold text-steel-900">{sentenceCase(f.words)}</span>
+                <span className="font-bold text-steel-900">{upperFirst(f.words)}</span>
                 <span className="tabular-nums text-steel-700">
                   {formatMoney(f.valuePerYear, result.currency)} a year
                 </span>

@@ -7,6 +7,7 @@ import { Button, buttonClass } from "@/components/ui/button";
 import { Field, Input, Select } from "@/components/ui/field";
 import { TORQUE_UNIT_NAMES } from "@/lib/engine/units";
 import { parseTypedNumber } from "@/lib/validations/typed-number";
+import { upperFirst } from "@/lib/words";
 
 /**
  * The shared schemas word their messages to follow a field path ("holdingTorqueNm: must be
@@ -22,7 +23,7 @@ export function fieldMessage(message: string | undefined): string | undefined {
     return "Enter a number such as 0.24 (for a thousand and more, write 1234 rather than 1,234)";
   if (message.startsWith("expected a number") || message.startsWith("expected a whole number"))
     return "Enter a number";
-  return message.charAt(0).toUpperCase() + message.slice(1);
+  return upperFirst(message);
 }
 
 // A number input yields text; an empty box becomes undefined so that the schema's default (or

@@ -2,6 +2,7 @@ import type { ImportField } from "./fields";
 import { boundMessages } from "@/lib/engine/schema-fields";
 import { toSi } from "./units";
 import { readTypedDecimal } from "@/lib/validations/typed-number";
+import { lowerFirst } from "@/lib/words";
 
 /** A cell's value in the field's SI unit, or what is wrong with it and how to fix it. */
 export type CellResult =
@@ -50,7 +51,7 @@ export function parseNumberText(raw: string): NumberText {
   return { ok: false, reason: read.reason === "ambiguous" ? "ambiguous" : "not-a-number" };
 }
 
-const lower = (field: ImportField) => field.label.charAt(0).toLowerCase() + field.label.slice(1);
+const lower = (field: ImportField) => lowerFirst(field.label);
 
 /** "the holding torque in oz·in", "the quantity": what to enter, in the column's unit. */
 function entering(field: ImportField, unit: string): string {

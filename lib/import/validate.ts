@@ -12,6 +12,7 @@ import {
 } from "./fields";
 import { headerFor, type HeaderMatch } from "./headers";
 import type { SheetData } from "./read";
+import { lowerFirst } from "@/lib/words";
 
 /** The site's values for the fields a row may leave blank (docs/model.md duty). */
 export interface SiteDefaults {
@@ -196,8 +197,7 @@ export function validateRows(
   return { rowsRead, rows, errors, machinesNamed: [...machines] };
 }
 
-const lowerLabel = (field: ImportField) =>
-  field.label.charAt(0).toLowerCase() + field.label.slice(1);
+const lowerLabel = (field: ImportField) => lowerFirst(field.label);
 
 /** The header of the column that fills `key`, or the field's label when no column does. */
 const columnName = (key: ImportFieldKey, columnOf: ReadonlyMap<ImportFieldKey, Column>) =>

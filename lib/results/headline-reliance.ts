@@ -4,6 +4,7 @@ import { SCENARIO_LABELS, scenarioLabel } from "@/lib/glossary";
 import { DEFAULT_BAND } from "./case-view";
 import { SCENARIO_KEYS, type ScenarioKey } from "./scenarios";
 import { evidencedReliance, relianceSentence, valueReliance } from "./value-reliance";
+import { lowerFirst } from "@/lib/words";
 
 /**
  * Who reads the headline's warning: the vendor records sources, the customer's reviewer asks for
@@ -61,8 +62,6 @@ interface Share {
   pct: number;
   mostly: boolean;
 }
-
-const lowerFirst = (s: string) => s.charAt(0).toLowerCase() + s.slice(1);
 
 /**
  * The three scenarios share their typed figures and differ only in the energy and cooling they

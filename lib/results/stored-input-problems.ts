@@ -5,6 +5,7 @@ import { FIELD_BOUNDS, type FieldBound } from "@/lib/engine/schema-fields";
 import { importField } from "@/lib/import/fields";
 import { KIT_FIELDS } from "@/lib/fields";
 import { RETROFIT_LABELS } from "@/lib/validations/case";
+import { upperFirst } from "@/lib/words";
 
 /**
  * A stored value of a case that the engine's bounds refuse: typically one saved before the
@@ -212,7 +213,7 @@ export function storedInputProblems(
       allowed,
       message: issue.message,
       fixAt,
-      text: text.charAt(0).toUpperCase() + text.slice(1),
+      text: upperFirst(text),
     };
   });
 }

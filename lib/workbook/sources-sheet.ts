@@ -5,8 +5,7 @@ import { SCENARIO_LABELS } from "@/lib/glossary";
 import { typedValueFigures } from "@/lib/results/value-reliance";
 import { currencyFormat, styleHeader, styleTitle } from "./formats";
 import { safeText } from "./safe-text";
-
-const sentenceCase = (words: string) => words.charAt(0).toUpperCase() + words.slice(1);
+import { upperFirst } from "@/lib/words";
 
 /**
  * Every figure typed for the case that the value rests on, most value first, beside its recorded
@@ -48,7 +47,7 @@ export function writeSourcesSheet(
   for (const f of figures) {
     const entry = evidence.index[f.key];
     const row = sheet.addRow([
-      safeText(sentenceCase(f.words)),
+      safeText(upperFirst(f.words)),
       Number(f.valuePerYear),
       entry ? safeText(entry.note) : "No source recorded",
       entry ? safeText(entry.givenBy) : null,
