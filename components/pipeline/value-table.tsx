@@ -1,4 +1,4 @@
-import { SortHeader, Table, Td } from "@/components/ui/table";
+import { NumberTd, SortHeader, Table, Td } from "@/components/ui/table";
 import type { ValueRow } from "@/components/pipeline/pipeline-charts";
 import { FINANCE_TERMS } from "@/lib/glossary";
 import type { GroupSort } from "@/lib/pipeline/sort-quotes";
@@ -49,15 +49,9 @@ export function ValueTable({
           <tr key={r.key}>
             <Td>{r.label}</Td>
             <Td className="text-right tabular-nums">{r.count}</Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoney(r.revenue, currency)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoney(r.weighted, currency)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoney(r.value, currency)}
-            </Td>
+            <NumberTd>{formatMoney(r.revenue, currency)}</NumberTd>
+            <NumberTd>{formatMoney(r.weighted, currency)}</NumberTd>
+            <NumberTd>{formatMoney(r.value, currency)}</NumberTd>
           </tr>
         ))}
       </tbody>

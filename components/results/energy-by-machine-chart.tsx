@@ -3,7 +3,7 @@
 import { ResponsiveBar } from "@nivo/bar";
 import { useMemo } from "react";
 import { useNarrowScreen } from "@/lib/hooks/use-narrow-screen";
-import { Table, Td, Th } from "@/components/ui/table";
+import { NumberTd, Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { energyByMachine, type MachineEnergyRow } from "@/lib/results/energy";
 import { formatNumber, formatPct } from "@/lib/results/format";
@@ -104,32 +104,20 @@ function EnergyTable({ rows }: { rows: MachineEnergyRow[] }) {
         {rows.map((r) => (
           <tr key={r.machineId}>
             <Td>{r.name}</Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">{r.axisCount}</Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatNumber(r.beforeKWhPerYear, 1)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatNumber(r.afterKWhPerYear, 1)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatNumber(r.savedKWhPerYear, 1)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {pct(r.beforeKWhPerYear, r.afterKWhPerYear)}
-            </Td>
+            <NumberTd>{r.axisCount}</NumberTd>
+            <NumberTd>{formatNumber(r.beforeKWhPerYear, 1)}</NumberTd>
+            <NumberTd>{formatNumber(r.afterKWhPerYear, 1)}</NumberTd>
+            <NumberTd>{formatNumber(r.savedKWhPerYear, 1)}</NumberTd>
+            <NumberTd>{pct(r.beforeKWhPerYear, r.afterKWhPerYear)}</NumberTd>
           </tr>
         ))}
         <tr className="bg-steel-50 font-bold">
           <Td>All machines</Td>
-          <Td className="whitespace-nowrap text-right tabular-nums">
-            {rows.reduce((s, r) => s + r.axisCount, 0)}
-          </Td>
-          <Td className="whitespace-nowrap text-right tabular-nums">{formatNumber(before, 1)}</Td>
-          <Td className="whitespace-nowrap text-right tabular-nums">{formatNumber(after, 1)}</Td>
-          <Td className="whitespace-nowrap text-right tabular-nums">
-            {formatNumber(before - after, 1)}
-          </Td>
-          <Td className="whitespace-nowrap text-right tabular-nums">{pct(before, after)}</Td>
+          <NumberTd>{rows.reduce((s, r) => s + r.axisCount, 0)}</NumberTd>
+          <NumberTd>{formatNumber(before, 1)}</NumberTd>
+          <NumberTd>{formatNumber(after, 1)}</NumberTd>
+          <NumberTd>{formatNumber(before - after, 1)}</NumberTd>
+          <NumberTd>{pct(before, after)}</NumberTd>
         </tr>
       </tbody>
     </Table>

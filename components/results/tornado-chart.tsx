@@ -2,7 +2,7 @@
 
 import { ResponsiveBar, type BarCustomLayerProps, type BarDatum } from "@nivo/bar";
 import { useMemo } from "react";
-import { Table, Td, Th } from "@/components/ui/table";
+import { NumberTd, Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import {
   formatMoney,
@@ -164,27 +164,17 @@ function TornadoTable({
         {view.rows.map((r) => (
           <tr key={r.driver}>
             <Td>{r.label}</Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoney(r.lowNpv, currency)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoneyChange(r.lowChange, currency)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoney(r.highNpv, currency)}
-            </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {formatMoneyChange(r.highChange, currency)}
-            </Td>
+            <NumberTd>{formatMoney(r.lowNpv, currency)}</NumberTd>
+            <NumberTd>{formatMoneyChange(r.lowChange, currency)}</NumberTd>
+            <NumberTd>{formatMoney(r.highNpv, currency)}</NumberTd>
+            <NumberTd>{formatMoneyChange(r.highChange, currency)}</NumberTd>
             <Td className="whitespace-nowrap text-right">{formatPayback(r.lowPaybackYears)}</Td>
             <Td className="whitespace-nowrap text-right">{formatPayback(r.highPaybackYears)}</Td>
           </tr>
         ))}
         <tr className="bg-steel-50 font-bold">
           <Td>As modelled</Td>
-          <Td className="whitespace-nowrap text-right tabular-nums" colSpan={6}>
-            NPV {formatMoney(view.baseNpv, currency)}
-          </Td>
+          <NumberTd colSpan={6}>NPV {formatMoney(view.baseNpv, currency)}</NumberTd>
         </tr>
       </tbody>
     </Table>

@@ -4,7 +4,7 @@ import { namesById } from "@/lib/results/case-view";
 import { ResponsiveLine, type LineCustomSvgLayerProps } from "@nivo/line";
 import { useId, useMemo, useState } from "react";
 import { Field, Select } from "@/components/ui/field";
-import { Table, Td, Th } from "@/components/ui/table";
+import { NumberTd, Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { formatNumber } from "@/lib/results/format";
 import { axisMotion } from "@/lib/results/engine-v2";
@@ -216,12 +216,10 @@ function TorqueSpeedTable({ view }: { view: TorqueSpeedView }) {
                   ? ` — operating speed, needs ${formatNumber(view.operatingPoint.peakTorqueNm, 3)} N·m peak`
                   : ""}
               </Td>
-              <Td className="whitespace-nowrap text-right tabular-nums">{cell(row.open)}</Td>
-              <Td className="whitespace-nowrap text-right tabular-nums">{cell(row.openUsable)}</Td>
-              <Td className="whitespace-nowrap text-right tabular-nums">{cell(row.closed)}</Td>
-              <Td className="whitespace-nowrap text-right tabular-nums">
-                {cell(row.closedUsable)}
-              </Td>
+              <NumberTd>{cell(row.open)}</NumberTd>
+              <NumberTd>{cell(row.openUsable)}</NumberTd>
+              <NumberTd>{cell(row.closed)}</NumberTd>
+              <NumberTd>{cell(row.closedUsable)}</NumberTd>
             </tr>
           );
         })}

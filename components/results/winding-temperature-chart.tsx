@@ -2,7 +2,7 @@
 
 import { ResponsiveBar, type BarCustomLayerProps, type BarDatum } from "@nivo/bar";
 import { useMemo } from "react";
-import { Table, Td, Th } from "@/components/ui/table";
+import { NumberTd, Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { useNarrowScreen } from "@/lib/hooks/use-narrow-screen";
 import { formatNumber, formatTempC } from "@/lib/results/format";
@@ -183,19 +183,17 @@ function TemperatureTable({ rows }: { rows: WindingTemperatureRow[] }) {
               {r.label}
               <span className="block text-caption text-steel-600">{r.machineName}</span>
             </Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
+            <NumberTd>
               {formatTempC(r.beforeC)}
               {over(r.beforeOverLimit)}
-            </Td>
+            </NumberTd>
             <Td>{limit(r.beforeClass, r.beforeLimitC)}</Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
+            <NumberTd>
               {formatTempC(r.afterC)}
               {over(r.afterOverLimit)}
-            </Td>
+            </NumberTd>
             <Td>{limit(r.afterClass, r.afterLimitC)}</Td>
-            <Td className="whitespace-nowrap text-right tabular-nums">
-              {r.dropK === null ? "—" : formatNumber(r.dropK, 0)}
-            </Td>
+            <NumberTd>{r.dropK === null ? "—" : formatNumber(r.dropK, 0)}</NumberTd>
           </tr>
         ))}
       </tbody>

@@ -1,5 +1,5 @@
 import { Panel } from "@/components/ui/panel";
-import { Table, Td, Th } from "@/components/ui/table";
+import { NumberTd, Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult, ParsedCase } from "@/lib/engine";
 import { formatMoney, formatNumber } from "@/lib/results/format";
 import { machineFigures } from "@/lib/results/machine-figures";
@@ -36,15 +36,11 @@ export function MachineFiguresTable({
             <tr key={r.machineId}>
               <Td className="font-bold">{r.name}</Td>
               <Td className="text-right tabular-nums">{r.axisCount}</Td>
-              <Td className="whitespace-nowrap text-right tabular-nums">
-                {formatMoney(r.capex, currency)}
-              </Td>
+              <NumberTd>{formatMoney(r.capex, currency)}</NumberTd>
               <Td className="text-right tabular-nums">{formatNumber(r.beforeKWhPerYear, 0)}</Td>
               <Td className="text-right tabular-nums">{formatNumber(r.afterKWhPerYear, 0)}</Td>
               <Td className="text-right tabular-nums">{formatNumber(r.savedKWhPerYear, 0)}</Td>
-              <Td className="whitespace-nowrap text-right tabular-nums">
-                {formatMoney(r.throughputPerYear, currency)}
-              </Td>
+              <NumberTd>{formatMoney(r.throughputPerYear, currency)}</NumberTd>
             </tr>
           ))}
         </tbody>

@@ -5,7 +5,7 @@ import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Field, Input } from "@/components/ui/field";
 import { Panel } from "@/components/ui/panel";
-import { Table, Td, Th } from "@/components/ui/table";
+import { NumberTd, Table, Td, Th } from "@/components/ui/table";
 import type { CaseResult } from "@/lib/engine";
 import { useWhatIf, WhatIfError } from "@/lib/hooks/use-what-if";
 import { formatIrr, formatMoney, formatMoneyChange, formatPayback } from "@/lib/results/format";
@@ -268,7 +268,7 @@ export function WhatIfPanel({
                     </Td>
                   ) : null}
                   <Td>{figure}</Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">{before}</Td>
+                  <NumberTd>{before}</NumberTd>
                   <Td
                     className={`whitespace-nowrap text-right font-bold tabular-nums ${b ? "text-flux-800" : "text-steel-500"}`}
                     data-testid={`what-if-${key}-${figure.toLowerCase().replace(/ /g, "-")}`}

@@ -33,6 +33,14 @@ export function Td({ className = "", ...props }: TdHTMLAttributes<HTMLTableCellE
   return <td className={`px-3 py-2 align-middle text-steel-900 ${className}`} {...props} />;
 }
 
+/** A cell holding an amount or a figure: right-aligned, digits of one width, kept on one line. */
+export function NumberTd({ className = "", ...props }: TdHTMLAttributes<HTMLTableCellElement>) {
+  const classes = ["whitespace-nowrap text-right tabular-nums", className]
+    .filter(Boolean)
+    .join(" ");
+  return <Td className={classes} {...props} />;
+}
+
 // A column header that sorts the table through the URL, so a sorted view can be bookmarked.
 export function SortHeader({
   label,

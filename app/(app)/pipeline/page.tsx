@@ -12,7 +12,7 @@ import { buttonClass } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
 import { Pager } from "@/components/ui/pager";
-import { SortHeader, Table, Td } from "@/components/ui/table";
+import { NumberTd, SortHeader, Table, Td } from "@/components/ui/table";
 import {
   pipeline,
   pipelineFilterOptions,
@@ -328,20 +328,12 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                   <Td>
                     <QuoteStageBadge stage={q.stage} />
                   </Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatMoney(q.vendorRevenue, q.currency)}
-                  </Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatMoney(q.value, q.currency)}
-                  </Td>
+                  <NumberTd>{formatMoney(q.vendorRevenue, q.currency)}</NumberTd>
+                  <NumberTd>{formatMoney(q.value, q.currency)}</NumberTd>
                   <Td className="text-right tabular-nums">{q.probabilityPct} %</Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatMoney(q.weighted, q.currency)}
-                  </Td>
+                  <NumberTd>{formatMoney(q.weighted, q.currency)}</NumberTd>
                   <Td className="whitespace-nowrap tabular-nums">{q.expectedCloseOn}</Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatPayback(q.paybackYears)}
-                  </Td>
+                  <NumberTd>{formatPayback(q.paybackYears)}</NumberTd>
                 </tr>
               ))}
             </tbody>
@@ -352,16 +344,10 @@ export default async function PipelinePage({ searchParams }: { searchParams: Sea
                     Total of the filtered quotes ({t.count}); the weighted total counts open quotes
                     only
                   </Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatMoney(t.revenue, t.currency)}
-                  </Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatMoney(t.value, t.currency)}
-                  </Td>
+                  <NumberTd>{formatMoney(t.revenue, t.currency)}</NumberTd>
+                  <NumberTd>{formatMoney(t.value, t.currency)}</NumberTd>
                   <Td />
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatMoney(t.weighted, t.currency)}
-                  </Td>
+                  <NumberTd>{formatMoney(t.weighted, t.currency)}</NumberTd>
                   <Td colSpan={2} />
                 </tr>
               ))}

@@ -4,7 +4,7 @@ import { CatalogueRowActions } from "@/components/catalogue/row-actions";
 import { Badge } from "@/components/ui/badge";
 import { buttonClass } from "@/components/ui/button";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
-import { Table, Td, Th } from "@/components/ui/table";
+import { NumberTd, Table, Td, Th } from "@/components/ui/table";
 import { listKits, listMotors } from "@/db/queries/catalogue";
 import { requirePageUser } from "@/server/auth";
 import { currencyMinorUnits, roundMoney } from "@/lib/engine/money";
@@ -179,9 +179,7 @@ export default async function CataloguePage({ searchParams }: { searchParams: Se
               {kits.map((k) => (
                 <tr key={k.id} data-testid={`kit-${k.code}`}>
                   <NameCell name={k.name} code={k.code} active={k.active} />
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatPrice(k.price, k.currency)}
-                  </Td>
+                  <NumberTd>{formatPrice(k.price, k.currency)}</NumberTd>
                   <Td>{k.sensing === "encoder" ? "Encoder" : "Sensorless"}</Td>
                   <Td className="min-w-[7rem]">
                     {k.motorId == null ? (

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { QuoteStageBadge } from "@/components/proposals/quote-stage-badge";
 import { EmptyState, PageHeader, Panel } from "@/components/ui/panel";
-import { Table, Td, Th } from "@/components/ui/table";
+import { NumberTd, Table, Td, Th } from "@/components/ui/table";
 import { getAccountOrThrow } from "@/db/queries/accounts";
 import { listVisibleQuotes, reviewerView } from "@/db/queries/proposals";
 import { requirePageUser } from "@/server/auth";
@@ -62,12 +62,8 @@ export default async function ReviewHome() {
                   <Td>
                     <QuoteStageBadge stage={p.stage} />
                   </Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatMoney(p.value, p.currency)}
-                  </Td>
-                  <Td className="whitespace-nowrap text-right tabular-nums">
-                    {formatPayback(p.paybackYears)}
-                  </Td>
+                  <NumberTd>{formatMoney(p.value, p.currency)}</NumberTd>
+                  <NumberTd>{formatPayback(p.paybackYears)}</NumberTd>
                   <Td className="whitespace-nowrap tabular-nums">{p.sentAt?.slice(0, 10)}</Td>
                   <Td>{p.ownerName}</Td>
                 </tr>
